@@ -1,0 +1,2 @@
+// Public API of the domain maths package. Each concept lives in its own file.
+export {};
