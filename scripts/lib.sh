@@ -1,0 +1,94 @@
+# Shared shell functions of the start and test scripts. Source it; do not run it.
+# Everything the project needs from outside npm comes from Debian's packages,
+# installed here only when missing.
+
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+DATA_DIR="$ROOT/.data"
+cd "$ROOT"
+
+log() { printf '\033[1mkeepstitch:\033[0m %s\n' "$*"; }
+
+# Debian packages, installed without starting any service of theirs.
+apt_install() {
+  local made_policy=0
+  if [ ! -e /usr/sbin/policy-rc.d ]; then
+    printf '#!/bin/sh\nexit 101\n' > /usr/sbin/policy-rc.d && chmod +x /usr/sbin/policy-rc.d && made_policy=1
+  fi
+  DEBIAN_FRONTEND=noninteractive apt-get install -y -q "$@" || {
+    apt-get update -q && DEBIAN_FRONTEND=noninteractive apt-get install -y -q "$@"
+  }
+  local rc=$?
+  [ "$made_policy" = 1 ] && rm -f /usr/sbin/policy-rc.d
+  return $rc
+}
+
+pg_bin_dir() {
+  local dir
+  for dir in $(ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V -r); do
+    if [ -x "$dir/initdb" ] && [ -x "$dir/postgres" ]; then echo "$dir"; return 0; fi
+  done
+  return 1
+}
+
+ensure_postgres() {
+  if ! pg_bin_dir >/dev/null; then
+    log "PostgreSQL server not found: installing Debian's postgresql"
+    apt_install postgresql
+  fi
+  PG_BIN="$(pg_bin_dir)"
+  export PATH="$PG_BIN:$PATH"
+  if ! id postgres >/dev/null 2>&1; then
+    useradd --system --home-dir /var/lib/postgresql --shell /bin/sh postgres
+  fi
+}
+
+ensure_chromium() {
+  if [ ! -x /usr/bin/chromium ]; then
+    log "Chromium not found: installing Debian's chromium"
+    apt_install chromium
+  fi
+  export CHROME_BIN=/usr/bin/chromium
+}
+
+ensure_node_modules() {
+  if [ ! -d node_modules ] || [ ! -f node_modules/.package-lock.json ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+    log "Installing npm packages (npm ci)"
+    npm ci --no-audit --no-fund
+  fi
+}
+
+# As root, PostgreSQL's programs run as the postgres user.
+as_pg() {
+  if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi
+}
+
+# pg_up DIR PORT: a cluster of the project's own in DIR, listening on 127.0.0.1:PORT
+# with its socket inside DIR. Creates it the first time; re-uses it after.
+pg_up() {
+  local dir="$1" port="$2"
+  local data="$dir/data" sock="$dir/run"
+  if [ ${#sock} -gt 90 ]; then sock="/tmp/keepstitch-pg-$port"; fi
+  mkdir -p "$dir" "$sock"
+  if [ "$(id -u)" = 0 ]; then chown postgres "$dir" "$sock"; fi
+  if [ ! -f "$data/PG_VERSION" ]; then
+    log "Creating a PostgreSQL cluster in ${dir#$ROOT/}"
+    as_pg initdb -D "$data" -U postgres --auth=trust -E UTF8 --locale=C >"$dir/initdb.log" 2>&1 || {
+      cat "$dir/initdb.log"; return 1; }
+  fi
+  if as_pg pg_ctl -D "$data" status >/dev/null 2>&1; then
+    log "PostgreSQL already running on 127.0.0.1:$port"
+    return 0
+  fi
+  log "Starting PostgreSQL on 127.0.0.1:$port"
+  as_pg pg_ctl -D "$data" -l "$dir/server.log" -w -t 60 \
+    -o "-k $sock -c listen_addresses=127.0.0.1 -p $port -c fsync=${PG_FSYNC:-on}" start >/dev/null || {
+    tail -n 20 "$dir/server.log"; return 1; }
+}
+
+pg_down() {
+  local dir="$1"
+  if [ -f "$dir/data/PG_VERSION" ] && as_pg pg_ctl -D "$dir/data" status >/dev/null 2>&1; then
+    log "Stopping PostgreSQL"
+    as_pg pg_ctl -D "$dir/data" -m fast -w stop >/dev/null || true
+  fi
+}

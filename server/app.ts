@@ -1,0 +1,108 @@
+import express, { type Express } from 'express';
+import session from 'express-session';
+import connectPgSimple from 'connect-pg-simple';
+import cookieParser from 'cookie-parser';
+import helmet from 'helmet';
+import { Model } from 'objection';
+import type { Knex } from 'knex';
+import type { Pool } from 'pg';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import type { AppConfig } from './core/config';
+import { apiNotFound, errorMiddleware } from './core/error-middleware';
+import { assertPolicyCovered } from './core/secured-router';
+import { configurePassport } from './auth/passport-setup';
+import { createCsrf } from './auth/csrf';
+import { authRouter } from './auth/auth-router';
+import { healthRouter } from './health/health-router';
+import { clientsRouter } from './clients/clients-router';
+import { usersRouter } from './users/users-router';
+
+export const SESSION_COOKIE = 'ks.sid';
+
+export interface AppDeps {
+  config: AppConfig;
+  knex: Knex;
+  /** pg pool the session store uses. */
+  sessionPool: Pool;
+  log?: (err: unknown) => void;
+}
+
+/** Builds the Express app (API and, when built, the Angular app) without listening. */
+export function createApp({ config, knex, sessionPool, log }: AppDeps): Express {
+  Model.knex(knex);
+  const passport = configurePassport();
+  const csrf = createCsrf(config.sessionSecret, config.secureCookies);
+  const PgStore = connectPgSimple(session);
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', false);
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // Angular inserts component styles as <style> elements.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          fontSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+          ...(config.secureCookies ? { upgradeInsecureRequests: [] } : {}),
+        },
+      },
+      strictTransportSecurity: config.secureCookies,
+    }),
+  );
+
+  // Health answers even when sessions cannot be read (the database is down).
+  app.use(healthRouter(knex));
+
+  app.use('/api', express.json({ limit: '200kb' }));
+  app.use(cookieParser());
+  app.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: config.sessionSecret,
+      store: new PgStore({ pool: sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: config.nodeEnv === 'test' ? false : 15 * 60 }),
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: 12 * 60 * 60 * 1000, path: '/' },
+    }),
+  );
+  app.use(passport.session());
+  app.use('/api', csrf.protect);
+
+  app.use(
+    authRouter({
+      csrf,
+      signInLimit: config.signInLimit,
+      signInWindowMs: config.signInWindowMs,
+      sessionCookieName: SESSION_COOKIE,
+    }),
+  );
+  app.use(clientsRouter());
+  app.use(usersRouter());
+  assertPolicyCovered();
+
+  app.use('/api', apiNotFound);
+
+  if (existsSync(path.join(config.webRoot, 'index.html'))) {
+    app.use(express.static(config.webRoot, { index: false, maxAge: '1h' }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(config.webRoot, 'index.html'));
+    });
+  }
+
+  app.use(errorMiddleware(log));
+  return app;
+}

@@ -1,0 +1,113 @@
+import { ApiAgent, addUser, signedIn, startTestApp, TEST_PASSWORD, type TestApp } from '../testing/test-app';
+
+describe('sign-in, sessions and CSRF', () => {
+  let t: TestApp;
+  let owner: { id: number; email: string };
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    owner = await addUser(t.knex, 'owner');
+  });
+  afterAll(() => t.close());
+
+  it('signs in with the right password and tells who is signed in', async () => {
+    const agent = new ApiAgent(t.app);
+    const res = await agent.signIn(owner.email.toUpperCase());
+    expect(res.status).toBe(200);
+    expect(res.body.user).toEqual({ id: owner.id, email: owner.email, name: expect.any(String), role: 'owner', clientId: null });
+    expect(res.body.user.passwordHash).toBeUndefined();
+    const me = await agent.get('/api/auth/me');
+    expect(me.body.user.id).toBe(owner.id);
+  });
+
+  it('refuses a wrong password and an unknown e-mail with the same 401', async () => {
+    const a = await new ApiAgent(t.app).start();
+    const wrong = await a.signIn(owner.email, 'not the password');
+    const unknown = await a.signIn('nobody@example.test', TEST_PASSWORD);
+    for (const res of [wrong, unknown]) {
+      expect(res.status).toBe(401);
+      expect(res.body.error).toEqual({ code: 'bad_credentials', message: expect.stringMatching(/do not match/) });
+    }
+    expect((await a.get('/api/auth/me')).body.user).toBeNull();
+  });
+
+  it('gives a new session id on sign-in, so a planted session id is worthless', async () => {
+    const agent = await new ApiAgent(t.app).start();
+    const before = agent.sessionId;
+    expect(before).not.toBe('');
+    await agent.signIn(owner.email);
+    expect(agent.sessionId).not.toBe('');
+    expect(agent.sessionId).not.toBe(before);
+    expect(await t.knex('session').where('sid', before)).toHaveLength(0);
+  });
+
+  it('destroys the session on sign-out: the old cookie no longer works', async () => {
+    const agent = await signedIn(t.app, owner.email);
+    const { sessionId, sessionCookie } = agent;
+    expect(await t.knex('session').where('sid', sessionId)).toHaveLength(1);
+    const out = await agent.post('/api/auth/sign-out');
+    expect(out.status).toBe(204);
+    expect(await t.knex('session').where('sid', sessionId)).toHaveLength(0);
+    const replay = await new ApiAgent(t.app).agent.get('/api/clients').set('Cookie', `ks.sid=${encodeURIComponent(sessionCookie)}`);
+    expect(replay.status).toBe(401);
+  });
+
+  it('rejects a state-changing request without the CSRF token with a clear 403', async () => {
+    const agent = await signedIn(t.app, owner.email);
+    const res = await agent.agent.post('/api/clients').send({ name: 'No token' });
+    expect(res.status).toBe(403);
+    expect(res.body.error.code).toBe('csrf');
+    expect(res.body.error.message).toMatch(/security token/);
+    const forged = await agent.agent.post('/api/clients').set('X-XSRF-TOKEN', 'forged.value').send({ name: 'Forged' });
+    expect(forged.status).toBe(403);
+    expect(await t.knex('clients').whereIn('name', ['No token', 'Forged'])).toHaveLength(0);
+  });
+
+  it('rejects a CSRF token taken from another session', async () => {
+    const a = await signedIn(t.app, owner.email);
+    const b = await signedIn(t.app, owner.email);
+    const res = await b.agent.post('/api/clients').set('X-XSRF-TOKEN', a.csrf).send({ name: 'Cross' });
+    expect(res.status).toBe(403);
+  });
+
+  it('ends every session of a user whose password is reset', async () => {
+    const assistant = await addUser(t.knex, 'workroom');
+    const theirs = await signedIn(t.app, assistant.email);
+    const boss = await signedIn(t.app, owner.email);
+    expect((await theirs.get('/api/clients')).status).toBe(200);
+    const reset = await boss.post(`/api/users/${assistant.id}/password`, { password: 'a brand new password' });
+    expect(reset.status).toBe(204);
+    expect((await theirs.get('/api/clients')).status).toBe(401);
+    expect((await new ApiAgent(t.app).signIn(assistant.email, 'a brand new password')).status).toBe(200);
+  });
+
+  it('validates the sign-in body', async () => {
+    const a = await new ApiAgent(t.app).start();
+    const res = await a.post('/api/auth/sign-in', { email: '', extra: 1 });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toEqual({
+      email: 'Enter your e-mail address.',
+      password: 'Enter your password.',
+      extra: 'This field is not accepted here.',
+    });
+  });
+});
+
+describe('sign-in rate limit', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await startTestApp({ signInLimit: 3, signInWindowMs: 60_000 });
+  });
+  afterAll(() => t.close());
+
+  it('answers 429 with a message once the failed attempts run out', async () => {
+    const owner = await addUser(t.knex, 'owner');
+    const a = await new ApiAgent(t.app).start();
+    const statuses: number[] = [];
+    for (let i = 0; i < 4; i++) statuses.push((await a.signIn(owner.email, 'wrong password')).status);
+    expect(statuses).toEqual([401, 401, 401, 429]);
+    const limited = await a.signIn(owner.email);
+    expect(limited.status).toBe(429);
+    expect(limited.body.error).toEqual({ code: 'rate_limited', message: expect.stringMatching(/wait 1 minute/) });
+  });
+});

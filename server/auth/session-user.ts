@@ -1,0 +1,19 @@
+import type { PublicUser } from '../users/user-model';
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    // passport puts the signed-in user here; it is the public shape, never the hash.
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    interface User extends PublicUser {}
+  }
+}
+
+declare module 'express-session' {
+  interface SessionData {
+    /** Set when a CSRF token was issued, so an anonymous session is kept. */
+    csrfIssued?: boolean;
+  }
+}
+
+export {};

@@ -1,0 +1,61 @@
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { z } from 'zod';
+
+/** The project's own data folder (git-ignored): database cluster, secrets, uploads. */
+export const DATA_DIR = path.resolve(__dirname, '..', '..', '.data');
+
+const configSchema = z.object({
+  nodeEnv: z.enum(['development', 'production', 'test']),
+  port: z.coerce.number().int().min(0).max(65535),
+  host: z.string().min(1),
+  databaseUrl: z.string().url({ message: 'DATABASE_URL must be a postgres:// URL' }).startsWith('postgres', {
+    message: 'DATABASE_URL must be a postgres:// URL',
+  }),
+  sessionSecret: z.string().min(32, { message: 'SESSION_SECRET must be at least 32 characters' }),
+  /** Serve cookies with the Secure flag (set when the app is reached over TLS). */
+  secureCookies: z.boolean(),
+  /** Sign-in attempts allowed per client address in one window. */
+  signInLimit: z.coerce.number().int().positive(),
+  signInWindowMs: z.coerce.number().int().positive(),
+  /** Folder of the built Angular app; the server serves it when present. */
+  webRoot: z.string().min(1),
+});
+
+export type AppConfig = z.infer<typeof configSchema>;
+
+/** Reads the dev session secret from the data folder, creating it the first time. */
+function devSessionSecret(): string {
+  const file = path.join(DATA_DIR, 'session-secret');
+  if (existsSync(file)) return readFileSync(file, 'utf8').trim();
+  mkdirSync(DATA_DIR, { recursive: true });
+  const secret = randomBytes(48).toString('base64url');
+  writeFileSync(file, secret + '\n', { mode: 0o600 });
+  return secret;
+}
+
+/**
+ * Reads configuration from the environment once and validates it.
+ * A missing or bad value throws with a message naming the setting.
+ */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
+  const nodeEnv = env['NODE_ENV'] ?? 'development';
+  const raw = {
+    nodeEnv,
+    port: env['PORT'] ?? '4300',
+    host: env['HOST'] ?? '127.0.0.1',
+    databaseUrl: env['DATABASE_URL'],
+    sessionSecret: env['SESSION_SECRET'] ?? (nodeEnv === 'production' ? undefined : devSessionSecret()),
+    secureCookies: env['SECURE_COOKIES'] === 'true',
+    signInLimit: env['SIGN_IN_LIMIT'] ?? '10',
+    signInWindowMs: env['SIGN_IN_WINDOW_MS'] ?? String(15 * 60 * 1000),
+    webRoot: env['WEB_ROOT'] ?? path.resolve(__dirname, '..', '..', 'dist', 'keepstitch', 'browser'),
+  };
+  const parsed = configSchema.safeParse(raw);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.') || 'config'}: ${i.message}`);
+    throw new Error(`Keepstitch cannot start: the configuration is not valid.\n${lines.join('\n')}`);
+  }
+  return parsed.data;
+}

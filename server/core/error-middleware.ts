@@ -1,0 +1,65 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express';
+import { DBError, ForeignKeyViolationError, NotFoundError, UniqueViolationError, ValidationError } from 'objection';
+import { ZodError } from 'zod';
+import { AppError } from './app-error';
+import { fieldMessages } from './validate';
+
+const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', '57P01', '57P02', '57P03', '08006', '08001', '08003']);
+
+/** True when an error says the database cannot be reached right now. */
+export function isDatabaseDown(err: unknown): boolean {
+  let e: unknown = err;
+  for (let depth = 0; e && depth < 4; depth++) {
+    const code = (e as { code?: unknown }).code;
+    if (typeof code === 'string' && DB_DOWN_CODES.has(code)) return true;
+    const message = (e as { message?: unknown }).message;
+    if (typeof message === 'string' && /Knex: Timeout acquiring a connection|Connection terminated/.test(message)) return true;
+    e = (e as { nativeError?: unknown; cause?: unknown }).nativeError ?? (e as { cause?: unknown }).cause;
+  }
+  return false;
+}
+
+function toAppError(err: unknown): AppError {
+  if (err instanceof AppError) return err;
+  if (err instanceof ZodError) return new AppError(400, 'validation', 'The request has fields to correct.', fieldMessages(err));
+  if (err instanceof NotFoundError) return AppError.notFound();
+  if (err instanceof ValidationError) return new AppError(400, 'validation', err.message);
+  if (err instanceof UniqueViolationError) return AppError.conflict('A record with the same value already exists.');
+  if (err instanceof ForeignKeyViolationError) {
+    return AppError.conflict('This record is still linked to other records, so the change was not made.');
+  }
+  if (isDatabaseDown(err)) {
+    return new AppError(503, 'unavailable', 'The workroom database is not answering. Nothing was changed; please try again in a moment.');
+  }
+  const e = err as { code?: string; type?: string; status?: number };
+  if (e.code === 'EBADCSRFTOKEN') {
+    return new AppError(403, 'csrf', 'This request was missing its security token. Reload the page and try again.');
+  }
+  if (e.type === 'entity.parse.failed') return new AppError(400, 'bad_json', 'The request body is not valid JSON.');
+  if (e.type === 'entity.too.large') return new AppError(413, 'too_large', 'The request is too large.');
+  if (err instanceof DBError) return new AppError(500, 'internal', 'Something went wrong on our side. Nothing was changed.');
+  if (typeof e.status === 'number' && e.status >= 400 && e.status < 500) {
+    return new AppError(e.status, 'bad_request', 'The request could not be understood.');
+  }
+  return new AppError(500, 'internal', 'Something went wrong on our side. Please try again; if it keeps happening, tell us what you were doing.');
+}
+
+/** The one error middleware, registered last. Never sends SQL or a stack trace. */
+export function errorMiddleware(log: (err: unknown) => void = (err) => console.error(err)): ErrorRequestHandler {
+  return (err, _req, res, next) => {
+    if (res.headersSent) return next(err);
+    const appError = toAppError(err);
+    if (appError.status >= 500) log(err);
+    const body: { code: string; message: string; fields?: Record<string, string> } = {
+      code: appError.code,
+      message: appError.message,
+    };
+    if (appError.fields) body.fields = appError.fields;
+    res.status(appError.status).json({ error: body });
+  };
+}
+
+/** 404 for any /api path no route answered. */
+export const apiNotFound: RequestHandler = (_req, _res, next) => {
+  next(new AppError(404, 'not_found', 'There is no such API route.'));
+};

@@ -1,0 +1,129 @@
+import type { Express } from 'express';
+import type { Knex } from 'knex';
+import { Pool } from 'pg';
+import request from 'supertest';
+import bcrypt from 'bcryptjs';
+import { createApp } from '../app';
+import { loadConfig, type AppConfig } from '../core/config';
+import type { Role } from '../core/roles';
+import { createTestDatabase } from './test-database';
+
+export interface TestApp {
+  app: Express;
+  knex: Knex;
+  close(): Promise<void>;
+}
+
+/** The real app against a fresh real database of its own. */
+export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<TestApp> {
+  const db = await createTestDatabase();
+  const config: AppConfig = {
+    ...loadConfig({
+      NODE_ENV: 'test',
+      DATABASE_URL: db.url,
+      SESSION_SECRET: 'test-secret-'.padEnd(48, 'x'),
+      SIGN_IN_LIMIT: '1000',
+      WEB_ROOT: '/nonexistent',
+    }),
+    ...overrides,
+  };
+  const sessionPool = new Pool({ connectionString: db.url, max: 3 });
+  const app = createApp({ config, knex: db.knex, sessionPool, log: () => undefined });
+  return {
+    app,
+    knex: db.knex,
+    async close() {
+      await sessionPool.end();
+      await db.drop();
+    },
+  };
+}
+
+export const TEST_PASSWORD = 'correct horse battery';
+
+let userCounter = 0;
+
+/** Inserts a user (and, for a client, their client record unless one is given). */
+export async function addUser(knex: Knex, role: Role, clientId?: number) {
+  userCounter++;
+  let linked = clientId ?? null;
+  if (role === 'client' && linked === null) {
+    const [client] = await knex('clients').insert({ name: `Client ${userCounter}` }).returning('id');
+    linked = client.id;
+  }
+  const [user] = await knex('users')
+    .insert({
+      email: `${role}${userCounter}@example.test`,
+      name: `${role} ${userCounter}`,
+      role,
+      clientId: linked,
+      passwordHash: bcrypt.hashSync(TEST_PASSWORD, 4),
+    })
+    .returning(['id', 'email', 'clientId']);
+  return user as { id: number; email: string; clientId: number | null };
+}
+
+function cookieValue(res: request.Response, name: string): string | undefined {
+  const raw = res.headers['set-cookie'] as unknown as string[] | string | undefined;
+  const list = Array.isArray(raw) ? raw : raw ? [raw] : [];
+  for (const c of list) {
+    const [pair] = c.split(';');
+    const eq = pair!.indexOf('=');
+    if (pair!.slice(0, eq) === name) return decodeURIComponent(pair!.slice(eq + 1));
+  }
+  return undefined;
+}
+
+/** A cookie-keeping client of the API that sends the CSRF header as the Angular app does. */
+export class ApiAgent {
+  readonly agent;
+  csrf = '';
+  /** The raw session cookie value last set by the server. */
+  sessionCookie = '';
+
+  constructor(app: Express) {
+    this.agent = request.agent(app);
+  }
+
+  private keep(res: request.Response): request.Response {
+    this.csrf = cookieValue(res, 'XSRF-TOKEN') ?? this.csrf;
+    this.sessionCookie = cookieValue(res, 'ks.sid') ?? this.sessionCookie;
+    return res;
+  }
+
+  /** The session id inside the signed session cookie. */
+  get sessionId(): string {
+    return this.sessionCookie.replace(/^s:/, '').split('.')[0] ?? '';
+  }
+
+  async start(): Promise<this> {
+    this.keep(await this.agent.get('/api/auth/me'));
+    return this;
+  }
+
+  async signIn(email: string, password = TEST_PASSWORD): Promise<request.Response> {
+    if (!this.csrf) await this.start();
+    return this.keep(await this.agent.post('/api/auth/sign-in').set('X-XSRF-TOKEN', this.csrf).send({ email, password }));
+  }
+
+  async get(url: string) {
+    return this.keep(await this.agent.get(url));
+  }
+
+  async send(method: 'post' | 'patch' | 'put' | 'delete', url: string, body?: unknown) {
+    const req = this.agent[method](url).set('X-XSRF-TOKEN', this.csrf);
+    return this.keep(await (body === undefined ? req : req.send(body as object)));
+  }
+
+  post = (url: string, body?: unknown) => this.send('post', url, body);
+  patch = (url: string, body?: unknown) => this.send('patch', url, body);
+  delete = (url: string) => this.send('delete', url);
+}
+
+/** Signs in a new agent as the given user. */
+export async function signedIn(app: Express, email: string): Promise<ApiAgent> {
+  const agent = new ApiAgent(app);
+  const res = await agent.signIn(email);
+  if (res.status !== 200) throw new Error(`Sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return agent;
+}

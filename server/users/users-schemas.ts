@@ -1,0 +1,29 @@
+import { z } from 'zod';
+import { passwordSchema } from '../auth/auth-schemas';
+
+export const createUserSchema = z
+  .object({
+    email: z
+      .string({ message: 'E-mail is required.' })
+      .trim()
+      .toLowerCase()
+      .max(254, 'An e-mail address can be at most 254 characters.')
+      .pipe(z.email('Enter an e-mail address like name@example.org.')),
+    name: z.string({ message: 'Name is required.' }).trim().min(1, 'Name is required.').max(200, 'A name can be at most 200 characters.'),
+    role: z.enum(['workroom', 'client'], { message: 'Role must be workroom or client.' }),
+    clientId: z.number({ message: 'Choose the client record this sign-in belongs to.' }).int().positive().optional(),
+    password: passwordSchema,
+  })
+  .strict()
+  .superRefine((v, ctx) => {
+    if (v.role === 'client' && v.clientId === undefined) {
+      ctx.addIssue({ code: 'custom', path: ['clientId'], message: 'Choose the client record this sign-in belongs to.' });
+    }
+    if (v.role !== 'client' && v.clientId !== undefined) {
+      ctx.addIssue({ code: 'custom', path: ['clientId'], message: 'Only a client sign-in belongs to a client record.' });
+    }
+  });
+
+export const resetPasswordSchema = z.object({ password: passwordSchema }).strict();
+
+export type CreateUserInput = z.infer<typeof createUserSchema>;

@@ -1,0 +1,37 @@
+import { AppError } from '../core/app-error';
+import { hashPassword } from '../auth/password';
+import { ClientModel } from '../clients/client-model';
+import { UserModel, type PublicUser } from './user-model';
+import type { CreateUserInput } from './users-schemas';
+
+export async function listUsers(): Promise<PublicUser[]> {
+  const users = await UserModel.query().orderBy('role').orderByRaw('lower(name)');
+  return users.map((u) => u.toPublic());
+}
+
+export async function createUser(input: CreateUserInput): Promise<PublicUser> {
+  const taken = await UserModel.query().whereRaw('lower(email) = ?', [input.email]).first();
+  if (taken) throw new AppError(409, 'conflict', 'That e-mail address already has a sign-in.', { email: 'Already in use.' });
+  if (input.clientId !== undefined) {
+    const client = await ClientModel.query().findById(input.clientId);
+    if (!client) throw new AppError(400, 'validation', 'The chosen client record does not exist.', { clientId: 'No such client.' });
+  }
+  const user = await UserModel.query().insertAndFetch({
+    email: input.email,
+    name: input.name,
+    role: input.role,
+    clientId: input.clientId ?? null,
+    passwordHash: await hashPassword(input.password),
+  });
+  return user.toPublic();
+}
+
+/** Sets a new password; every session of that user ends. */
+export async function resetPassword(id: number, password: string): Promise<void> {
+  const passwordHash = await hashPassword(password);
+  await UserModel.transaction(async (trx) => {
+    const count = await UserModel.query(trx).patch({ passwordHash, passwordChangedAt: new Date() }).findById(id);
+    if (!count) throw AppError.notFound('That user');
+    await trx.raw(`DELETE FROM session WHERE (sess -> 'passport' -> 'user' ->> 'id')::int = ?`, [id]);
+  });
+}
