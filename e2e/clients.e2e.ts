@@ -1,0 +1,64 @@
+import type { Browser } from 'playwright-core';
+import { DEMO_ACCOUNTS } from '../seeds/demo/accounts';
+import { launchBrowser, openPage, screenshot, signIn } from './support/browser';
+
+describe('clients, end to end', () => {
+  let browser: Browser;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(() => browser.close());
+
+  it('lets the owner add a client, find it through the filter and edit it', async () => {
+    const { page, problems } = await openPage(browser);
+    await page.goto('/');
+    await page.waitForURL(/\/sign-in/);
+    await screenshot(page, 'sign-in');
+    await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    await page.waitForURL(/\/clients/);
+    await page.getByRole('heading', { name: 'Clients' }).waitFor();
+    await page.getByTestId('client-row').first().waitFor();
+    await screenshot(page, 'clients-list');
+
+    await page.getByRole('button', { name: 'Add client' }).first().click();
+    await page.getByRole('button', { name: 'Save' }).click();
+    await page.getByText('Name is required').first().waitFor();
+    await page.getByLabel('Name').fill('Odette Quillfeather');
+    await page.getByLabel('E-mail').fill('odette@post.test');
+    await page.getByLabel('Phone').fill('07700 900555');
+    await screenshot(page, 'client-form');
+    await page.getByRole('button', { name: 'Save' }).click();
+
+    await page.goto('/clients');
+    await page.getByLabel('Filter clients').fill('Quillfeather');
+    const row = page.getByTestId('client-row').filter({ hasText: 'Odette Quillfeather' });
+    await row.waitFor();
+    expect(await page.getByTestId('client-row').count()).toBe(1);
+
+    await row.click();
+    await page.getByLabel('Notes').waitFor();
+    await page.getByLabel('Phone').fill('07700 900556');
+    await page.getByRole('button', { name: 'Save' }).click();
+    await page.goto('/clients');
+    await page.getByLabel('Filter clients').fill('900556');
+    await page.getByTestId('client-row').filter({ hasText: 'Odette Quillfeather' }).waitFor();
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+
+  it('shows a signed-in client only their own record', async () => {
+    const { page, problems } = await openPage(browser);
+    await signIn(page, DEMO_ACCOUNTS.clientA.email, DEMO_ACCOUNTS.clientA.password);
+    await page.waitForURL(/\/my-details/);
+    await page.getByText(DEMO_ACCOUNTS.clientA.name).first().waitFor();
+    const body = await page.locator('body').innerText();
+    expect(body).not.toContain(DEMO_ACCOUNTS.clientB.name);
+    expect(body).not.toContain('Ines Valcourt-Reyne');
+    await screenshot(page, 'client-my-details');
+    // The owner's screens are not the client's.
+    await page.goto('/clients');
+    await page.waitForURL((url) => !url.pathname.startsWith('/clients'));
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+});

@@ -1,0 +1,40 @@
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { BASE_URL, SCREENSHOT_DIR } from './e2e-env';
+
+/** Debian's Chromium, headless, with nothing reaching outside the machine. */
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env['CHROME_BIN'] ?? '/usr/bin/chromium',
+    args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+  });
+}
+
+/** A new page in a fresh context, failing the test on any console error or request to another host. */
+export async function openPage(browser: Browser): Promise<{ page: Page; problems: string[] }> {
+  const context = await browser.newContext({ baseURL: BASE_URL, viewport: { width: 1280, height: 800 } });
+  const page = await context.newPage();
+  const problems: string[] = [];
+  page.on('console', (m) => {
+    if (m.type() === 'error' && !/status of 40[134]/.test(m.text())) problems.push(`console: ${m.text()}`);
+  });
+  page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
+  page.on('request', (r) => {
+    if (!r.url().startsWith(BASE_URL) && !r.url().startsWith('data:') && !r.url().startsWith('blob:')) problems.push(`outside request: ${r.url()}`);
+  });
+  return { page, problems };
+}
+
+export async function signIn(page: Page, email: string, password: string): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}
+
+export async function screenshot(page: Page, name: string): Promise<void> {
+  mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
+}

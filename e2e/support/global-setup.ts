@@ -1,0 +1,54 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdirSync, openSync } from 'node:fs';
+import path from 'node:path';
+import { Client } from 'pg';
+import { E2E_PORT, ROOT } from './e2e-env';
+
+declare global {
+  // eslint-disable-next-line no-var
+  var __keepstitchServer: ChildProcess | undefined;
+}
+
+function databaseUrl(name: string): string {
+  const base = process.env['DATABASE_URL'];
+  if (!base) throw new Error('DATABASE_URL is not set: run the end-to-end tests through `npm test`.');
+  const url = new URL(base);
+  url.pathname = `/${name}`;
+  return url.toString();
+}
+
+async function waitForHealth(url: string, server: ChildProcess): Promise<void> {
+  for (let i = 0; i < 120; i++) {
+    if (server.exitCode !== null) throw new Error(`The server exited with code ${server.exitCode}; see test-output/e2e-server.log`);
+    try {
+      const res = await fetch(url);
+      if (res.ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error('The server did not answer /api/health within 30 s.');
+}
+
+/** A fresh database with the demo scenario, and the real server serving the production build. */
+export default async function globalSetup(): Promise<void> {
+  if (!existsSync(path.join(ROOT, 'dist', 'keepstitch', 'browser', 'index.html'))) {
+    throw new Error('No production build in dist/keepstitch: run `npx ng build` first (npm test does).');
+  }
+  const admin = new Client({ connectionString: databaseUrl('postgres') });
+  await admin.connect();
+  await admin.query('DROP DATABASE IF EXISTS keepstitch_e2e WITH (FORCE)');
+  await admin.end();
+
+  const env = { ...process.env, DATABASE_URL: databaseUrl('keepstitch_e2e'), PORT: String(E2E_PORT), NODE_ENV: 'production', SESSION_SECRET: 'e2e-session-secret-'.padEnd(48, 'e') };
+  const prepare = spawn(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'prepare'], { cwd: ROOT, env, stdio: 'inherit' });
+  const code = await new Promise<number | null>((r) => prepare.on('exit', r));
+  if (code !== 0) throw new Error('Preparing the end-to-end database failed.');
+
+  mkdirSync(path.join(ROOT, 'test-output'), { recursive: true });
+  const log = openSync(path.join(ROOT, 'test-output', 'e2e-server.log'), 'w');
+  const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: ['ignore', log, log] });
+  globalThis.__keepstitchServer = server;
+  await waitForHealth(`http://127.0.0.1:${E2E_PORT}/api/health`, server);
+}
