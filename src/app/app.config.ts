@@ -1,0 +1,39 @@
+import {
+  provideHttpClient,
+  withInterceptors,
+  withXsrfConfiguration,
+} from '@angular/common/http';
+import {
+  ApplicationConfig,
+  ErrorHandler,
+  inject,
+  provideAppInitializer,
+  provideBrowserGlobalErrorListeners,
+  provideZonelessChangeDetection,
+} from '@angular/core';
+import { MAT_FORM_FIELD_DEFAULT_OPTIONS } from '@angular/material/form-field';
+import { MAT_ICON_DEFAULT_OPTIONS } from '@angular/material/icon';
+import { TitleStrategy, provideRouter, withComponentInputBinding } from '@angular/router';
+
+import { routes } from './app.routes';
+import { apiErrorInterceptor } from './core/api-error-interceptor';
+import { AppErrorHandler } from './core/app-error-handler';
+import { Auth } from './core/auth';
+import { PageTitle } from './core/page-title';
+
+export const appConfig: ApplicationConfig = {
+  providers: [
+    provideBrowserGlobalErrorListeners(),
+    provideZonelessChangeDetection(),
+    provideRouter(routes, withComponentInputBinding()),
+    provideHttpClient(
+      withInterceptors([apiErrorInterceptor]),
+      withXsrfConfiguration({ cookieName: 'XSRF-TOKEN', headerName: 'X-XSRF-TOKEN' }),
+    ),
+    provideAppInitializer(() => inject(Auth).load()),
+    { provide: ErrorHandler, useClass: AppErrorHandler },
+    { provide: TitleStrategy, useClass: PageTitle },
+    { provide: MAT_ICON_DEFAULT_OPTIONS, useValue: { fontSet: 'material-symbols-outlined' } },
+    { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { appearance: 'outline' } },
+  ],
+};

@@ -1,0 +1,31 @@
+import { Routes } from '@angular/router';
+
+import { NotFound } from './core/not-found';
+import { homeGuard, roleGuard, signedOutGuard } from './core/role-guard';
+
+export const routes: Routes = [
+  { path: '', pathMatch: 'full', canActivate: [homeGuard], children: [] },
+  {
+    path: 'sign-in',
+    title: 'Sign in',
+    canActivate: [signedOutGuard],
+    loadComponent: () => import('./sign-in/sign-in').then((m) => m.SignIn),
+  },
+  {
+    path: 'clients',
+    canActivate: [roleGuard('owner', 'workroom')],
+    loadChildren: () => import('./clients/clients.routes').then((m) => m.clientsRoutes),
+  },
+  {
+    path: 'users',
+    canActivate: [roleGuard('owner')],
+    loadChildren: () => import('./users/users.routes').then((m) => m.usersRoutes),
+  },
+  {
+    path: 'my-details',
+    title: 'My details',
+    canActivate: [roleGuard('client')],
+    loadComponent: () => import('./my-details/my-details').then((m) => m.MyDetails),
+  },
+  { path: '**', title: 'Page not found', component: NotFound },
+];

@@ -1,0 +1,88 @@
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { ChangeDetectionStrategy, Component, computed, inject, viewChild } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { MatButtonModule } from '@angular/material/button';
+import { MatIconModule } from '@angular/material/icon';
+import { MatListModule } from '@angular/material/list';
+import { MatSidenav, MatSidenavModule } from '@angular/material/sidenav';
+import { MatToolbarModule } from '@angular/material/toolbar';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { map } from 'rxjs';
+
+import { Auth } from './auth';
+import { Role, roleLabels } from './user';
+
+interface NavItem {
+  path: string;
+  label: string;
+  icon: string;
+  roles: readonly Role[];
+}
+
+/** Every place in the app, with the roles that may open it. */
+const navItems: readonly NavItem[] = [
+  { path: '/clients', label: 'Clients', icon: 'group', roles: ['owner', 'workroom'] },
+  { path: '/users', label: 'Users', icon: 'manage_accounts', roles: ['owner'] },
+  { path: '/my-details', label: 'My details', icon: 'badge', roles: ['client'] },
+];
+
+/** The frame around every page: toolbar, navigation for the signed-in role, and the page. */
+@Component({
+  selector: 'ks-shell',
+  imports: [
+    RouterOutlet,
+    RouterLink,
+    RouterLinkActive,
+    MatToolbarModule,
+    MatSidenavModule,
+    MatListModule,
+    MatButtonModule,
+    MatIconModule,
+  ],
+  templateUrl: './shell.html',
+  styleUrl: './shell.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class Shell {
+  private readonly auth = inject(Auth);
+  private readonly router = inject(Router);
+  private readonly sidenav = viewChild(MatSidenav);
+
+  protected readonly user = this.auth.user;
+  protected readonly roleLabel = computed(() => {
+    const role = this.auth.role();
+    return role ? roleLabels[role] : '';
+  });
+  protected readonly navItems = computed(() => {
+    const role = this.auth.role();
+    return role ? navItems.filter((item) => item.roles.includes(role)) : [];
+  });
+  protected readonly wide = toSignal(
+    inject(BreakpointObserver)
+      .observe('(min-width: 960px)')
+      .pipe(map((state) => state.matches)),
+    { initialValue: true },
+  );
+
+  protected toggleNavigation(): void {
+    void this.sidenav()?.toggle();
+  }
+
+  protected closeNavigationIfOver(): void {
+    if (!this.wide()) {
+      void this.sidenav()?.close();
+    }
+  }
+
+  protected skipToContent(event: Event, main: HTMLElement): void {
+    event.preventDefault();
+    main.focus();
+  }
+
+  protected signOut(): void {
+    this.auth.signOut().subscribe({
+      complete: () => void this.router.navigateByUrl('/sign-in'),
+      error: () => void this.router.navigateByUrl('/sign-in'),
+    });
+  }
+}
