@@ -1,0 +1,168 @@
+import { DatePipe } from '@angular/common';
+import {
+  AfterViewInit,
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  computed,
+  inject,
+  signal,
+  viewChild,
+} from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSort, MatSortModule } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { ActivatedRoute, Router, RouterLink } from '@angular/router';
+import {
+  Subject,
+  catchError,
+  debounceTime,
+  distinctUntilChanged,
+  map,
+  merge,
+  of,
+  share,
+  startWith,
+  switchMap,
+  tap,
+} from 'rxjs';
+
+import { Auth } from '../core/auth';
+import { ClientRow, ClientSortField } from './client';
+import { ClientsApi } from './clients-api';
+
+const sortFields: readonly ClientSortField[] = ['name', 'email', 'createdAt'];
+
+/** Waits this long after the last key press before filtering on the server. */
+export const filterDelayMs = 300;
+
+/**
+ * The client records, paged, sorted and filtered on the server.
+ * The owner sees contact details; the workroom sees names only.
+ */
+@Component({
+  selector: 'ks-client-list',
+  imports: [
+    DatePipe,
+    ReactiveFormsModule,
+    RouterLink,
+    MatTableModule,
+    MatSortModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatButtonModule,
+    MatIconModule,
+  ],
+  templateUrl: './client-list.html',
+  styleUrl: './client-list.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ClientList implements AfterViewInit {
+  private readonly api = inject(ClientsApi);
+  private readonly auth = inject(Auth);
+  private readonly router = inject(Router);
+  private readonly route = inject(ActivatedRoute);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly retry = new Subject<void>();
+
+  protected readonly paginator = viewChild.required(MatPaginator);
+  protected readonly sort = viewChild.required(MatSort);
+
+  protected readonly pageSizeOptions = [10, 25, 50, 100];
+  protected readonly filter = new FormControl('', { nonNullable: true });
+  protected readonly isOwner = computed(() => this.auth.user()?.role === 'owner');
+  protected readonly displayedColumns = computed(() =>
+    this.isOwner() ? ['name', 'email', 'phone', 'createdAt'] : ['name'],
+  );
+
+  protected readonly rows = signal<ClientRow[]>([]);
+  protected readonly total = signal(0);
+  protected readonly loading = signal(true);
+  protected readonly failed = signal(false);
+  /** The filter text of the last request sent (not what is being typed). */
+  protected readonly appliedFilter = signal('');
+
+  protected readonly noClientsYet = computed(
+    () => !this.loading() && !this.failed() && this.total() === 0 && this.appliedFilter() === '',
+  );
+  protected readonly noMatches = computed(
+    () => !this.loading() && !this.failed() && this.total() === 0 && this.appliedFilter() !== '',
+  );
+  protected readonly status = computed(() => {
+    if (this.loading()) return 'Loading clients…';
+    if (this.failed()) return 'The clients could not be loaded.';
+    if (this.noClientsYet()) return 'No clients yet.';
+    if (this.noMatches()) return `No clients match “${this.appliedFilter()}”.`;
+    const total = this.total();
+    return total === 1 ? '1 client.' : `${total} clients.`;
+  });
+
+  ngAfterViewInit(): void {
+    const sort = this.sort();
+    const paginator = this.paginator();
+
+    const filterChange = this.filter.valueChanges.pipe(
+      debounceTime(filterDelayMs),
+      map((text) => text.trim()),
+      distinctUntilChanged(),
+      tap((text) => this.appliedFilter.set(text)),
+      share(),
+    );
+
+    // A new order or a new filter starts again from the first page.
+    merge(sort.sortChange, filterChange)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe(() => (paginator.pageIndex = 0));
+
+    merge(sort.sortChange, filterChange, paginator.page, this.retry)
+      .pipe(
+        startWith(null),
+        switchMap(() => {
+          this.loading.set(true);
+          this.failed.set(false);
+          const active = sortFields.find((field) => field === sort.active) ?? 'name';
+          return this.api
+            .list({
+              page: paginator.pageIndex,
+              pageSize: paginator.pageSize,
+              sort: active,
+              dir: sort.direction === 'desc' ? 'desc' : 'asc',
+              q: this.appliedFilter(),
+            })
+            .pipe(catchError(() => of(null)));
+        }),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe((page) => {
+        this.loading.set(false);
+        if (page === null) {
+          this.failed.set(true);
+          this.rows.set([]);
+          return;
+        }
+        this.rows.set(page.items);
+        this.total.set(page.total);
+      });
+  }
+
+  protected addClient(): void {
+    void this.router.navigate(['new'], { relativeTo: this.route });
+  }
+
+  protected clearFilter(): void {
+    this.filter.setValue('');
+  }
+
+  protected loadAgain(): void {
+    this.retry.next();
+  }
+}

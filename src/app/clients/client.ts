@@ -1,0 +1,55 @@
+import * as z from 'zod/mini';
+
+/** A client record as the owner sees it. */
+export const clientSchema = z.object({
+  id: z.number(),
+  name: z.string(),
+  email: z.nullable(z.string()),
+  phone: z.nullable(z.string()),
+  address: z.nullable(z.string()),
+  notes: z.nullable(z.string()),
+  portfolioConsent: z.boolean(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type Client = z.infer<typeof clientSchema>;
+
+/**
+ * A row of the client list. The workroom receives only id and name;
+ * contact details and dates arrive for the owner alone.
+ */
+export const clientRowSchema = z.object({
+  id: z.number(),
+  name: z.string(),
+  email: z.optional(z.nullable(z.string())),
+  phone: z.optional(z.nullable(z.string())),
+  createdAt: z.optional(z.string()),
+});
+export type ClientRow = z.infer<typeof clientRowSchema>;
+
+export const clientPageSchema = z.object({
+  items: z.array(clientRowSchema),
+  total: z.number(),
+});
+export type ClientPage = z.infer<typeof clientPageSchema>;
+
+/** What the client form sends. Empty optional text is sent as null. */
+export interface ClientDraft {
+  name: string;
+  email: string | null;
+  phone: string | null;
+  address: string | null;
+  notes: string | null;
+  portfolioConsent: boolean;
+}
+
+export type ClientSortField = 'name' | 'email' | 'createdAt';
+export type SortDirection = 'asc' | 'desc';
+
+export interface ClientQuery {
+  page: number;
+  pageSize: number;
+  sort: ClientSortField;
+  dir: SortDirection;
+  q: string;
+}
