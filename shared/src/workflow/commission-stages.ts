@@ -1,0 +1,100 @@
+/**
+ * The stages a commission moves through in the workroom, in order, and the
+ * rules for moving between them. Shared by the server (which enforces them)
+ * and the app (which offers only the moves that will be accepted).
+ */
+export const STAGES = [
+  'enquiry',
+  'quoted',
+  'booked',
+  'garments_in',
+  'preparation',
+  'cutting',
+  'piecing',
+  'quilting',
+  'binding',
+  'ready',
+  'delivered',
+] as const;
+
+export type WorkStage = (typeof STAGES)[number];
+export type Stage = WorkStage | 'cancelled';
+export const ALL_STAGES: readonly Stage[] = [...STAGES, 'cancelled'];
+
+export const STAGE_LABELS: Readonly<Record<Stage, string>> = {
+  enquiry: 'Enquiry',
+  quoted: 'Quoted',
+  booked: 'Booked',
+  garments_in: 'Garments in',
+  preparation: 'Preparation (wash, press, stabilise)',
+  cutting: 'Cutting',
+  piecing: 'Piecing',
+  quilting: 'Quilting',
+  binding: 'Binding and label',
+  ready: 'Ready',
+  delivered: 'Delivered',
+  cancelled: 'Cancelled',
+};
+
+export function isStage(value: unknown): value is Stage {
+  return typeof value === 'string' && (ALL_STAGES as readonly string[]).includes(value);
+}
+
+export function stageIndex(stage: WorkStage): number {
+  return STAGES.indexOf(stage);
+}
+
+/** Facts about the commission that some moves depend on. */
+export interface StageFacts {
+  /** Garments expected (every garment not withdrawn). */
+  garmentCount: number;
+  /** Of those, how many the studio has received. */
+  garmentsReceived: number;
+}
+
+export type MoveCheck = { ok: true } | { ok: false; reason: string };
+
+const FIRST_HANDS_ON = stageIndex('garments_in');
+
+/**
+ * May a commission move from one stage to another?
+ * - Cancelled is reachable from any stage but delivered, and is final.
+ * - Going back is allowed (to correct a mistaken move); a note is asked for by the caller.
+ * - Forward, the paperwork stages (enquiry, quoted, booked) may be skipped, but from
+ *   "garments in" on each stage is passed one at a time: no cutting before the
+ *   garments are in and prepared, no delivery before ready.
+ * - "Garments in" needs at least one garment received; cutting needs every garment received.
+ */
+export function checkStageMove(from: Stage, to: Stage, facts: StageFacts): MoveCheck {
+  if (from === to) return { ok: false, reason: `The commission is already at "${STAGE_LABELS[to]}".` };
+  if (from === 'cancelled') return { ok: false, reason: 'A cancelled commission does not move again.' };
+  if (to === 'cancelled') {
+    return from === 'delivered' ? { ok: false, reason: 'A delivered commission cannot be cancelled.' } : { ok: true };
+  }
+  const a = stageIndex(from);
+  const b = stageIndex(to);
+  if (b < a) return { ok: true };
+  if (b > FIRST_HANDS_ON && b - a > 1) {
+    const next = STAGES[a + 1]!;
+    return { ok: false, reason: `"${STAGE_LABELS[to]}" comes after "${STAGE_LABELS[next]}": move to that stage first.` };
+  }
+  if (to === 'garments_in' && facts.garmentsReceived === 0) {
+    return { ok: false, reason: 'Record at least one garment as received before moving to "Garments in".' };
+  }
+  if (to === 'cutting' && (facts.garmentCount === 0 || facts.garmentsReceived < facts.garmentCount)) {
+    const waiting = facts.garmentCount - facts.garmentsReceived;
+    return {
+      ok: false,
+      reason:
+        facts.garmentCount === 0
+          ? 'There are no garments to cut yet.'
+          : `${waiting} garment${waiting === 1 ? ' has' : 's have'} not been received yet; cutting waits until every garment is in.`,
+    };
+  }
+  return { ok: true };
+}
+
+/** The stages a commission may move to next, in order. */
+export function nextStages(from: Stage, facts: StageFacts): Stage[] {
+  return ALL_STAGES.filter((to) => checkStageMove(from, to, facts).ok);
+}

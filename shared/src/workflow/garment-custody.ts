@@ -1,0 +1,116 @@
+/**
+ * A garment's custody is an append-only list of events; where it is and what
+ * has been done to it are derived from them, never stored on their own. A
+ * mistaken event is not edited or deleted: a later "correction" event voids it.
+ */
+export const CUSTODY_KINDS = ['announced', 'received', 'washed', 'stored', 'moved', 'cut', 'returned', 'withdrawn', 'correction'] as const;
+export type CustodyKind = (typeof CUSTODY_KINDS)[number];
+
+export const CUSTODY_LABELS: Readonly<Record<CustodyKind, string>> = {
+  announced: 'Announced by the client',
+  received: 'Received',
+  washed: 'Washed',
+  stored: 'Stored',
+  moved: 'Moved',
+  cut: 'Cut',
+  returned: 'Returned to the client',
+  withdrawn: 'Withdrawn (not coming)',
+  correction: 'Correction',
+};
+
+export type ReturnMethod = 'in_person' | 'post';
+
+export interface CustodyEvent {
+  id: number;
+  kind: CustodyKind;
+  /** ISO time of the event. */
+  at: string;
+  place?: string | null;
+  returnMethod?: ReturnMethod | null;
+  trackingRef?: string | null;
+  /** For a correction: the event it voids. */
+  correctsEventId?: number | null;
+}
+
+export type GarmentStatus = 'expected' | 'in_studio' | 'cut' | 'returned' | 'withdrawn';
+
+export const GARMENT_STATUS_LABELS: Readonly<Record<GarmentStatus, string>> = {
+  expected: 'Expected',
+  in_studio: 'In the studio',
+  cut: 'Cut',
+  returned: 'Returned',
+  withdrawn: 'Withdrawn',
+};
+
+export interface CustodyState {
+  status: GarmentStatus;
+  received: boolean;
+  washed: boolean;
+  /** Box or shelf code where it is now; null when not in the studio or not stored yet. */
+  place: string | null;
+  lastEventAt: string | null;
+}
+
+/** Events in the order they happened (time, then id). */
+function inOrder(events: readonly CustodyEvent[]): CustodyEvent[] {
+  return [...events].sort((a, b) => (a.at < b.at ? -1 : a.at > b.at ? 1 : a.id - b.id));
+}
+
+export function deriveCustody(events: readonly CustodyEvent[]): CustodyState {
+  const voided = new Set(events.filter((e) => e.kind === 'correction' && e.correctsEventId != null).map((e) => e.correctsEventId));
+  const state: CustodyState = { status: 'expected', received: false, washed: false, place: null, lastEventAt: null };
+  for (const e of inOrder(events)) {
+    state.lastEventAt = e.at;
+    if (voided.has(e.id) || e.kind === 'correction') continue;
+    switch (e.kind) {
+      case 'announced':
+        break;
+      case 'received':
+        state.received = true;
+        if (state.status === 'expected' || state.status === 'withdrawn') state.status = 'in_studio';
+        break;
+      case 'washed':
+        state.washed = true;
+        break;
+      case 'stored':
+      case 'moved':
+        state.place = e.place ?? null;
+        break;
+      case 'cut':
+        state.status = 'cut';
+        break;
+      case 'returned':
+        state.status = 'returned';
+        state.place = null;
+        break;
+      case 'withdrawn':
+        if (!state.received) state.status = 'withdrawn';
+        break;
+    }
+  }
+  return state;
+}
+
+/** Which events make sense next; the server refuses the others with the reason. */
+export function checkCustodyEvent(current: CustodyState, kind: CustodyKind): { ok: true } | { ok: false; reason: string } {
+  const inStudio = current.status === 'in_studio' || current.status === 'cut';
+  switch (kind) {
+    case 'announced':
+      return { ok: false, reason: 'A garment is announced once, when it is added.' };
+    case 'received':
+      return current.received && current.status !== 'returned'
+        ? { ok: false, reason: 'This garment is already in the studio.' }
+        : { ok: true };
+    case 'washed':
+    case 'stored':
+    case 'moved':
+    case 'cut':
+      return inStudio ? { ok: true } : { ok: false, reason: 'Record the garment as received first.' };
+    case 'returned':
+      return inStudio ? { ok: true } : { ok: false, reason: 'Only a garment in the studio can be returned.' };
+    case 'withdrawn':
+      return current.received ? { ok: false, reason: 'A garment already received cannot be withdrawn; record its return instead.' } : { ok: true };
+    case 'correction':
+      return { ok: true };
+  }
+}
