@@ -1,0 +1,4 @@
+export * from './commission-stages';
+export * from './garment-custody';
+export * from './vocabulary';
+export * from './cautions';
