@@ -8,9 +8,12 @@ process.env.CHROME_BIN ||= '/usr/bin/chromium';
  * A small reporter that writes the totals of the run to test-output/karma.json,
  * so the project's test script can add them to its summary line.
  */
-function SummaryFileReporter(baseReporterDecorator, config) {
+function SummaryFileReporter(baseReporterDecorator) {
   baseReporterDecorator(this);
-  const outFile = path.resolve(config.basePath || __dirname, 'test-output', 'karma.json');
+  // Next to this file: the Angular builder points karma's basePath at a temporary build folder.
+  const outFile = path.join(__dirname, 'test-output', 'karma.json');
+  // No stale totals from an earlier run if this one never completes.
+  fs.rmSync(outFile, { force: true });
   this.onRunComplete = (_browsers, results) => {
     const failed = results.failed + (results.error ? 1 : 0) + (results.disconnected ? 1 : 0);
     fs.mkdirSync(path.dirname(outFile), { recursive: true });
@@ -19,11 +22,10 @@ function SummaryFileReporter(baseReporterDecorator, config) {
   // The console output comes from the progress reporter; this one stays quiet.
   this.adapters = [];
 }
-SummaryFileReporter.$inject = ['baseReporterDecorator', 'config'];
+SummaryFileReporter.$inject = ['baseReporterDecorator'];
 
 module.exports = function (config) {
   config.set({
-    basePath: __dirname,
     frameworks: ['jasmine'],
     plugins: [
       require('karma-jasmine'),

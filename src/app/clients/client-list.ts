@@ -4,6 +4,7 @@ import {
   ChangeDetectionStrategy,
   Component,
   DestroyRef,
+  InjectionToken,
   computed,
   inject,
   signal,
@@ -40,8 +41,10 @@ import { ClientsApi } from './clients-api';
 
 const sortFields: readonly ClientSortField[] = ['name', 'email', 'createdAt'];
 
-/** Waits this long after the last key press before filtering on the server. */
-export const filterDelayMs = 300;
+/** How long to wait after the last key press before filtering on the server (ms). */
+export const CLIENT_FILTER_DELAY = new InjectionToken<number>('CLIENT_FILTER_DELAY', {
+  factory: () => 300,
+});
 
 /**
  * The client records, paged, sorted and filtered on the server.
@@ -72,6 +75,7 @@ export class ClientList implements AfterViewInit {
   private readonly router = inject(Router);
   private readonly route = inject(ActivatedRoute);
   private readonly destroyRef = inject(DestroyRef);
+  private readonly filterDelay = inject(CLIENT_FILTER_DELAY);
   private readonly retry = new Subject<void>();
 
   protected readonly paginator = viewChild.required(MatPaginator);
@@ -111,7 +115,7 @@ export class ClientList implements AfterViewInit {
     const paginator = this.paginator();
 
     const filterChange = this.filter.valueChanges.pipe(
-      debounceTime(filterDelayMs),
+      debounceTime(this.filterDelay),
       map((text) => text.trim()),
       distinctUntilChanged(),
       tap((text) => this.appliedFilter.set(text)),
