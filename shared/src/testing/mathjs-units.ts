@@ -19,3 +19,9 @@ export function mathjsConvert(value: string, from: string, to: string): string {
   const u = math.unit(math.bignumber(value), MATHJS_UNIT[from] ?? from) as Unit;
   return String(u.toNumeric(MATHJS_UNIT[to] ?? to));
 }
+
+/** Evaluates a mathjs expression with units (BigNumber) and gives the value in `unit`. */
+export function mathjsEvaluate(expression: string, unit: string): string {
+  const result = math.evaluate(expression) as Unit;
+  return String(result.toNumeric(MATHJS_UNIT[unit] ?? unit));
+}
