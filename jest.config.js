@@ -20,8 +20,13 @@ module.exports = {
       rootDir: __dirname,
       testEnvironment: 'node',
       testMatch: ['<rootDir>/server/**/*.spec.ts'],
-      transform: { '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/server/tsconfig.json' }] },
-      moduleNameMapper,
+      transform: {
+        '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/server/tsconfig.json' }],
+        // file-type and its helpers ship only as ES modules: compile them for jest.
+        '^.+\\.js$': ['ts-jest', { tsconfig: { allowJs: true, module: 'commonjs', target: 'ES2022' } }],
+      },
+      transformIgnorePatterns: ['/node_modules/(?!(file-type|strtok3|token-types|@tokenizer|uint8array-extras|@borewit)/)'],
+      moduleNameMapper: { ...moduleNameMapper, '^file-type$': '<rootDir>/node_modules/file-type/index.js' },
       globalSetup: '<rootDir>/server/testing/global-setup.ts',
     },
   ],

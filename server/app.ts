@@ -17,6 +17,10 @@ import { authRouter } from './auth/auth-router';
 import { healthRouter } from './health/health-router';
 import { clientsRouter } from './clients/clients-router';
 import { usersRouter } from './users/users-router';
+import { commissionsRouter } from './commissions/commissions-router';
+import { garmentsRouter } from './garments/garments-router';
+import { photosRouter } from './photos/photos-router';
+import { stockRouter } from './stock/stock-router';
 
 export const SESSION_COOKIE = 'ks.sid';
 
@@ -91,6 +95,10 @@ export function createApp({ config, knex, sessionPool, log }: AppDeps): Express 
   );
   app.use(clientsRouter());
   app.use(usersRouter());
+  app.use(commissionsRouter());
+  app.use(garmentsRouter());
+  app.use(photosRouter(config.uploadDir));
+  app.use(stockRouter());
   assertPolicyCovered();
 
   app.use('/api', apiNotFound);

@@ -21,6 +21,8 @@ const configSchema = z.object({
   signInWindowMs: z.coerce.number().int().positive(),
   /** Folder of the built Angular app; the server serves it when present. */
   webRoot: z.string().min(1),
+  /** Folder of uploaded photos: outside the web root, never served directly. */
+  uploadDir: z.string().min(1),
 });
 
 export type AppConfig = z.infer<typeof configSchema>;
@@ -51,6 +53,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     signInLimit: env['SIGN_IN_LIMIT'] ?? '10',
     signInWindowMs: env['SIGN_IN_WINDOW_MS'] ?? String(15 * 60 * 1000),
     webRoot: env['WEB_ROOT'] ?? path.resolve(__dirname, '..', '..', 'dist', 'keepstitch', 'browser'),
+    uploadDir: env['UPLOAD_DIR'] ?? path.join(DATA_DIR, 'uploads'),
   };
   const parsed = configSchema.safeParse(raw);
   if (!parsed.success) {

@@ -1,6 +1,10 @@
 import Knex, { type Knex as KnexType } from 'knex';
 import { knexSnakeCaseMappers } from 'objection';
 import path from 'node:path';
+import { types } from 'pg';
+
+// A date column is a calendar day, not an instant: keep it as 'YYYY-MM-DD' so a deadline never moves by a day.
+types.setTypeParser(1082, (value) => value);
 
 export const MIGRATIONS_DIR = path.resolve(__dirname, '..', '..', 'migrations');
 export const SEEDS_DIR = path.resolve(__dirname, '..', '..', 'seeds');

@@ -31,7 +31,18 @@ function toAppError(err: unknown): AppError {
   if (isDatabaseDown(err)) {
     return new AppError(503, 'unavailable', 'The workroom database is not answering. Nothing was changed; please try again in a moment.');
   }
-  const e = err as { code?: string; type?: string; status?: number };
+  const e = err as { code?: string; type?: string; status?: number; name?: string; field?: string };
+  if (e.name === 'MulterError') {
+    const messages: Record<string, [number, string]> = {
+      LIMIT_FILE_SIZE: [413, 'Each photo can be at most 15 MB. Make it smaller and try again.'],
+      LIMIT_FILE_COUNT: [400, 'Send at most 10 photos at a time.'],
+      LIMIT_UNEXPECTED_FILE: [400, 'Photos must be sent in the "photos" field, at most 10 at a time.'],
+      LIMIT_PART_COUNT: [400, 'The upload has too many parts.'],
+      LIMIT_FIELD_VALUE: [400, 'A field of the upload is too long.'],
+    };
+    const [status, message] = messages[e.code ?? ''] ?? [400, 'The upload could not be read.'];
+    return new AppError(status, 'upload_rejected', message);
+  }
   if (e.code === 'EBADCSRFTOKEN') {
     return new AppError(403, 'csrf', 'This request was missing its security token. Reload the page and try again.');
   }

@@ -3,6 +3,7 @@ import type { Caller } from './roles';
 const EVERYONE: readonly Caller[] = ['anonymous', 'owner', 'workroom', 'client'];
 const SIGNED_IN: readonly Caller[] = ['owner', 'workroom', 'client'];
 const OWNER: readonly Caller[] = ['owner'];
+const STUDIO: readonly Caller[] = ['owner', 'workroom'];
 
 /**
  * The one place that says who may call each API route. Routers are built with
@@ -26,6 +27,32 @@ export const ROUTE_POLICY = {
   'GET /api/users': OWNER,
   'POST /api/users': OWNER,
   'POST /api/users/:id/password': OWNER,
+
+  // Commissions: a client sees only its own (checked in the services).
+  'GET /api/commissions': SIGNED_IN,
+  'POST /api/commissions': OWNER,
+  'GET /api/commissions/:id': SIGNED_IN,
+  'PATCH /api/commissions/:id': OWNER,
+  'POST /api/commissions/:id/stage': STUDIO,
+  'POST /api/commissions/:id/hours': STUDIO,
+  'POST /api/commissions/:id/photos': STUDIO,
+  'POST /api/commissions/:id/garments': SIGNED_IN,
+
+  'GET /api/garments/:id': SIGNED_IN,
+  'PATCH /api/garments/:id': STUDIO,
+  'POST /api/garments/:id/events': STUDIO,
+  'POST /api/garments/:id/panels': STUDIO,
+  'POST /api/garments/:id/photos': SIGNED_IN,
+  'PATCH /api/panels/:id': STUDIO,
+  'DELETE /api/panels/:id': STUDIO,
+
+  'GET /api/photos/:id/image': SIGNED_IN,
+  'GET /api/photos/:id/thumb': SIGNED_IN,
+
+  'GET /api/stock': STUDIO,
+  'POST /api/stock': OWNER,
+  'PATCH /api/stock/:id': OWNER,
+  'DELETE /api/stock/:id': OWNER,
 } as const satisfies Record<string, readonly Caller[]>;
 
 export type RouteKey = keyof typeof ROUTE_POLICY;

@@ -3,6 +3,9 @@ import type { Knex } from 'knex';
 import { Pool } from 'pg';
 import request from 'supertest';
 import bcrypt from 'bcryptjs';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
 import { createApp } from '../app';
 import { loadConfig, type AppConfig } from '../core/config';
 import type { Role } from '../core/roles';
@@ -11,12 +14,14 @@ import { createTestDatabase } from './test-database';
 export interface TestApp {
   app: Express;
   knex: Knex;
+  uploadDir: string;
   close(): Promise<void>;
 }
 
 /** The real app against a fresh real database of its own. */
 export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<TestApp> {
   const db = await createTestDatabase();
+  const uploadDir = mkdtempSync(path.join(tmpdir(), 'keepstitch-uploads-'));
   const config: AppConfig = {
     ...loadConfig({
       NODE_ENV: 'test',
@@ -24,6 +29,7 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
       SESSION_SECRET: 'test-secret-'.padEnd(48, 'x'),
       SIGN_IN_LIMIT: '1000',
       WEB_ROOT: '/nonexistent',
+      UPLOAD_DIR: uploadDir,
     }),
     ...overrides,
   };
@@ -32,9 +38,11 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
   return {
     app,
     knex: db.knex,
+    uploadDir,
     async close() {
       await sessionPool.end();
       await db.drop();
+      rmSync(uploadDir, { recursive: true, force: true });
     },
   };
 }

@@ -1,0 +1,202 @@
+import { cautionsFor, checkStageMove, featuresToRemove, nextStages, stageIndex, type Stage, type StageFacts, type WorkStage } from '@keepstitch/shared';
+import type { Knex } from 'knex';
+import { AppError } from '../core/app-error';
+import { ClientModel } from '../clients/client-model';
+import { GarmentModel, PanelModel } from '../garments/garment-model';
+import { custodyStates } from '../garments/custody';
+import { PhotoModel } from '../photos/photo-model';
+import { CommissionModel, HoursModel, StageMoveModel } from './commission-model';
+import type { CreateCommissionInput, ListCommissionsQuery, UpdateCommissionInput } from './commissions-schemas';
+
+const NOT_FOUND = 'That commission';
+
+/** Today's date in the studio's calendar (UTC), as YYYY-MM-DD. */
+function today(): string {
+  return new Date().toISOString().slice(0, 10);
+}
+
+function daysBetween(from: string, to: string): number {
+  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000);
+}
+
+/** What each role may see of a commission's own columns. */
+function shape(c: CommissionModel, user: Express.User) {
+  const open = c.stage !== 'delivered' && c.stage !== 'cancelled';
+  const daysLeft = c.deadline ? daysBetween(today(), c.deadline) : null;
+  const base = {
+    id: c.id,
+    clientId: c.clientId,
+    client: c.client ? { id: c.client.id, name: c.client.name } : undefined,
+    title: c.title,
+    kind: c.kind,
+    recipient: c.recipient,
+    ageGroup: c.ageGroup,
+    occasion: c.occasion,
+    sizePreset: c.sizePreset,
+    widthMm: c.widthMm,
+    lengthMm: c.lengthMm,
+    deadline: c.deadline,
+    daysLeft,
+    overdue: open && daysLeft !== null && daysLeft < 0,
+    notes: user.role === 'client' ? undefined : c.notes,
+    stage: c.stage,
+    createdAt: c.createdAt,
+    updatedAt: c.updatedAt,
+  };
+  return user.role === 'workroom' ? base : { ...base, budgetPence: c.budgetPence };
+}
+
+export async function listCommissions(user: Express.User, q: ListCommissionsQuery) {
+  const query = CommissionModel.query().modify('visibleTo', user).withGraphJoined('client(names)').modifiers({
+    names: (b) => b.select('id', 'name'),
+  });
+  if (q.stage?.length) query.whereIn('commissions.stage', q.stage);
+  if (q.clientId) query.where('commissions.clientId', q.clientId);
+  if (q.dueWithinDays !== undefined) {
+    query
+      .whereNotNull('commissions.deadline')
+      .whereRaw('commissions.deadline <= ?::date + ?::int', [today(), q.dueWithinDays])
+      .whereNotIn('commissions.stage', ['delivered', 'cancelled']);
+  }
+  if (q.q) {
+    const like = `%${q.q.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
+    query.where((b) => b.whereILike('commissions.title', like).orWhereILike('client.name', like));
+  }
+  const column = { deadline: 'commissions.deadline', createdAt: 'commissions.createdAt', title: 'commissions.title', stage: 'commissions.stage' }[q.sort];
+  if (q.sort === 'stage') {
+    query.orderByRaw(`array_position(ARRAY['enquiry','quoted','booked','garments_in','preparation','cutting','piecing','quilting','binding','ready','delivered','cancelled']::text[], commissions.stage::text) ${q.dir}`);
+  } else {
+    query.orderBy(column, q.dir, q.dir === 'asc' ? 'last' : 'first');
+  }
+  query.orderBy('commissions.id', q.dir);
+  const { results, total } = await query.page(q.page, q.pageSize);
+  return { items: results.map((c) => shape(c, user)), total };
+}
+
+async function findVisible(user: Express.User, id: number, trx?: Knex.Transaction) {
+  const c = await CommissionModel.query(trx).modify('visibleTo', user).findById(id);
+  if (!c) throw AppError.notFound(NOT_FOUND);
+  return c;
+}
+
+/** Counts for the stage rules: garments expected and received. */
+async function stageFacts(commissionId: number, trx?: Knex.Transaction): Promise<StageFacts> {
+  const garments = await GarmentModel.query(trx).select('id').where('commissionId', commissionId);
+  const states = await custodyStates(garments.map((g) => g.id), trx);
+  const live = [...states.values()].filter((s) => s.state.status !== 'withdrawn');
+  return { garmentCount: live.length, garmentsReceived: live.filter((s) => s.state.received).length };
+}
+
+export async function getCommission(user: Express.User, id: number) {
+  const c = await findVisible(user, id);
+  c.client = await ClientModel.query().select('id', 'name').findById(c.clientId);
+  const garments = await GarmentModel.query().where('commissionId', id).orderBy('id');
+  const ids = garments.map((g) => g.id);
+  const [states, panels, photos, moves] = await Promise.all([
+    custodyStates(ids),
+    PanelModel.query().whereIn('garmentId', ids).orderBy('id'),
+    PhotoModel.query().where('commissionId', id).orderBy('id'),
+    StageMoveModel.query().where('commissionId', id).orderBy('movedAt').orderBy('id'),
+  ]);
+  const staff = user.role !== 'client';
+  const facts = await stageFacts(id);
+  const garmentViews = garments.map((g) => {
+    const custody = states.get(g.id)!;
+    return {
+      ...garmentView(g, user),
+      status: custody.state.status,
+      received: custody.state.received,
+      washed: custody.state.washed,
+      place: staff ? custody.state.place : undefined,
+      removeForSafety: featuresToRemove(c.ageGroup, g.features),
+      panels: staff ? panels.filter((p) => p.garmentId === g.id) : undefined,
+      photos: photos.filter((p) => p.garmentId === g.id).map((p) => p.toPublic()),
+    };
+  });
+  return {
+    ...shape(c, user),
+    cautions: cautionsFor(c.ageGroup),
+    garments: garmentViews,
+    progressPhotos: photos.filter((p) => p.kind === 'progress').map((p) => p.toPublic()),
+    stageHistory: moves.map((m) => ({ id: m.id, fromStage: m.fromStage, toStage: m.toStage, note: staff ? m.note : undefined, movedAt: m.movedAt })),
+    hours: staff ? await hoursView(id) : undefined,
+    nextStages: staff ? nextStages(c.stage, facts) : undefined,
+    facts,
+  };
+}
+
+async function hoursView(commissionId: number) {
+  const rows = await HoursModel.query()
+    .select('hoursLogged.*', 'users.name as userName')
+    .leftJoin('users', 'users.id', 'hoursLogged.userId')
+    .where('commissionId', commissionId)
+    .orderBy('workedOn')
+    .orderBy('hoursLogged.id');
+  const byStage: Record<string, string> = {};
+  let total = 0;
+  for (const r of rows) {
+    byStage[r.stage] = (Number(byStage[r.stage] ?? 0) + Number(r.hours)).toFixed(2);
+    total += Number(r.hours);
+  }
+  return { entries: rows, byStage, total: total.toFixed(2) };
+}
+
+/** The fields of a garment each role may see (a client sees its own words and the basics). */
+export function garmentView(g: GarmentModel, user: Express.User) {
+  const base = {
+    id: g.id,
+    commissionId: g.commissionId,
+    description: g.description,
+    whose: g.whose,
+    story: g.story,
+    fibre: g.fibre,
+    construction: g.construction,
+    colour: g.colour,
+    print: g.print,
+    features: g.features,
+    createdAt: g.createdAt,
+  };
+  if (user.role === 'client') return base;
+  return { ...base, condition: g.condition, prewash: g.prewash, colourRun: g.colourRun, returnsToClient: g.returnsToClient, updatedAt: g.updatedAt };
+}
+
+export async function createCommission(user: Express.User, input: CreateCommissionInput) {
+  const client = await ClientModel.query().findById(input.clientId);
+  if (!client) throw new AppError(400, 'validation', 'The chosen client does not exist.', { clientId: 'No such client.' });
+  return CommissionModel.transaction(async (trx) => {
+    const c = await CommissionModel.query(trx).insertAndFetch({ ...(input as Partial<CommissionModel>), stage: 'enquiry' });
+    await StageMoveModel.query(trx).insert({ commissionId: c.id, fromStage: null, toStage: 'enquiry', movedBy: user.id, note: 'Opened' });
+    return shape(c, user);
+  });
+}
+
+export async function updateCommission(user: Express.User, id: number, input: UpdateCommissionInput) {
+  if (Object.keys(input).length === 0) throw new AppError(400, 'validation', 'Send at least one field to change.');
+  const c = await CommissionModel.query().patchAndFetchById(id, input as Partial<CommissionModel>);
+  if (!c) throw AppError.notFound(NOT_FOUND);
+  return shape(c, user);
+}
+
+export async function moveStage(user: Express.User, id: number, to: Stage, note: string | null | undefined) {
+  return CommissionModel.transaction(async (trx) => {
+    const c = await CommissionModel.query(trx).findById(id).forUpdate();
+    if (!c) throw AppError.notFound(NOT_FOUND);
+    const facts = await stageFacts(id, trx);
+    const check = checkStageMove(c.stage, to, facts);
+    if (!check.ok) throw new AppError(409, 'stage_move_refused', check.reason);
+    const backwards = to !== 'cancelled' && c.stage !== 'cancelled' && stageIndex(to as WorkStage) < stageIndex(c.stage as WorkStage);
+    if ((backwards || to === 'cancelled') && !note) {
+      throw new AppError(400, 'validation', 'Say why in a note when moving back or cancelling.', { note: 'A note is needed for this move.' });
+    }
+    await StageMoveModel.query(trx).insert({ commissionId: id, fromStage: c.stage, toStage: to, note: note ?? null, movedBy: user.id });
+    await CommissionModel.query(trx).patch({ stage: to }).findById(id);
+    return { id, stage: to, nextStages: nextStages(to, facts) };
+  });
+}
+
+export async function logHours(user: Express.User, id: number, input: { stage: string; hours: number; workedOn: string; note?: string | null }) {
+  await findVisible(user, id);
+  return HoursModel.query().insertAndFetch({ commissionId: id, stage: input.stage as Stage, hours: input.hours.toFixed(2), workedOn: input.workedOn, note: input.note ?? null, userId: user.id });
+}
+
+export { findVisible as findVisibleCommission };

@@ -1,0 +1,57 @@
+import { Model } from 'objection';
+import type { ColourRun, Construction, CustodyKind, Fibre, Grain, KeptFeature, Prewash, Print, ReturnMethod } from '@keepstitch/shared';
+
+export class GarmentModel extends Model {
+  static override tableName = 'garments';
+
+  id!: number;
+  commissionId!: number;
+  description!: string;
+  whose!: string | null;
+  story!: string | null;
+  fibre!: Fibre;
+  construction!: Construction;
+  colour!: string | null;
+  print!: Print;
+  condition!: string | null;
+  features!: KeptFeature[];
+  prewash!: Prewash;
+  colourRun!: ColourRun;
+  returnsToClient!: string | null;
+  createdBy!: number | null;
+  createdAt!: Date;
+  updatedAt!: Date;
+
+  static override get jsonAttributes() {
+    return ['features'];
+  }
+
+  override $beforeUpdate(): void {
+    this.updatedAt = new Date();
+  }
+}
+
+export class CustodyEventModel extends Model {
+  static override tableName = 'custodyEvents';
+  id!: number;
+  garmentId!: number;
+  kind!: CustodyKind;
+  place!: string | null;
+  returnMethod!: ReturnMethod | null;
+  trackingRef!: string | null;
+  note!: string | null;
+  correctsEventId!: number | null;
+  userId!: number | null;
+  at!: Date;
+}
+
+export class PanelModel extends Model {
+  static override tableName = 'panels';
+  id!: number;
+  garmentId!: number;
+  name!: string;
+  widthMm!: string;
+  heightMm!: string;
+  grain!: Grain;
+  createdAt!: Date;
+}

@@ -1,0 +1,97 @@
+import { z } from 'zod';
+import { COLOUR_RUN, CONSTRUCTION, FEATURE, FIBRE, GRAIN, PREWASH, PRINT } from '@keepstitch/shared';
+import { optionalText } from '../core/validate';
+import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
+
+const oneOf = (values: readonly string[], message: string) => z.enum(values as [string, ...string[]], { message });
+
+const featureSchema = z
+  .object({
+    kind: oneOf(FEATURE.values, 'Choose the kind of feature.'),
+    position: z.string().trim().max(200, 'A position can be at most 200 characters.').default(''),
+  })
+  .strict();
+
+const garmentFields = {
+  description: z.string({ message: 'Describe the garment.' }).trim().min(1, 'Describe the garment.').max(300, 'A description can be at most 300 characters.'),
+  whose: optionalText(200, 'Whose it was'),
+  story: optionalText(5000, 'Story'),
+  fibre: oneOf(FIBRE.values, 'Choose the fibre.').optional(),
+  construction: oneOf(CONSTRUCTION.values, 'Choose woven or knit.').optional(),
+  colour: optionalText(100, 'Colour'),
+  print: oneOf(PRINT.values, 'Choose the kind of print.').optional(),
+  condition: optionalText(2000, 'Condition'),
+  features: z.array(featureSchema).max(20, 'At most 20 kept features.').optional(),
+  prewash: oneOf(PREWASH.values, 'Choose the pre-wash status.').optional(),
+  colourRun: oneOf(COLOUR_RUN.values, 'Choose the colour-run result.').optional(),
+  returnsToClient: optionalText(1000, 'What returns to the client'),
+};
+
+/** Staff may set every field; a client announces with its own words and the basics. */
+export const createGarmentSchema = z.object(garmentFields).strict();
+export const clientGarmentSchema = z
+  .object({ description: garmentFields.description, whose: garmentFields.whose, story: garmentFields.story, fibre: garmentFields.fibre, colour: garmentFields.colour })
+  .strict();
+export const updateGarmentSchema = z
+  .object(garmentFields)
+  .partial()
+  .strict()
+  .refine((v) => Object.keys(v).length > 0, 'Send at least one field to change.');
+
+export const custodyEventSchema = z
+  .discriminatedUnion(
+    'kind',
+    [
+      z.object({ kind: z.literal('received'), note: optionalText(1000, 'Note'), place: optionalText(60, 'Place') }).strict(),
+      z.object({ kind: z.literal('washed'), note: optionalText(1000, 'Note') }).strict(),
+      z.object({ kind: z.literal('stored'), place: z.string({ message: 'Say where it is stored (box or shelf).' }).trim().min(1, 'Say where it is stored (box or shelf).').max(60), note: optionalText(1000, 'Note') }).strict(),
+      z.object({ kind: z.literal('moved'), place: z.string({ message: 'Say where it was moved to.' }).trim().min(1, 'Say where it was moved to.').max(60), note: optionalText(1000, 'Note') }).strict(),
+      z.object({ kind: z.literal('cut'), note: optionalText(1000, 'Note') }).strict(),
+      z
+        .object({
+          kind: z.literal('returned'),
+          returnMethod: z.enum(['in_person', 'post'], { message: 'Say how it was returned: in person or by post.' }),
+          trackingRef: optionalText(60, 'Tracking reference'),
+          note: optionalText(1000, 'Note'),
+        })
+        .strict()
+        .refine((v) => v.returnMethod !== 'post' || !!v.trackingRef, { path: ['trackingRef'], message: 'Give the tracking reference for a garment sent by post.' }),
+      z.object({ kind: z.literal('withdrawn'), note: optionalText(1000, 'Note') }).strict(),
+      z
+        .object({
+          kind: z.literal('correction'),
+          correctsEventId: z.number({ message: 'Say which entry this corrects.' }).int().positive(),
+          note: z.string({ message: 'Say what was wrong.' }).trim().min(1, 'Say what was wrong.').max(1000),
+        })
+        .strict(),
+    ],
+    { message: 'Choose what happened: received, washed, stored, moved, cut, returned, withdrawn or correction.' },
+  );
+
+const panelFields = {
+  name: z.string({ message: 'Name the panel (for example "back").' }).trim().min(1, 'Name the panel (for example "back").').max(60),
+  width: lengthField('Width'),
+  height: lengthField('Height'),
+  unit: lengthUnitSchema.default('in'),
+  grain: oneOf(GRAIN.values, 'Choose which way the grain runs.').default('vertical'),
+};
+
+export const panelSchema = z
+  .object(panelFields)
+  .strict()
+  .transform(({ width, height, unit, ...rest }, ctx) => ({
+    ...rest,
+    widthMm: toMillimetres(width, unit, ctx, 'width'),
+    heightMm: toMillimetres(height, unit, ctx, 'height'),
+  }));
+
+export const updatePanelSchema = z
+  .object(panelFields)
+  .partial()
+  .extend({ unit: lengthUnitSchema.default('in') })
+  .strict()
+  .transform(({ width, height, unit, ...rest }, ctx) => ({
+    ...rest,
+    ...(width !== undefined ? { widthMm: toMillimetres(width, unit, ctx, 'width') } : {}),
+    ...(height !== undefined ? { heightMm: toMillimetres(height, unit, ctx, 'height') } : {}),
+  }));

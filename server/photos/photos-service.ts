@@ -1,0 +1,42 @@
+import path from 'node:path';
+import { AppError } from '../core/app-error';
+import { CommissionModel } from '../commissions/commission-model';
+import { findVisibleCommission } from '../commissions/commissions-service';
+import { findVisibleGarment } from '../garments/garments-service';
+import { PhotoModel } from './photo-model';
+import { removeFiles, storeImages, type UploadedFile } from './image-store';
+
+/** Stores photos and their rows together: if the rows cannot be written, the files go too. */
+async function save(uploadDir: string, files: UploadedFile[], row: Pick<PhotoModel, 'commissionId' | 'garmentId' | 'kind' | 'uploadedBy'>, caption: string | null) {
+  const images = await storeImages(uploadDir, files);
+  try {
+    const photos = await PhotoModel.transaction(async (trx) =>
+      Promise.all(images.map((img) => PhotoModel.query(trx).insertAndFetch({ ...img, ...row, caption }))),
+    );
+    return photos.map((p) => p.toPublic());
+  } catch (err) {
+    await removeFiles(images.flatMap((i) => [path.join(uploadDir, i.fileName), path.join(uploadDir, i.thumbName)]));
+    throw err;
+  }
+}
+
+export async function addGarmentPhotos(user: Express.User, garmentId: number, files: UploadedFile[], caption: string | null, uploadDir: string) {
+  const { garment } = await findVisibleGarment(user, garmentId);
+  return save(uploadDir, files, { commissionId: garment.commissionId, garmentId, kind: 'garment', uploadedBy: user.id }, caption);
+}
+
+export async function addProgressPhotos(user: Express.User, commissionId: number, files: UploadedFile[], caption: string | null, uploadDir: string) {
+  await findVisibleCommission(user, commissionId);
+  return save(uploadDir, files, { commissionId, garmentId: null, kind: 'progress', uploadedBy: user.id }, caption);
+}
+
+/** The stored file of a photo the user may see. */
+export async function photoFile(user: Express.User, id: number, which: 'image' | 'thumb', uploadDir: string) {
+  const photo = await PhotoModel.query().findById(id);
+  if (!photo) throw AppError.notFound('That photo');
+  const visible = await CommissionModel.query().modify('visibleTo', user).findById(photo.commissionId);
+  if (!visible) throw AppError.notFound('That photo');
+  return which === 'image'
+    ? { path: path.join(uploadDir, photo.fileName), mime: photo.mime }
+    : { path: path.join(uploadDir, photo.thumbName), mime: 'image/webp' };
+}

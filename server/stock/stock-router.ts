@@ -1,0 +1,68 @@
+import { z } from 'zod';
+import { FIBRE } from '@keepstitch/shared';
+import { AppError } from '../core/app-error';
+import { securedRouter } from '../core/secured-router';
+import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
+import { optionalText, parseId, parseInput } from '../core/validate';
+import { StockFabricModel } from './stock-fabric-model';
+
+const fields = {
+  name: z.string({ message: 'Name the fabric.' }).trim().min(1, 'Name the fabric.').max(200),
+  colour: optionalText(100, 'Colour'),
+  fibre: z.enum(FIBRE.values as [string, ...string[]], { message: 'Choose the fibre.' }).default('cotton'),
+  width: lengthField('Width'),
+  length: lengthField('Length on hand'),
+  unit: lengthUnitSchema.default('in'),
+  costPence: z.number({ message: 'Cost must be an amount in pence.' }).int('Cost must be whole pence.').min(0, 'Cost cannot be negative.').max(1_000_000).nullable().optional(),
+  costUnit: z.enum(['metre', 'yard'], { message: 'Cost is per metre or per yard.' }).default('metre'),
+  supplier: optionalText(300, 'Supplier'),
+  notes: optionalText(2000, 'Notes'),
+};
+
+const sized = <T extends { width?: string; length?: string; unit: 'in' | 'cm' | 'mm' | 'm' | 'yd' }>({ width, length, unit, ...rest }: T, ctx: z.RefinementCtx) => ({
+  ...rest,
+  ...(width !== undefined ? { widthMm: toMillimetres(width, unit, ctx, 'width') } : {}),
+  ...(length !== undefined ? { lengthMm: toMillimetres(length, unit, ctx, 'length') } : {}),
+});
+
+const createSchema = z.object(fields).strict().transform(sized);
+const updateSchema = z
+  .object(fields)
+  .partial()
+  .extend({ unit: lengthUnitSchema.default('in') })
+  .strict()
+  .transform(sized);
+
+/** Workroom assistants see the stock for cutting, but not what it cost. */
+function view(f: StockFabricModel, user: Express.User) {
+  if (user.role === 'owner') return f;
+  const { costPence: _cost, costUnit: _unit, supplier: _supplier, ...rest } = f;
+  return rest;
+}
+
+export function stockRouter() {
+  const r = securedRouter('/api/stock');
+
+  r.get('/', async (req, res) => {
+    const items = await StockFabricModel.query().orderByRaw('lower(name)').orderBy('id');
+    res.json({ items: items.map((f) => view(f, req.user!)) });
+  });
+  r.post('/', async (req, res) => {
+    const input = parseInput(createSchema, req.body, 'fabric');
+    res.status(201).json(await StockFabricModel.query().insertAndFetch(input as Partial<StockFabricModel>));
+  });
+  r.patch('/:id', async (req, res) => {
+    const id = parseId(req.params['id'], 'That fabric');
+    const input = parseInput(updateSchema, req.body, 'fabric');
+    if (Object.keys(input).length === 0) throw new AppError(400, 'validation', 'Send at least one field to change.');
+    const fabric = await StockFabricModel.query().patchAndFetchById(id, input as Partial<StockFabricModel>);
+    if (!fabric) throw AppError.notFound('That fabric');
+    res.json(fabric);
+  });
+  r.delete('/:id', async (req, res) => {
+    const count = await StockFabricModel.query().deleteById(parseId(req.params['id'], 'That fabric'));
+    if (!count) throw AppError.notFound('That fabric');
+    res.status(204).end();
+  });
+  return r.router;
+}
