@@ -1,0 +1,146 @@
+// The cut sequence: a panel's cut tree written out as the passes of the
+// rotary cutter, in the order the maker makes them. First the cuts in the
+// whole panel (the strips), then the sub-cuts of each strip in turn, then any
+// further trims. Each cut runs straight from edge to edge of the region it is
+// made in, and is measured from that region's top or left edge.
+
+import type { CutRegion, CutStep, Rect, RegionContent } from './cut-plan';
+import type { CutNode, EmptyNode, PieceNode, SplitNode } from './guillotine-packer';
+import { fromSteps } from './scaled-units';
+
+/**
+ * The same tree in its plainest form: parallel cuts in one region gathered
+ * into one split, neighbouring empty parts joined (no cut between them), and
+ * splits of a single part removed.
+ */
+export function normalizeTree(node: CutNode): CutNode {
+  if (node.kind !== 'split') return node;
+  const parts: CutNode[] = [];
+  const push = (child: CutNode) => {
+    const last = parts[parts.length - 1];
+    if (child.kind === 'empty' && last?.kind === 'empty') {
+      parts[parts.length - 1] =
+        node.dir === 'h'
+          ? { kind: 'empty', x: last.x, y: last.y, w: last.w, h: last.h + child.h }
+          : { kind: 'empty', x: last.x, y: last.y, w: last.w + child.w, h: last.h };
+    } else {
+      parts.push(child);
+    }
+  };
+  for (const child of node.children) {
+    const plain = normalizeTree(child);
+    if (plain.kind === 'split' && plain.dir === node.dir) plain.children.forEach(push);
+    else push(plain);
+  }
+  if (parts.length === 1) {
+    const only = parts[0];
+    return only.kind === 'empty' ? { kind: 'empty', x: node.x, y: node.y, w: node.w, h: node.h } : only;
+  }
+  return { kind: 'split', dir: node.dir, x: node.x, y: node.y, w: node.w, h: node.h, children: parts };
+}
+
+/**
+ * Cuts an unlimited-length tree at the end of its last strip: what is below
+ * is the rest of the bolt, not part of the plan. Returns the trimmed tree and
+ * the length used, in steps.
+ */
+export function trimUnbounded(node: CutNode): { tree: CutNode | null; length: number } {
+  if (node.kind === 'empty') return { tree: null, length: 0 };
+  if (node.kind === 'split' && node.dir === 'h') {
+    const last = node.children[node.children.length - 1];
+    if (last.kind === 'empty' && last.h === Infinity) {
+      const kept = node.children.slice(0, -1);
+      const length = last.y - node.y;
+      const tree = kept.length === 1 ? kept[0] : { ...node, h: length, children: kept };
+      return { tree, length };
+    }
+  }
+  return { tree: node, length: node.h };
+}
+
+export interface SequenceOptions {
+  /** Names the piece a piece node is (its id and copy number). */
+  describe: (node: PieceNode) => { pieceId: string; copy: number };
+  /** Smallest offcut worth keeping, in steps; leftovers smaller are waste. */
+  minimumOffcut?: { w: number; h: number };
+}
+
+function isOffcut(node: EmptyNode, minimum?: { w: number; h: number }): boolean {
+  if (!minimum) return false;
+  return (node.w >= minimum.w && node.h >= minimum.h) || (node.w >= minimum.h && node.h >= minimum.w);
+}
+
+function rect(x: number, y: number, w: number, h: number): Rect {
+  return { x: fromSteps(x), y: fromSteps(y), width: fromSteps(w), height: fromSteps(h) };
+}
+
+/** The cut steps and kept offcuts of a (normalized) tree, in the caller's unit. */
+export function cutSequence(tree: CutNode | null, options: SequenceOptions): { cuts: CutStep[]; offcuts: Rect[] } {
+  const cuts: CutStep[] = [];
+  const offcuts: Rect[] = [];
+  if (!tree) return { cuts, offcuts };
+  const region = (node: CutNode, label: string): CutRegion => {
+    let content: RegionContent;
+    let named: { pieceId?: string; copy?: number } = {};
+    if (node.kind === 'piece') {
+      content = 'piece';
+      named = options.describe(node);
+    } else if (node.kind === 'split') {
+      content = 'strip';
+    } else {
+      content = isOffcut(node, options.minimumOffcut) ? 'offcut' : 'waste';
+    }
+    return { label, content, ...rect(node.x, node.y, node.w, node.h), ...named };
+  };
+  const collectOffcuts = (node: CutNode) => {
+    if (node.kind === 'empty' && isOffcut(node, options.minimumOffcut)) offcuts.push(rect(node.x, node.y, node.w, node.h));
+    if (node.kind === 'split') node.children.forEach(collectOffcuts);
+  };
+  collectOffcuts(tree);
+
+  // Breadth first: every cut of one stage before the next stage.
+  let level: { node: SplitNode; label: string }[] = tree.kind === 'split' ? [{ node: tree, label: 'panel' }] : [];
+  let stage = 1;
+  while (level.length > 0) {
+    const next: { node: SplitNode; label: string }[] = [];
+    for (const { node, label } of level) {
+      const childLabel = (i: number) => (label === 'panel' ? `${i + 1}` : `${label}.${i + 1}`);
+      let x = node.x;
+      let y = node.y;
+      let w = node.w;
+      let h = node.h;
+      node.children.forEach((child, i) => {
+        if (child.kind === 'split') next.push({ node: child, label: childLabel(i) });
+        if (i === node.children.length - 1) return;
+        const horizontal = node.dir === 'h';
+        const at = horizontal ? child.h : child.w;
+        const restX = horizontal ? x : x + at;
+        const restY = horizontal ? y + at : y;
+        const restW = horizontal ? w : w - at;
+        const restH = horizontal ? h - at : h;
+        const lastCut = i === node.children.length - 2;
+        const remaining: CutRegion = lastCut
+          ? region(node.children[i + 1], childLabel(i + 1))
+          : { label, content: 'strip', ...rect(restX, restY, restW, restH) };
+        cuts.push({
+          step: cuts.length + 1,
+          stage,
+          region: label,
+          regionRect: rect(x, y, w, h),
+          direction: horizontal ? 'horizontal' : 'vertical',
+          at: fromSteps(at),
+          length: fromSteps(horizontal ? w : h),
+          cutsOff: region(child, childLabel(i)),
+          remaining,
+        });
+        x = restX;
+        y = restY;
+        w = restW;
+        h = restH;
+      });
+    }
+    level = next;
+    stage++;
+  }
+  return { cuts, offcuts };
+}

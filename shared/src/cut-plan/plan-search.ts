@@ -1,0 +1,158 @@
+// The search: a few packing orders, each run through the same phases, and
+// the best plan kept. Deterministic: no randomness, and ties go to the
+// earlier order.
+//
+// Phases of one run:
+//  1. pieces kept around features are fixed in their panels;
+//  2. pieces that must come from particular garments (or a studio fabric)
+//     are packed before pieces that may come from any garment;
+//  3. each garment with a minimum gets that many pieces, the garments with
+//     the least fabric first;
+//  4. every panel is filled with what is left, trying each packer variant
+//     on the panel and keeping the one that places the most area.
+
+import { VARIANTS, fillTree, type CutNode, type FillContext, type Variant } from './guillotine-packer';
+import { placePinnedPieces, skeletonTree, type PinnedFailure, type PinnedPlacement } from './kept-features';
+import type { PlanModel } from './plan-model';
+
+export interface PlanState {
+  strategy: string;
+  /** Copies left unplaced per piece type. */
+  counts: Int32Array;
+  /** Cut tree per bin. */
+  trees: CutNode[];
+  pinnedPlacements: PinnedPlacement[];
+  pinnedFailures: PinnedFailure[];
+  /** Pieces placed per bin, pinned ones included. */
+  binPieces: Int32Array;
+  placedArea: number;
+  placedCount: number;
+  /** Sum over garments of the pieces missing from their minimums. */
+  minimumDeficit: number;
+}
+
+interface Strategy {
+  name: string;
+  /** Orders bins for phases 2 and 4 (a negative result puts a first). */
+  order: (a: number, b: number) => number;
+  variants: readonly Variant[];
+}
+
+function strategies(model: PlanModel): Strategy[] {
+  const area = (i: number) => {
+    const bin = model.bins[i];
+    return bin.unbounded ? Number.MAX_VALUE : bin.w * bin.h;
+  };
+  const byArea = (a: number, b: number) => area(b) - area(a) || a - b;
+  const longSide = (i: number) => Math.max(model.bins[i].w, model.bins[i].h);
+  const byLongSide = (a: number, b: number) => longSide(b) - longSide(a) || byArea(a, b);
+  return [
+    { name: 'largest panels first, best of every packer variant', order: byArea, variants: VARIANTS },
+    { name: 'largest panels first, largest pieces first', order: byArea, variants: [VARIANTS[0]] },
+    { name: 'longest panels first, best of every packer variant', order: byLongSide, variants: VARIANTS },
+  ];
+}
+
+function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof placePinnedPieces>): PlanState {
+  const { bins, types, binOptions } = model;
+  const counts = Int32Array.from(types, (t) => t.count);
+  const trees = bins.map((bin) => skeletonTree(bin, pinned.placements));
+  const binPieces = new Int32Array(bins.length);
+  for (const p of pinned.placements) binPieces[p.bin]++;
+  const all = new Uint8Array(types.length).fill(1);
+  const restricted = Uint8Array.from(types, (t) => (t.restricted ? 1 : 0));
+  const order = bins.map((b) => b.index).sort(strategy.order);
+  let placedArea = 0;
+  let placedCount = pinned.placements.length;
+  for (const p of pinned.placements) placedArea += p.w * p.h;
+
+  const context = (bin: number, mask: Uint8Array, variant: Variant, build: boolean, budget: number, c: Int32Array): FillContext => ({
+    options: binOptions[bin],
+    counts: c,
+    mask,
+    budget,
+    variant,
+    build,
+    placedArea: 0,
+    placedCount: 0,
+  });
+
+  /** Fills a bin with the best of the variants; returns pieces placed. */
+  const fillBest = (bin: number, mask: Uint8Array, variants: readonly Variant[], budget = Infinity): number => {
+    if (binOptions[bin].length === 0) return 0;
+    let best = variants[0];
+    if (variants.length > 1) {
+      let bestArea = -1;
+      for (const variant of variants) {
+        const trial = context(bin, mask, variant, false, budget, counts.slice());
+        const area = fillTree(trees[bin], trial);
+        if (area > bestArea) {
+          bestArea = area;
+          best = variant;
+        }
+      }
+    }
+    const ctx = context(bin, mask, best, true, budget, counts);
+    fillTree(trees[bin], ctx);
+    binPieces[bin] += ctx.placedCount;
+    placedArea += ctx.placedArea;
+    placedCount += ctx.placedCount;
+    return ctx.placedCount;
+  };
+
+  if (types.some((t) => t.restricted)) {
+    for (const bin of order) fillBest(bin, restricted, strategy.variants);
+  }
+
+  const withMinimum = model.garments
+    .filter((g) => g.minimum > 0)
+    .map((g) => ({ g, largest: Math.max(...g.bins.map((b) => bins[b].w * bins[b].h)) }))
+    .sort((a, b) => a.largest - b.largest)
+    .map(({ g }) => g);
+  for (const garment of withMinimum) {
+    const garmentBins = [...garment.bins].sort((a, b) => bins[b].w * bins[b].h - bins[a].w * bins[a].h || a - b);
+    let have = garmentBins.reduce((sum, b) => sum + binPieces[b], 0);
+    for (const bin of garmentBins) {
+      if (have >= garment.minimum) break;
+      have += fillBest(bin, all, [VARIANTS[0]], garment.minimum - have);
+    }
+  }
+
+  for (const bin of order) fillBest(bin, all, strategy.variants);
+
+  let minimumDeficit = 0;
+  for (const garment of model.garments) {
+    const have = garment.bins.reduce((sum, b) => sum + binPieces[b], 0);
+    minimumDeficit += Math.max(0, garment.minimum - have);
+  }
+  return {
+    strategy: strategy.name,
+    counts,
+    trees,
+    pinnedPlacements: pinned.placements,
+    pinnedFailures: pinned.failures,
+    binPieces,
+    placedArea,
+    placedCount,
+    minimumDeficit,
+  };
+}
+
+/** True when plan a is better than plan b: fewer pieces missing from minimums, then more area, then more pieces. */
+export function betterPlan(a: PlanState, b: PlanState): boolean {
+  if (a.minimumDeficit !== b.minimumDeficit) return a.minimumDeficit < b.minimumDeficit;
+  if (a.placedArea !== b.placedArea) return a.placedArea > b.placedArea;
+  return a.placedCount > b.placedCount;
+}
+
+/** Runs every strategy and keeps the best plan (the earliest among equals). */
+export function searchPlan(model: PlanModel): PlanState {
+  const pinned = placePinnedPieces(model);
+  let best: PlanState | null = null;
+  for (const strategy of strategies(model)) {
+    const state = run(model, strategy, pinned);
+    if (!best || betterPlan(state, best)) best = state;
+    if (state.minimumDeficit === 0 && state.counts.every((c) => c === 0)) break;
+  }
+  return best as PlanState;
+}
