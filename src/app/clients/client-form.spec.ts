@@ -75,7 +75,7 @@ describe('ClientForm', () => {
     await (await input('phone')).setValue('0'.repeat(41));
     await save();
 
-    expect(await (await field('Name')).getTextErrors()).toEqual(["Enter the client's name"]);
+    expect(await (await field('Name')).getTextErrors()).toEqual(['Name is required']);
     expect(await (await field('E-mail')).getTextErrors()).toEqual([
       'Enter an e-mail address like name@example.com',
     ]);

@@ -12,7 +12,7 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatPaginatorHarness } from '@angular/material/paginator/testing';
 import { MatSortHarness } from '@angular/material/sort/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
-import { provideRouter } from '@angular/router';
+import { Router, provideRouter } from '@angular/router';
 
 import { Role } from '../core/user';
 import { signedInAs } from '../../testing/signed-in-as';
@@ -110,6 +110,23 @@ describe('ClientList', () => {
     expect((await table.getCellTextByColumnName())['name'].text).toEqual(['Alder Quince', 'Bryony Tell']);
     expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Add client$/ }))).toHaveSize(0);
     expect(fixture.nativeElement.querySelector('[data-testid=client-row] a')).toBeNull();
+
+    const navigate = spyOn(TestBed.inject(Router), 'navigate').and.resolveTo(true);
+    fixture.nativeElement.querySelector('[data-testid=client-row] td').click();
+    expect(navigate).not.toHaveBeenCalled();
+  });
+
+  it("opens an owner's client from anywhere on its row", async () => {
+    await setUp('owner');
+    await answer(expectList().request, ownerRows, 2);
+    const navigate = spyOn(TestBed.inject(Router), 'navigate').and.resolveTo(true);
+
+    const cells: NodeListOf<HTMLElement> = fixture.nativeElement.querySelectorAll(
+      '[data-testid=client-row]:nth-child(2) td',
+    );
+    cells[2].click();
+    expect(navigate).toHaveBeenCalledTimes(1);
+    expect(navigate.calls.mostRecent().args[0]).toEqual([2]);
   });
 
   it('pages on the server and goes back to the first page when the order changes', async () => {

@@ -158,6 +158,15 @@ export class ClientList implements AfterViewInit {
       });
   }
 
+  /** A click anywhere on an owner's row opens the record; the name link is the keyboard way in. */
+  protected openFromRow(row: ClientRow, event: MouseEvent): void {
+    const target = event.target as Element | null;
+    if (!this.isOwner() || target?.closest('a, button')) {
+      return;
+    }
+    void this.router.navigate([row.id], { relativeTo: this.route });
+  }
+
   protected addClient(): void {
     void this.router.navigate(['new'], { relativeTo: this.route });
   }
