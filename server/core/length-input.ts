@@ -8,17 +8,34 @@ export const lengthUnitSchema = z.enum(['in', 'cm', 'mm', 'm', 'yd'], { message:
  * parser in the given default unit, stored as exact millimetres (a decimal string).
  */
 export function lengthField(label: string) {
-  return z.string({ message: `${label} is required.` }).trim().min(1, `${label} is required.`).max(40, `${label} is too long.`);
+  return z
+    .string({ message: `${label} is required.` })
+    .trim()
+    .min(1, `${label} is required.`)
+    .max(40, `${label} is too long.`)
+    .superRefine((text, ctx) => {
+      // Checked here as well as on conversion so every bad field is reported in one answer.
+      const problem = lengthProblem(text, 'in');
+      if (problem) ctx.addIssue({ code: 'custom', message: problem });
+    });
+}
+
+/** Why a typed length cannot be used, or null when it can. */
+function lengthProblem(text: string, unit: LengthUnit): string | null {
+  try {
+    const length = parseLength(text, isLengthUnit(unit) ? unit : 'in');
+    return length.mm.gt(0) ? null : 'Expected a size greater than zero.';
+  } catch (err) {
+    return err instanceof DomainError ? err.message : 'Expected a length such as 7 1/2 or 19 cm.';
+  }
 }
 
 /** Parses a typed length to exact millimetres, or adds a field issue saying what was expected. */
 export function toMillimetres(text: string, unit: LengthUnit, ctx: z.RefinementCtx, path: string): string {
-  try {
-    const length = parseLength(text, isLengthUnit(unit) ? unit : 'in');
-    if (!length.mm.gt(0)) throw new DomainError('not-positive', 'Expected a size greater than zero.');
-    return length.mm.toString();
-  } catch (err) {
-    ctx.addIssue({ code: 'custom', path: [path], message: err instanceof DomainError ? err.message : 'Expected a length such as 7 1/2 or 19 cm.' });
+  const problem = lengthProblem(text, unit);
+  if (problem) {
+    ctx.addIssue({ code: 'custom', path: [path], message: problem });
     return z.NEVER;
   }
+  return parseLength(text, unit).mm.toString();
 }

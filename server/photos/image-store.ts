@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { mkdir, rename, unlink, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import sharp from 'sharp';
+import { fileTypeFromBuffer } from 'file-type';
 import { AppError } from '../core/app-error';
 
 export const MAX_PHOTO_BYTES = 15 * 1024 * 1024;
@@ -35,11 +36,6 @@ function cleanName(name: string): string {
   return base.replace(/[\u0000-\u001f\u007f]/g, '').slice(0, 200) || 'photo';
 }
 
-async function detectType(buffer: Buffer) {
-  const { fileTypeFromBuffer } = await import('file-type');
-  return fileTypeFromBuffer(buffer);
-}
-
 /**
  * Checks each file's type from its bytes, re-encodes it (which drops EXIF and
  * GPS location), makes a thumbnail and writes both under random names. Any
@@ -54,7 +50,7 @@ export async function storeImages(dir: string, files: UploadedFile[]): Promise<S
     for (const file of files) {
       const label = cleanName(file.originalname);
       if (file.buffer.length === 0) throw new AppError(400, 'upload_rejected', `"${label}" is empty.`);
-      const type = await detectType(file.buffer);
+      const type = await fileTypeFromBuffer(file.buffer);
       const accepted = type ? ACCEPTED[type.mime] : undefined;
       if (!accepted) {
         const what = type ? `a ${type.ext.toUpperCase()} file` : 'not a photo Keepstitch can read';

@@ -34,7 +34,7 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
     ...overrides,
   };
   const sessionPool = new Pool({ connectionString: db.url, max: 3 });
-  const app = createApp({ config, knex: db.knex, sessionPool, log: () => undefined });
+  const app = createApp({ config, knex: db.knex, sessionPool, log: process.env['TEST_SERVER_LOG'] ? (e) => console.error(e) : () => undefined });
   return {
     app,
     knex: db.knex,

@@ -1,0 +1,114 @@
+import { ApiAgent, addUser, signedIn, startTestApp, type TestApp } from '../testing/test-app';
+import { addCommission } from '../testing/fixtures';
+
+describe('garments, custody and panels', () => {
+  let t: TestApp;
+  let owner: ApiAgent;
+  let workroom: ApiAgent;
+  let clientA: ApiAgent;
+  let clientB: ApiAgent;
+  let commissionA: number;
+  let commissionB: number;
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    owner = await signedIn(t.app, (await addUser(t.knex, 'owner')).email);
+    workroom = await signedIn(t.app, (await addUser(t.knex, 'workroom')).email);
+    const a = await addUser(t.knex, 'client');
+    const b = await addUser(t.knex, 'client');
+    clientA = await signedIn(t.app, a.email);
+    clientB = await signedIn(t.app, b.email);
+    commissionA = await addCommission(t.knex, a.clientId!, { ageGroup: 'child_under_3' });
+    commissionB = await addCommission(t.knex, b.clientId!);
+  });
+  afterAll(() => t.close());
+
+  it('lets a client announce a garment on its own commission with its story', async () => {
+    const res = await clientA.post(`/api/commissions/${commissionA}/garments`, {
+      description: 'Checked flannel shirt',
+      whose: 'Grandad',
+      story: 'The shirt he wore every Sunday.',
+      fibre: 'flannel',
+    });
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ description: 'Checked flannel shirt', status: 'expected' });
+    const events = await t.knex('custodyEvents').where('garmentId', res.body.id);
+    expect(events.map((e) => e.kind)).toEqual(['announced']);
+  });
+
+  it('does not let a client set studio fields or add to another client\u2019s commission', async () => {
+    const studioField = await clientA.post(`/api/commissions/${commissionA}/garments`, { description: 'Dress', condition: 'Torn' });
+    expect(studioField.status).toBe(400);
+    expect(studioField.body.error.fields.condition).toBe('This field is not accepted here.');
+    const other = await clientA.post(`/api/commissions/${commissionB}/garments`, { description: 'Sneaky' });
+    expect(other.status).toBe(404);
+    expect(await t.knex('garments').where('description', 'Sneaky')).toHaveLength(0);
+  });
+
+  it('derives place and state from custody events and keeps a full log', async () => {
+    const g = (await owner.post(`/api/commissions/${commissionA}/garments`, {
+      description: 'Denim jacket',
+      fibre: 'denim',
+      features: [{ kind: 'buttons', position: 'front' }, { kind: 'pocket', position: 'left chest' }],
+    })).body;
+    const event = (body: object) => workroom.post(`/api/garments/${g.id}/events`, body);
+    expect((await event({ kind: 'cut' })).status).toBe(409);
+    expect((await event({ kind: 'received' })).body.state).toMatchObject({ status: 'in_studio', received: true });
+    expect((await event({ kind: 'stored' })).body.error.fields.place).toBe('Say where it is stored (box or shelf).');
+    const stored = await event({ kind: 'stored', place: 'Box 4' });
+    expect(stored.body.state.place).toBe('Box 4');
+    const moved = await event({ kind: 'moved', place: 'Shelf C' });
+    expect((await event({ kind: 'correction', correctsEventId: moved.body.event.id, note: 'Never moved' })).status).toBe(201);
+    const detail = await owner.get(`/api/garments/${g.id}`);
+    expect(detail.body.place).toBe('Box 4');
+    expect(detail.body.events.map((e: { kind: string }) => e.kind)).toEqual(['announced', 'received', 'stored', 'moved', 'correction']);
+    // A piece for a child under 3: kept buttons are flagged for removal.
+    expect(detail.body.removeForSafety).toEqual([{ kind: 'buttons', position: 'front' }]);
+    expect((await event({ kind: 'returned', returnMethod: 'post' })).body.error.fields.trackingRef).toBe('Give the tracking reference for a garment sent by post.');
+    expect((await event({ kind: 'returned', returnMethod: 'post', trackingRef: 'TT123' })).body.state.status).toBe('returned');
+  });
+
+  it('keeps custody events append-only in the database itself', async () => {
+    const [g] = await t.knex('garments').insert({ commissionId: commissionA, description: 'Scarf' }).returning('id');
+    const [e] = await t.knex('custodyEvents').insert({ garmentId: g.id, kind: 'received' }).returning('id');
+    await expect(t.knex('custodyEvents').where('id', e.id).update({ kind: 'cut' })).rejects.toThrow(/append-only/);
+    await expect(t.knex('custodyEvents').where('id', e.id).delete()).rejects.toThrow(/append-only/);
+    await expect(t.knex('garments').where('id', g.id).delete()).rejects.toThrow();
+  });
+
+  it('hides storage places and studio notes from the client', async () => {
+    const g = (await clientA.post(`/api/commissions/${commissionA}/garments`, { description: 'Wool jumper' })).body;
+    await owner.post(`/api/garments/${g.id}/events`, { kind: 'received' });
+    await owner.post(`/api/garments/${g.id}/events`, { kind: 'stored', place: 'Box 7' });
+    const seen = await clientA.get(`/api/garments/${g.id}`);
+    expect(seen.body.status).toBe('in_studio');
+    expect(seen.body.place).toBeUndefined();
+    expect(JSON.stringify(seen.body)).not.toContain('Box 7');
+    expect((await clientB.get(`/api/garments/${g.id}`)).status).toBe(404);
+    expect((await clientA.post(`/api/garments/${g.id}/events`, { kind: 'cut' })).status).toBe(403);
+  });
+
+  it('records usable panels typed as fractions or metric, exactly', async () => {
+    const g = (await owner.post(`/api/commissions/${commissionA}/garments`, { description: 'Linen shirt', fibre: 'linen' })).body;
+    const back = await workroom.post(`/api/garments/${g.id}/panels`, { name: 'back', width: '19 1/2', height: '26', unit: 'in' });
+    expect(back.status).toBe(201);
+    // 19 1/2 in x 25.4 = 495.3 mm exactly (1 in = 25.4 mm, NIST SP 811 appendix B).
+    expect(back.body).toMatchObject({ name: 'back', widthMm: '495.3', heightMm: '660.4', grain: 'vertical' });
+    const sleeve = await workroom.post(`/api/garments/${g.id}/panels`, { name: 'sleeve', width: '21.5 cm', height: '55', unit: 'cm', grain: 'horizontal' });
+    expect(sleeve.body).toMatchObject({ widthMm: '215', heightMm: '550' });
+    const bad = await workroom.post(`/api/garments/${g.id}/panels`, { name: '', width: '1/0', height: '-3' });
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['height', 'name', 'width']);
+    const patched = await workroom.patch(`/api/panels/${back.body.id}`, { width: '7½' });
+    expect(patched.body.widthMm).toBe('190.5');
+    expect((await workroom.delete(`/api/panels/${sleeve.body.id}`)).status).toBe(204);
+    const detail = await owner.get(`/api/garments/${g.id}`);
+    expect(detail.body.panels.map((p: { name: string }) => p.name)).toEqual(['back']);
+    expect((await clientA.get(`/api/garments/${g.id}`)).body.panels).toBeUndefined();
+  });
+
+  it('lists garments with their state on the commission page and counts them for the stage rules', async () => {
+    const detail = await owner.get(`/api/commissions/${commissionA}`);
+    expect(detail.body.garments.length).toBeGreaterThanOrEqual(4);
+    expect(detail.body.facts.garmentCount).toBe(detail.body.garments.filter((g: { status: string }) => g.status !== 'withdrawn').length);
+  });
+});

@@ -1,0 +1,117 @@
+import { readdirSync, readFileSync } from 'node:fs';
+import path from 'node:path';
+import sharp from 'sharp';
+import exifReader from 'exif-reader';
+import { ApiAgent, addUser, signedIn, startTestApp, type TestApp } from '../testing/test-app';
+import { addCommission } from '../testing/fixtures';
+
+async function jpegWithGps(): Promise<Buffer> {
+  return sharp({ create: { width: 320, height: 240, channels: 3, background: '#4a6fa5' } })
+    .jpeg()
+    .withExif({ IFD0: { Copyright: 'Test' }, IFD3: { GPSLatitudeRef: 'N', GPSLatitude: '51/1 30/1 0/1', GPSLongitudeRef: 'W', GPSLongitude: '0/1 7/1 0/1' } })
+    .toBuffer();
+}
+
+describe('photo uploads', () => {
+  let t: TestApp;
+  let owner: ApiAgent;
+  let clientA: ApiAgent;
+  let clientB: ApiAgent;
+  let garmentId: number;
+  let commissionId: number;
+
+  const stored = () => readdirSync(t.uploadDir).sort();
+  const rows = async () => Number(((await t.knex('photos').count({ n: '*' }).first()) as { n: string }).n);
+  const upload = (agent: ApiAgent, files: Array<[Buffer, string]>, url = `/api/garments/${garmentId}/photos`) => {
+    let req = agent.agent.post(url).set('X-XSRF-TOKEN', agent.csrf);
+    for (const [buf, name] of files) req = req.attach('photos', buf, name);
+    return req;
+  };
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    owner = await signedIn(t.app, (await addUser(t.knex, 'owner')).email);
+    const a = await addUser(t.knex, 'client');
+    clientA = await signedIn(t.app, a.email);
+    clientB = await signedIn(t.app, (await addUser(t.knex, 'client')).email);
+    commissionId = await addCommission(t.knex, a.clientId!);
+    const [g] = await t.knex('garments').insert({ commissionId, description: 'Blue work shirt' }).returning('id');
+    garmentId = g.id;
+  });
+  afterAll(() => t.close());
+
+  it('stores a re-encoded photo with a thumbnail and removes its GPS location', async () => {
+    const original = await jpegWithGps();
+    expect(exifReader((await sharp(original).metadata()).exif!).GPSInfo).toMatchObject({ GPSLatitudeRef: 'N' });
+    const res = await upload(clientA, [[original, 'IMG_0042.jpg']]);
+    expect(res.status).toBe(201);
+    const [photo] = res.body.items;
+    expect(photo).toMatchObject({ originalName: 'IMG_0042.jpg', width: 320, height: 240, url: `/api/photos/${photo.id}/image` });
+    const row = await t.knex('photos').where('id', photo.id).first();
+    expect(row.fileName).toMatch(/^[0-9a-f-]{36}\.jpg$/);
+    const saved = readFileSync(path.join(t.uploadDir, row.fileName));
+    expect((await sharp(saved).metadata()).exif).toBeUndefined();
+    expect(saved.includes(Buffer.from('GPS'))).toBe(false);
+    const image = await clientA.agent.get(photo.url);
+    expect(image.status).toBe(200);
+    expect(image.headers['content-type']).toBe('image/jpeg');
+    const thumb = await clientA.agent.get(photo.thumbUrl);
+    expect(thumb.headers['content-type']).toBe('image/webp');
+    expect((await sharp(thumb.body as Buffer).metadata()).width).toBeLessThanOrEqual(480);
+  });
+
+  it('serves a photo only to those who may see its commission', async () => {
+    const [photo] = (await upload(owner, [[await jpegWithGps(), 'a.jpg']])).body.items;
+    expect((await clientB.agent.get(photo.url)).status).toBe(404);
+    expect((await clientB.agent.get(photo.thumbUrl)).status).toBe(404);
+    expect((await new ApiAgent(t.app).agent.get(photo.url)).status).toBe(401);
+    expect((await upload(clientB, [[await jpegWithGps(), 'b.jpg']])).status).toBe(404);
+  });
+
+  describe('hostile uploads are refused with a clear message and leave nothing behind', () => {
+    const cases: Array<[string, () => Promise<Array<[Buffer, string]>>, number, RegExp]> = [
+      ['a text file renamed to .jpg', async () => [[Buffer.from('just some text, not a photo at all'), 'holiday.jpg']], 415, /accepts JPEG, PNG and WebP/],
+      ['an SVG with a script', async () => [[Buffer.from('<svg xmlns="http://www.w3.org/2000/svg"><script>alert(1)</script></svg>'), 'x.svg']], 415, /accepts JPEG, PNG and WebP/],
+      ['a zero-byte file', async () => [[Buffer.alloc(0), 'empty.jpg']], 400, /is empty/],
+      ['a truncated JPEG', async () => { const b = await jpegWithGps(); return [[b.subarray(0, Math.floor(b.length / 2)), 'cut.jpg']]; }, 400, /damaged or only partly uploaded/],
+      ['a 20 MB file', async () => [[Buffer.alloc(20 * 1024 * 1024, 1), 'big.jpg']], 413, /at most 15 MB/],
+      ['eleven files', async () => { const b = await jpegWithGps(); return Array.from({ length: 11 }, (_, i) => [b, `p${i}.jpg`] as [Buffer, string]); }, 400, /at most 10 photos/],
+      ['a GIF', async () => [[await sharp({ create: { width: 8, height: 8, channels: 3, background: '#000' } }).gif().toBuffer(), 'anim.gif']], 415, /is a GIF file/],
+      ['no file at all', async () => [], 400, /Choose at least one photo/],
+    ];
+    it.each(cases)('%s', async (_name, files, status, message) => {
+      const before = { files: stored(), rows: await rows() };
+      const res = await upload(clientA, await files());
+      expect(res.status).toBe(status);
+      expect(res.body.error.message).toMatch(message);
+      expect(stored()).toEqual(before.files);
+      expect(await rows()).toBe(before.rows);
+    });
+
+    it('keeps a path-traversal file name only as a harmless label', async () => {
+      const res = await upload(clientA, [[await jpegWithGps(), '../../etc/passwd.jpg']]);
+      expect(res.status).toBe(201);
+      expect(res.body.items[0].originalName).toBe('passwd.jpg');
+      expect(stored().every((f) => /^[0-9a-f-]{36}(\.thumb)?\.(jpg|webp)$/.test(f))).toBe(true);
+    });
+
+    it('rejects the whole request when one of several files is bad, keeping none', async () => {
+      const before = { files: stored(), rows: await rows() };
+      const res = await upload(clientA, [[await jpegWithGps(), 'good.jpg'], [Buffer.from('nope'), 'bad.png']]);
+      expect(res.status).toBe(415);
+      expect(res.body.error.message).toMatch(/"bad.png"/);
+      expect(stored()).toEqual(before.files);
+      expect(await rows()).toBe(before.rows);
+    });
+  });
+
+  it('takes progress photos from the studio only', async () => {
+    const png = await sharp({ create: { width: 50, height: 40, channels: 4, background: '#ffffff80' } }).png().toBuffer();
+    const res = await upload(owner, [[png, 'progress.png']], `/api/commissions/${commissionId}/photos`);
+    expect(res.status).toBe(201);
+    expect(res.body.items[0]).toMatchObject({ kind: 'progress', garmentId: null });
+    expect((await upload(clientA, [[png, 'p.png']], `/api/commissions/${commissionId}/photos`)).status).toBe(403);
+    const detail = await clientA.get(`/api/commissions/${commissionId}`);
+    expect(detail.body.progressPhotos.map((p: { id: number }) => p.id)).toContain(res.body.items[0].id);
+  });
+});
