@@ -5,12 +5,11 @@
 // of fabric are pieced from width-of-fabric (WOF) strips with straight joins.
 
 import { DomainError, requireCount } from './errors';
+import { DEFAULT_USABLE_WIDTH } from './fabric-width';
 import { Length, requirePositive, Size } from './measure';
 import { cutSize, CutSize, RulerStep } from './rounding';
 import { addSeamAllowance, AllowanceOptions, resolveAllowance } from './seam-allowance';
 
-/** Common practice usable width of quilting cotton sold 44/45 in wide (40 to 42 in usable). */
-export const DEFAULT_USABLE_WIDTH: Length = Length.inches(40);
 
 export interface SashingInput {
   width: Length;

@@ -14,11 +14,14 @@ export const EIGHTH_INCH: Length = Length.inches('0.125');
 export const MILLIMETRE: Length = Length.millimetres(1);
 
 /**
- * Values within a nanometre of a mark count as on it, so that an exact value
+ * Values within a millionth of a millimetre of a mark count as on it, so that an exact value
  * such as 6.5 in carried through sqrt 2 and back is not pushed up a mark by the
  * last digit of a 20-digit calculation.
  */
 const MARK_TOLERANCE_MM = new Decimal('1e-6');
+
+/** The tolerance above: a rounded-up value is never more than this below the exact value. */
+export const MARK_TOLERANCE: Length = Length.millimetres(MARK_TOLERANCE_MM);
 
 /** Rounds `length` to a multiple of `step` (up, down or half-up nearest). */
 export function roundToStep(length: Length, step: Length, mode: RoundingMode): Length {
