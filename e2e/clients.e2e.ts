@@ -1,6 +1,6 @@
 import type { Browser } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../seeds/demo/accounts';
-import { launchBrowser, openPage, screenshot, signIn } from './support/browser';
+import { launchBrowser, openPage, screenshot, signIn, waitForCount } from './support/browser';
 
 describe('clients, end to end', () => {
   let browser: Browser;
@@ -33,7 +33,7 @@ describe('clients, end to end', () => {
     await page.getByLabel('Filter clients').fill('Quillfeather');
     const row = page.getByTestId('client-row').filter({ hasText: 'Odette Quillfeather' });
     await row.waitFor();
-    expect(await page.getByTestId('client-row').count()).toBe(1);
+    await waitForCount(page.getByTestId('client-row'), 1);
 
     await row.click();
     await page.getByLabel('Notes').waitFor();

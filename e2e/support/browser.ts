@@ -1,6 +1,6 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type Locator, type Page } from 'playwright-core';
 import { BASE_URL, SCREENSHOT_DIR } from './e2e-env';
 
 /** Debian's Chromium, headless, with nothing reaching outside the machine. */
@@ -37,4 +37,15 @@ export async function signIn(page: Page, email: string, password: string): Promi
 export async function screenshot(page: Page, name: string): Promise<void> {
   mkdirSync(SCREENSHOT_DIR, { recursive: true });
   await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
+}
+
+/** Waits until a locator matches exactly n elements (lists refresh after a debounce). */
+export async function waitForCount(locator: Locator, n: number, timeoutMs = 10_000): Promise<void> {
+  const until = Date.now() + timeoutMs;
+  let count = await locator.count();
+  while (count !== n) {
+    if (Date.now() > until) throw new Error(`Expected ${n} matching elements, found ${count}.`);
+    await new Promise((r) => setTimeout(r, 100));
+    count = await locator.count();
+  }
 }
