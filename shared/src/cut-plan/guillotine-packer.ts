@@ -45,8 +45,9 @@ export type CutNode = PieceNode | EmptyNode | SplitNode;
 /**
  * How the packer chooses the next strip. Among the strips whose fill (area of
  * the copies over the area the strip uses up, counting slivers no piece fits)
- * reaches `threshold`, it takes the one of the largest piece; if none does,
- * the best-filled one. `dirs` limits the strip direction.
+ * reaches `threshold`, it takes the one of the highest-ranked piece (then the
+ * largest); if none does, the best-filled one. `dirs` limits the strip
+ * direction.
  */
 export interface Variant {
   name: string;
@@ -71,13 +72,21 @@ export interface FillContext {
   counts: Int32Array;
   /** Types that may be used now (1) or not (0). */
   mask: Uint8Array;
+  /** Priority of each type: among strips that fill well enough, the highest rank goes first. */
+  rank: Float64Array;
+  /** Worth of a square step of each type, for comparing trial fills. */
+  weight: Float64Array;
   /** Pieces that may still be placed (Infinity for no limit). */
   budget: number;
+  /** No option's shorter side is below this: a thinner region takes nothing (0 if unknown). */
+  minSide: number;
   variant: Variant;
   /** Build the cut tree, or only count (a trial run). */
   build: boolean;
   /** Square steps placed so far. */
   placedArea: number;
+  /** Square steps placed, each times its type's weight. */
+  placedValue: number;
   placedCount: number;
 }
 
@@ -91,14 +100,22 @@ interface Pick {
   n: number;
 }
 
-/** The next strip for region w x h, or null when no piece fits. */
+/** choose() writes its answer here (read it before choosing again) to spare the garbage collector. */
+const picked: Pick = { option: { type: -1, w: 0, h: 0, rotated: false, area: 0 }, dir: 'h', n: 0 };
+
+// The hot loop below creates no closures or objects per candidate: it runs
+// for every strip of every trial fill.
+
+/** The next strip for region w x h, in `picked`; null when no piece fits. */
 function choose(ctx: FillContext, w: number, h: number, unbounded: boolean): Pick | null {
-  const { options, counts, mask, variant } = ctx;
+  const { options, counts, mask, variant, rank } = ctx;
+  if (w < ctx.minSide || h < ctx.minSide) return null;
   // Smallest short and long side of any piece that still fits: a leftover
   // thinner or shorter than these cannot take a piece and counts as used up.
   let minShort = Infinity;
   let minLong = Infinity;
-  for (const o of options) {
+  for (let i = 0; i < options.length; i++) {
+    const o = options[i];
     if (counts[o.type] <= 0 || mask[o.type] === 0 || o.w > w || o.h > h) continue;
     const s = o.w < o.h ? o.w : o.h;
     const l = o.w < o.h ? o.h : o.w;
@@ -106,58 +123,79 @@ function choose(ctx: FillContext, w: number, h: number, unbounded: boolean): Pic
     if (l < minLong) minLong = l;
   }
   if (minShort === Infinity) return null;
-  const usable = (a: number, b: number) =>
-    a > 0 && b > 0 && Math.min(a, b) >= minShort && Math.max(a, b) >= minLong;
 
-  let best: Pick | null = null;
+  const threshold = variant.threshold - 1e-12;
+  const across = variant.dirs !== 'v' || unbounded;
+  const down = variant.dirs !== 'h' && !unbounded;
+  let best: Orientation | null = null;
+  let bestDir: 'h' | 'v' = 'h';
+  let bestN = 0;
   let bestOk = false;
+  let bestRank = 0;
   let bestArea = 0;
   let bestUtil = 0;
-  const consider = (option: Orientation, dir: 'h' | 'v', n: number, util: number) => {
-    const ok = util >= variant.threshold - 1e-12;
-    let better: boolean;
-    if (best === null) better = true;
-    else if (ok !== bestOk) better = ok;
-    else if (ok) better = option.area > bestArea || (option.area === bestArea && util > bestUtil);
-    else better = util > bestUtil || (util === bestUtil && option.area > bestArea);
-    if (better) {
-      best = { option, dir, n };
-      bestOk = ok;
-      bestArea = option.area;
-      bestUtil = util;
-    }
-  };
-
-  for (const o of options) {
+  for (let i = 0; i < options.length; i++) {
+    const o = options[i];
     const left = counts[o.type];
     if (left <= 0 || mask[o.type] === 0 || o.w > w || o.h > h) continue;
-    const cap = Math.min(left, ctx.budget);
-    if (variant.dirs !== 'v' || unbounded) {
-      const n = Math.min(cap, Math.floor(w / o.w));
-      const rest = w - n * o.w;
-      const below = h - o.h;
-      let used = n * o.area;
-      if (rest > 0 && !usable(rest, o.h)) used += rest * o.h;
-      if (!unbounded && below > 0 && !usable(w, below)) used += w * below;
-      consider(o, 'h', n, (n * o.area) / used);
-    }
-    if (variant.dirs !== 'h' && !unbounded) {
-      const n = Math.min(cap, Math.floor(h / o.h));
-      const rest = h - n * o.h;
-      const beside = w - o.w;
-      let used = n * o.area;
-      if (rest > 0 && !usable(o.w, rest)) used += rest * o.w;
-      if (beside > 0 && !usable(beside, h)) used += beside * h;
-      consider(o, 'v', n, (n * o.area) / used);
+    const cap = left < ctx.budget ? left : ctx.budget;
+    const r = rank[o.type];
+    for (let k = 0; k < 2; k++) {
+      let n: number;
+      let used: number;
+      if (k === 0) {
+        if (!across) continue;
+        n = Math.min(cap, Math.floor(w / o.w));
+        const rest = w - n * o.w;
+        const below = h - o.h;
+        used = n * o.area;
+        // A leftover is usable when some piece could fit it: both sides long enough.
+        if (rest > 0 && !(Math.min(rest, o.h) >= minShort && Math.max(rest, o.h) >= minLong)) used += rest * o.h;
+        if (!unbounded && below > 0 && !(Math.min(w, below) >= minShort && Math.max(w, below) >= minLong)) used += w * below;
+      } else {
+        if (!down) continue;
+        n = Math.min(cap, Math.floor(h / o.h));
+        const rest = h - n * o.h;
+        const beside = w - o.w;
+        used = n * o.area;
+        if (rest > 0 && !(Math.min(rest, o.w) >= minShort && Math.max(rest, o.w) >= minLong)) used += rest * o.w;
+        if (beside > 0 && !(Math.min(beside, h) >= minShort && Math.max(beside, h) >= minLong)) used += beside * h;
+      }
+      const util = (n * o.area) / used;
+      const ok = util >= threshold;
+      let better: boolean;
+      if (best === null) better = true;
+      else if (ok !== bestOk) better = ok;
+      else if (ok) {
+        better =
+          r > bestRank ||
+          (r === bestRank && (o.area > bestArea || (o.area === bestArea && util > bestUtil)));
+      } else {
+        better = util > bestUtil || (util === bestUtil && (r > bestRank || (r === bestRank && o.area > bestArea)));
+      }
+      if (better) {
+        best = o;
+        bestDir = k === 0 ? 'h' : 'v';
+        bestN = n;
+        bestOk = ok;
+        bestRank = r;
+        bestArea = o.area;
+        bestUtil = util;
+      }
     }
   }
-  return best;
+  if (best === null) return null;
+  picked.option = best;
+  picked.dir = bestDir;
+  picked.n = bestN;
+  return picked;
 }
 
 function place(ctx: FillContext, pick: Pick): void {
   ctx.counts[pick.option.type] -= pick.n;
   ctx.budget -= pick.n;
   ctx.placedArea += pick.n * pick.option.area;
+  ctx.placedValue += pick.n * pick.option.area * ctx.weight[pick.option.type];
   ctx.placedCount += pick.n;
 }
 
@@ -200,8 +238,8 @@ export function fillRegion(ctx: FillContext, x: number, y: number, w: number, h:
   // The open chain of strips: the split whose last part is the region being filled.
   let chain: SplitNode | null = null;
   for (;;) {
-    const pick = ctx.budget > 0 ? choose(ctx, w, h, unbounded) : null;
-    if (!pick) {
+    const chosen = ctx.budget > 0 ? choose(ctx, w, h, unbounded) : null;
+    if (!chosen) {
       if (ctx.build) {
         const rest = emptyNode(x, y, w, h);
         if (chain) chain.children.push(rest);
@@ -209,6 +247,7 @@ export function fillRegion(ctx: FillContext, x: number, y: number, w: number, h:
       }
       return root;
     }
+    const pick: Pick = { option: chosen.option, dir: chosen.dir, n: chosen.n };
     place(ctx, pick);
     const o = pick.option;
     const stripW = pick.dir === 'h' ? w : o.w;
@@ -266,14 +305,14 @@ export function emptyLeaves(node: CutNode, out: EmptyNode[] = []): EmptyNode[] {
 
 /**
  * Fills every empty region of a tree in place (a real run) or only counts
- * what would be placed (a trial run). Returns the square steps placed.
+ * what would be placed (a trial run). Returns the weighted area placed.
  */
 export function fillTree(root: CutNode, ctx: FillContext): number {
-  const before = ctx.placedArea;
+  const before = ctx.placedValue;
   for (const leaf of emptyLeaves(root)) {
     if (ctx.budget <= 0) break;
     const filled = fillRegion(ctx, leaf.x, leaf.y, leaf.w, leaf.h);
     if (ctx.build && filled && filled !== leaf) Object.assign(leaf, filled);
   }
-  return ctx.placedArea - before;
+  return ctx.placedValue - before;
 }

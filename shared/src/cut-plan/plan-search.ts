@@ -13,7 +13,7 @@
 
 import { VARIANTS, fillTree, type CutNode, type FillContext, type Variant } from './guillotine-packer';
 import { placePinnedPieces, skeletonTree, type PinnedFailure, type PinnedPlacement } from './kept-features';
-import type { PlanModel } from './plan-model';
+import type { Orientation, PlanModel } from './plan-model';
 
 export interface PlanState {
   strategy: string;
@@ -35,6 +35,10 @@ interface Strategy {
   name: string;
   /** Orders bins for phases 2 and 4 (a negative result puts a first). */
   order: (a: number, b: number) => number;
+  /** Which pieces go first (see Variant). */
+  rank: Float64Array;
+  /** Worth of each type's area when choosing between trial fills of a panel. */
+  weight: Float64Array;
   variants: readonly Variant[];
 }
 
@@ -46,10 +50,31 @@ function strategies(model: PlanModel): Strategy[] {
   const byArea = (a: number, b: number) => area(b) - area(a) || a - b;
   const longSide = (i: number) => Math.max(model.bins[i].w, model.bins[i].h);
   const byLongSide = (a: number, b: number) => longSide(b) - longSide(a) || byArea(a, b);
+  const byPieceArea = Float64Array.from(model.types, (t) => t.w * t.h);
+  const byPieceLength = Float64Array.from(model.types, (t) => Math.max(t.w, t.h));
+  // Scarcity: a piece that fits only a little of the fabric is worth more
+  // where it does fit, so trial fills prefer it to pieces that fit anywhere.
+  const binArea = model.bins.map((b) => (b.unbounded ? 0 : b.w * b.h));
+  const total = binArea.reduce((s, a) => s + a, 0);
+  const fitArea = new Float64Array(model.types.length);
+  model.binOptions.forEach((options, b) => {
+    const seen = new Set<number>();
+    for (const o of options) if (!seen.has(o.type)) seen.add(o.type), (fitArea[o.type] += binArea[b]);
+  });
+  const scarcity = Float64Array.from(fitArea, (a) => (a > 0 ? Math.min(8, Math.sqrt(total / a)) : 1));
+  const flat = new Float64Array(model.types.length).fill(1);
+  const scarceArea = Float64Array.from(byPieceArea, (a, t) => a * scarcity[t]);
+  const [largestFirst, , vertical] = VARIANTS;
+  // Cheap single-variant runs first, then two that try every variant on each
+  // panel. The set was chosen on seeded memory-quilt instances (see
+  // scripts/bench-cut-plan.ts); each order wins on some of them.
   return [
-    { name: 'largest panels first, best of every packer variant', order: byArea, variants: VARIANTS },
-    { name: 'largest panels first, largest pieces first', order: byArea, variants: [VARIANTS[0]] },
-    { name: 'longest panels first, best of every packer variant', order: byLongSide, variants: VARIANTS },
+    { name: 'longest panels first, scarcest pieces first', order: byLongSide, rank: scarceArea, weight: flat, variants: [largestFirst] },
+    { name: 'largest panels first, largest pieces first', order: byArea, rank: byPieceArea, weight: flat, variants: [largestFirst] },
+    { name: 'largest panels first, longest pieces first, vertical strips', order: byArea, rank: byPieceLength, weight: flat, variants: [vertical] },
+    { name: 'largest panels first, scarcest pieces first', order: byArea, rank: scarceArea, weight: flat, variants: [largestFirst] },
+    { name: 'longest panels first, largest pieces first, best variant per panel', order: byLongSide, rank: byPieceArea, weight: scarcity, variants: VARIANTS },
+    { name: 'largest panels first, largest pieces first, best variant per panel', order: byArea, rank: byPieceArea, weight: scarcity, variants: VARIANTS },
   ];
 }
 
@@ -66,25 +91,31 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
   let placedCount = pinned.placements.length;
   for (const p of pinned.placements) placedArea += p.w * p.h;
 
-  const context = (bin: number, mask: Uint8Array, variant: Variant, build: boolean, budget: number, c: Int32Array): FillContext => ({
-    options: binOptions[bin],
+  const context = (options: Orientation[], mask: Uint8Array, variant: Variant, build: boolean, budget: number, c: Int32Array): FillContext => ({
+    options,
+    minSide: options.reduce((m, o) => Math.min(m, o.w, o.h), Infinity),
     counts: c,
     mask,
+    rank: strategy.rank,
+    weight: strategy.weight,
     budget,
     variant,
     build,
     placedArea: 0,
+    placedValue: 0,
     placedCount: 0,
   });
 
   /** Fills a bin with the best of the variants; returns pieces placed. */
   const fillBest = (bin: number, mask: Uint8Array, variants: readonly Variant[], budget = Infinity): number => {
-    if (binOptions[bin].length === 0) return 0;
+    // Only the orientations of types that may and can still be placed.
+    const options = binOptions[bin].filter((o) => mask[o.type] === 1 && counts[o.type] > 0);
+    if (options.length === 0) return 0;
     let best = variants[0];
     if (variants.length > 1) {
       let bestArea = -1;
       for (const variant of variants) {
-        const trial = context(bin, mask, variant, false, budget, counts.slice());
+        const trial = context(options, mask, variant, false, budget, counts.slice());
         const area = fillTree(trees[bin], trial);
         if (area > bestArea) {
           bestArea = area;
@@ -92,7 +123,7 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
         }
       }
     }
-    const ctx = context(bin, mask, best, true, budget, counts);
+    const ctx = context(options, mask, best, true, budget, counts);
     fillTree(trees[bin], ctx);
     binPieces[bin] += ctx.placedCount;
     placedArea += ctx.placedArea;
@@ -145,14 +176,24 @@ export function betterPlan(a: PlanState, b: PlanState): boolean {
   return a.placedCount > b.placedCount;
 }
 
-/** Runs every strategy and keeps the best plan (the earliest among equals). */
-export function searchPlan(model: PlanModel): PlanState {
+/**
+ * Runs the strategies in turn, stopping early once one places everything
+ * and meets every minimum; returns every plan made, in order.
+ */
+export function runStrategies(model: PlanModel): PlanState[] {
   const pinned = placePinnedPieces(model);
-  let best: PlanState | null = null;
+  const states: PlanState[] = [];
   for (const strategy of strategies(model)) {
     const state = run(model, strategy, pinned);
-    if (!best || betterPlan(state, best)) best = state;
+    states.push(state);
     if (state.minimumDeficit === 0 && state.counts.every((c) => c === 0)) break;
   }
+  return states;
+}
+
+/** The best plan of every strategy (the earliest among equals). */
+export function searchPlan(model: PlanModel): PlanState {
+  let best: PlanState | null = null;
+  for (const state of runStrategies(model)) if (!best || betterPlan(state, best)) best = state;
   return best as PlanState;
 }

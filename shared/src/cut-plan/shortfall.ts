@@ -54,10 +54,14 @@ export function extraLength(
     options,
     counts,
     mask,
+    rank: Float64Array.from(model.types, (t) => t.w * t.h),
+    weight: new Float64Array(model.types.length).fill(1),
     budget: Infinity,
+    minSide: 0,
     variant: VARIANTS[0],
     build: true,
     placedArea: 0,
+    placedValue: 0,
     placedCount: 0,
   };
   const tree = fillRegion(ctx, 0, 0, open.w, Infinity);
