@@ -1,6 +1,6 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
-import { Observable, catchError, finalize, firstValueFrom, map, of } from 'rxjs';
+import { Observable, catchError, firstValueFrom, map, of, tap } from 'rxjs';
 import * as z from 'zod/mini';
 
 import { REPORT_API_ERRORS } from './api-error';
@@ -49,9 +49,11 @@ export class Auth {
   }
 
   signOut(): Observable<void> {
+    // Forgotten before the caller hears back, so the sign-in page opens for nobody.
+    const forget = () => this.currentUser.set(null);
     return this.http.post<void>('/api/auth/sign-out', null).pipe(
       map(() => undefined),
-      finalize(() => this.currentUser.set(null)),
+      tap({ complete: forget, error: forget }),
     );
   }
 
