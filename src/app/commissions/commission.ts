@@ -1,0 +1,231 @@
+import {
+  AgeGroup,
+  ColourRun,
+  CommissionKind,
+  Construction,
+  CustodyKind,
+  FeatureKind,
+  Fibre,
+  GarmentStatus,
+  Grain,
+  LengthUnit,
+  Prewash,
+  Print,
+  ReturnMethod,
+  Stage,
+  isStage,
+} from '@keepstitch/shared';
+import * as z from 'zod/mini';
+
+import { photoSchema } from '../shared/photo';
+
+const stage = z.custom<Stage>(isStage);
+const text = z.optional(z.nullable(z.string()));
+
+/** A row of the commission list (and the head of a commission page). */
+export const commissionSchema = z.object({
+  id: z.number(),
+  clientId: z.number(),
+  client: z.optional(z.nullable(z.object({ id: z.number(), name: z.string() }))),
+  title: z.string(),
+  kind: z.custom<CommissionKind>((v) => typeof v === 'string'),
+  recipient: text,
+  ageGroup: z.custom<AgeGroup>((v) => typeof v === 'string'),
+  occasion: text,
+  sizePreset: text,
+  widthMm: text,
+  lengthMm: text,
+  deadline: text,
+  daysLeft: z.optional(z.nullable(z.number())),
+  overdue: z.optional(z.boolean()),
+  stage,
+  notes: text,
+  budgetPence: z.optional(z.nullable(z.number())),
+  createdAt: z.string(),
+  updatedAt: z.optional(z.string()),
+});
+export type Commission = z.infer<typeof commissionSchema>;
+
+export const commissionPageSchema = z.object({ items: z.array(commissionSchema), total: z.number() });
+export type CommissionPage = z.infer<typeof commissionPageSchema>;
+
+const featureSchema = z.object({ kind: z.custom<FeatureKind>((v) => typeof v === 'string'), position: z.string() });
+export type Feature = z.infer<typeof featureSchema>;
+
+export const panelSchema = z.object({
+  id: z.number(),
+  name: z.string(),
+  widthMm: z.string(),
+  heightMm: z.string(),
+  grain: z.optional(z.nullable(z.custom<Grain>((v) => typeof v === 'string'))),
+});
+export type Panel = z.infer<typeof panelSchema>;
+
+export const garmentSchema = z.object({
+  id: z.number(),
+  commissionId: z.optional(z.number()),
+  description: z.string(),
+  whose: text,
+  story: text,
+  fibre: z.optional(z.nullable(z.custom<Fibre>((v) => typeof v === 'string'))),
+  construction: z.optional(z.nullable(z.custom<Construction>((v) => typeof v === 'string'))),
+  colour: text,
+  print: z.optional(z.nullable(z.custom<Print>((v) => typeof v === 'string'))),
+  features: z.optional(z.nullable(z.array(featureSchema))),
+  status: z.optional(z.custom<GarmentStatus>((v) => typeof v === 'string')),
+  received: z.optional(z.boolean()),
+  washed: z.optional(z.boolean()),
+  place: text,
+  removeForSafety: z.optional(z.array(featureSchema)),
+  panels: z.optional(z.array(panelSchema)),
+  photos: z.optional(z.array(photoSchema)),
+  condition: text,
+  prewash: z.optional(z.nullable(z.custom<Prewash>((v) => typeof v === 'string'))),
+  colourRun: z.optional(z.nullable(z.custom<ColourRun>((v) => typeof v === 'string'))),
+  returnsToClient: text,
+});
+export type Garment = z.infer<typeof garmentSchema>;
+
+export const custodyEventSchema = z.object({
+  id: z.number(),
+  kind: z.custom<CustodyKind>((v) => typeof v === 'string'),
+  at: z.string(),
+  place: text,
+  returnMethod: z.optional(z.nullable(z.custom<ReturnMethod>((v) => typeof v === 'string'))),
+  trackingRef: text,
+  note: text,
+  correctsEventId: z.optional(z.nullable(z.number())),
+});
+export type CustodyEventRow = z.infer<typeof custodyEventSchema>;
+
+export const garmentDetailSchema = z.extend(garmentSchema, {
+  events: z.optional(z.array(custodyEventSchema)),
+});
+export type GarmentDetail = z.infer<typeof garmentDetailSchema>;
+
+export const eventReplySchema = z.object({
+  event: custodyEventSchema,
+  state: z.object({ status: z.custom<GarmentStatus>((v) => typeof v === 'string'), received: z.boolean(), washed: z.boolean(), place: z.nullable(z.string()) }),
+});
+
+const hoursEntrySchema = z.object({
+  id: z.number(),
+  stage,
+  hours: z.union([z.string(), z.number()]),
+  workedOn: z.string(),
+  note: text,
+  userName: text,
+});
+export type HoursEntry = z.infer<typeof hoursEntrySchema>;
+
+export const commissionDetailSchema = z.extend(commissionSchema, {
+  cautions: z.array(z.object({ code: z.string(), title: z.string(), text: z.string(), source: z.string() })),
+  garments: z.array(garmentSchema),
+  progressPhotos: z.array(photoSchema),
+  stageHistory: z.array(
+    z.object({ id: z.number(), fromStage: z.nullable(stage), toStage: stage, note: text, movedAt: z.string() }),
+  ),
+  hours: z.optional(
+    z.object({ entries: z.array(hoursEntrySchema), byStage: z.record(z.string(), z.string()), total: z.string() }),
+  ),
+  nextStages: z.optional(z.array(stage)),
+  facts: z.object({ garmentCount: z.number(), garmentsReceived: z.number() }),
+});
+export type CommissionDetail = z.infer<typeof commissionDetailSchema>;
+
+export const stageReplySchema = z.object({ id: z.number(), stage, nextStages: z.optional(z.array(stage)) });
+export type StageReply = z.infer<typeof stageReplySchema>;
+
+export type CommissionSortField = 'deadline' | 'createdAt' | 'title' | 'stage';
+
+export interface CommissionQuery {
+  page: number;
+  pageSize: number;
+  sort: CommissionSortField;
+  dir: 'asc' | 'desc';
+  stages: readonly Stage[];
+  q: string;
+  dueWithinDays: number | null;
+  clientId: number | null;
+}
+
+export interface CommissionDraft {
+  clientId: number;
+  title: string;
+  kind: CommissionKind;
+  recipient: string | null;
+  ageGroup: AgeGroup;
+  occasion: string | null;
+  width?: string;
+  length?: string;
+  unit?: LengthUnit;
+  deadline: string | null;
+  budgetPence: number | null;
+  notes: string | null;
+}
+
+export interface GarmentDraft {
+  description: string;
+  whose?: string | null;
+  story?: string | null;
+  fibre?: Fibre | null;
+  construction?: Construction | null;
+  colour?: string | null;
+  print?: Print | null;
+  condition?: string | null;
+  features?: Feature[];
+  prewash?: Prewash | null;
+  colourRun?: ColourRun | null;
+  returnsToClient?: string | null;
+}
+
+export type CustodyEventDraft =
+  | { kind: 'received'; place?: string; note?: string }
+  | { kind: 'washed'; note?: string }
+  | { kind: 'stored'; place: string; note?: string }
+  | { kind: 'moved'; place: string; note?: string }
+  | { kind: 'cut'; note?: string }
+  | { kind: 'returned'; returnMethod: ReturnMethod; trackingRef?: string; note?: string }
+  | { kind: 'withdrawn'; note?: string }
+  | { kind: 'correction'; correctsEventId: number; note: string };
+
+export interface PanelDraft {
+  name: string;
+  width: string;
+  height: string;
+  unit: LengthUnit;
+  grain: Grain | null;
+}
+
+/** Empty text becomes null, so the server stores "not given" rather than "". */
+export function orNull(value: string | null | undefined): string | null {
+  const trimmed = (value ?? '').trim();
+  return trimmed === '' ? null : trimmed;
+}
+
+/** Days left in plain words: "12 days left", "due today", "3 days overdue". */
+export function daysLeftText(row: Pick<Commission, 'deadline' | 'daysLeft' | 'overdue'>): string {
+  if (!row.deadline || row.daysLeft === null || row.daysLeft === undefined) return '';
+  const d = row.daysLeft;
+  if (d === 0) return 'due today';
+  if (d < 0 || row.overdue) {
+    const late = Math.abs(d);
+    return `overdue by ${late} day${late === 1 ? '' : 's'}`;
+  }
+  return `${d} day${d === 1 ? '' : 's'} left`;
+}
+
+/** "2026-12-24" shown as "24 Dec 2026" without going through local time zones. */
+export function showDate(isoDate: string | null | undefined): string {
+  if (!isoDate) return '';
+  const [y, m, d] = isoDate.slice(0, 10).split('-').map(Number);
+  const months = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+  return `${d} ${months[m - 1]} ${y}`;
+}
+
+/** Today's date in the browser's own calendar, as YYYY-MM-DD. */
+export function todayIso(): string {
+  const now = new Date();
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
+}

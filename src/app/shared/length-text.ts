@@ -1,0 +1,50 @@
+import { AbstractControl, ValidationErrors, ValidatorFn } from '@angular/forms';
+import { Length, LengthUnit, formatLength, tryParseLength } from '@keepstitch/shared';
+
+/** The units a maker may type a length in, with their labels. */
+export const LENGTH_UNITS: readonly { value: LengthUnit; label: string }[] = [
+  { value: 'in', label: 'in' },
+  { value: 'cm', label: 'cm' },
+  { value: 'mm', label: 'mm' },
+  { value: 'm', label: 'm' },
+  { value: 'yd', label: 'yd' },
+];
+
+export type LengthReading =
+  | { ok: true; imperial: string; metric: string }
+  | { ok: false; message: string };
+
+/**
+ * What a typed length reads as, in both unit systems ("19 1/2 in" and "49.5 cm"),
+ * with the shared parser's own message when it cannot be read. Null when empty.
+ */
+export function readLength(text: string, unit: LengthUnit): LengthReading | null {
+  if (text.trim() === '') return null;
+  const parsed = tryParseLength(text, unit);
+  if (!parsed.ok) return { ok: false, message: parsed.error.message };
+  return { ok: true, ...bothSystems(parsed.length) };
+}
+
+export function bothSystems(length: Length): { imperial: string; metric: string } {
+  return { imperial: formatLength(length, 'imperial'), metric: formatLength(length, 'metric') };
+}
+
+/** "19 1/2 in (49.5 cm)" from the server's exact millimetres; empty when there is none. */
+export function showMillimetres(mm: string | null | undefined): string {
+  if (mm === null || mm === undefined || mm === '') return '';
+  const both = bothSystems(Length.millimetres(mm));
+  return `${both.imperial} (${both.metric})`;
+}
+
+/**
+ * A validator for a length typed as text, read in the unit `unit()` returns.
+ * Puts the parser's message on the `length` error. Empty passes unless `required`.
+ */
+export function lengthText(unit: () => LengthUnit, required = false): ValidatorFn {
+  return (control: AbstractControl<string | null>): ValidationErrors | null => {
+    const text = control.value ?? '';
+    if (text.trim() === '') return required ? { required: true } : null;
+    const reading = readLength(text, unit());
+    return reading && !reading.ok ? { length: reading.message } : null;
+  };
+}
