@@ -41,7 +41,7 @@ export default async function globalSetup(): Promise<void> {
   await admin.query('DROP DATABASE IF EXISTS keepstitch_e2e WITH (FORCE)');
   await admin.end();
 
-  const env = { ...process.env, DATABASE_URL: databaseUrl('keepstitch_e2e'), PORT: String(E2E_PORT), NODE_ENV: 'production', SESSION_SECRET: 'e2e-session-secret-'.padEnd(48, 'e') };
+  const env = { ...process.env, DATABASE_URL: databaseUrl('keepstitch_e2e'), PORT: String(E2E_PORT), NODE_ENV: 'production', SESSION_SECRET: 'e2e-session-secret-'.padEnd(48, 'e'), UPLOAD_DIR: path.join(ROOT, 'test-output', 'e2e-uploads') };
   const prepare = spawn(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'prepare'], { cwd: ROOT, env, stdio: 'inherit' });
   const code = await new Promise<number | null>((r) => prepare.on('exit', r));
   if (code !== 0) throw new Error('Preparing the end-to-end database failed.');
