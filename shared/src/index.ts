@@ -1,8 +1,36 @@
 // Public API of the domain maths package. Each concept lives in its own file.
-export {};
 export * from './workflow/index';
+
+// Measures: exact lengths, reading, rounding and showing them.
 export * from './errors';
 export * from './measure';
 export * from './parse-length';
 export * from './format-length';
 export * from './rounding';
+
+// Cut sizes from finished sizes.
+export * from './seam-allowance';
+export * from './triangle-cut';
+export * from './flying-geese';
+export * from './strip-yield';
+
+// Sizes and layouts.
+export * from './bed-sizes';
+export * from './cushion-cover';
+export * from './shrinkage';
+export * from './grid-layout';
+export * from './on-point';
+export * from './layout-suggest';
+
+// Radial and foundation blocks.
+export * from './wedge-block';
+export * from './centre-circle';
+export * from './foundation-block';
+
+// Studio fabric.
+export * from './fabric-width';
+export * from './shop-increment';
+export * from './yardage';
+export * from './binding';
+export * from './backing';
+export * from './wadding';
