@@ -1,5 +1,5 @@
 import type { Knex } from 'knex';
-import { rm } from 'node:fs/promises';
+import { readdir, unlink } from 'node:fs/promises';
 import path from 'node:path';
 import sharp from 'sharp';
 import { DATA_DIR } from '../server/core/config';
@@ -27,7 +27,11 @@ const inches = (n: number) => String(n * 25.4);
  */
 export async function seed(knex: Knex): Promise<void> {
   const uploadDir = process.env['UPLOAD_DIR'] ?? path.join(DATA_DIR, 'uploads');
-  await rm(uploadDir, { recursive: true, force: true });
+  // The earlier demo's photos go with its rows: only files named the way the photo store names them.
+  const stale = await readdir(uploadDir).catch(() => [] as string[]);
+  await Promise.all(
+    stale.filter((f) => /^[0-9a-f-]{36}(\.thumb)?\.(jpg|png|webp)$/.test(f)).map((f) => unlink(path.join(uploadDir, f))),
+  );
 
   const users = await knex('users').select('id', 'email', 'clientId');
   const byEmail = (e: string) => users.find((u) => u.email === e)!;
