@@ -1,7 +1,7 @@
 import Decimal from 'decimal.js';
 import * as fc from 'fast-check';
 import { DomainError } from './errors';
-import { gridLayout, piecingFor, wofStripsEndToEnd } from './grid-layout';
+import { gridLayout, piecingFor, planBorders, wofStripsEndToEnd } from './grid-layout';
 import { Length } from './measure';
 
 const inch = (v: Decimal.Value) => Length.inches(v);
@@ -98,6 +98,16 @@ describe('gridLayout', () => {
     expect(() => gridLayout({ rows: 2, columns: 2, block: inch(-12) })).toThrow(/greater than zero/);
     expect(() => gridLayout({ rows: 2, columns: 2, block: inch(12), borders: [Length.zero] })).toThrow(DomainError);
     expect(() => gridLayout({ rows: 2, columns: 2, block: inch(12), usableWidth: inch(1) })).toThrow(DomainError);
+  });
+});
+
+describe('planBorders', () => {
+  it('borders any centre, sides first', () => {
+    const [b] = planBorders({ width: inch(40), height: inch(50) }, [inch(5)]);
+    expect(inches(b.sides.finished.length)).toBe('50');
+    expect(inches(b.topAndBottom.finished.length)).toBe('50');
+    expect(inches(b.finishedAfter.width)).toBe('50');
+    expect(inches(b.finishedAfter.height)).toBe('60');
   });
 });
 

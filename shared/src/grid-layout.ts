@@ -19,7 +19,7 @@ export interface SashingInput {
   outer?: boolean;
 }
 
-export interface GridLayoutInput extends AllowanceOptions {
+export interface GridLayoutInput extends BorderOptions {
   rows: number;
   columns: number;
   /** Finished block size (a Length for square blocks). */
@@ -27,10 +27,6 @@ export interface GridLayoutInput extends AllowanceOptions {
   sashing?: SashingInput;
   /** Border widths, innermost first. */
   borders?: readonly Length[];
-  /** Usable width of the fabric strips are cut across; default 40 in. */
-  usableWidth?: Length;
-  /** Cut border strips across the width (pieced when too long) or along the length (unpieced); default across. */
-  borderGrain?: 'across-width' | 'lengthwise';
 }
 
 /** How a strip longer than the fabric's usable width is pieced. */
@@ -175,33 +171,20 @@ export function gridLayout(input: GridLayoutInput): GridLayout {
     }
   }
 
-  const borders: BorderPlan[] = [];
-  let current: Size = centre;
-  (input.borders ?? []).forEach((width, i) => {
-    requirePositive(width, `border ${i + 1} width`);
-    resolveAllowance(input, width);
-    const grainUsable = input.borderGrain === 'lengthwise' ? null : usable;
-    const sides = stripGroup('sides', 2, current.height, width, allowance, ruler, grainUsable);
-    const after = { width: current.width.plus(width.times(2)), height: current.height.plus(width.times(2)) };
-    const topAndBottom = stripGroup('top and bottom', 2, after.width, width, allowance, ruler, grainUsable);
-    const wofStrips =
-      grainUsable === null
-        ? 0
-        : wofStripsEndToEnd(sides.cut.length.rounded, 2, usable, allowance) +
-          wofStripsEndToEnd(topAndBottom.cut.length.rounded, 2, usable, allowance);
-    borders.push({ number: i + 1, width, sides, topAndBottom, wofStrips, finishedAfter: after });
-    across.unshift(width);
-    across.push(width);
-    down.unshift(width);
-    down.push(width);
-    current = after;
-  });
+  const borders = planBorders(centre, input.borders ?? [], input);
+  for (const border of borders) {
+    across.unshift(border.width);
+    across.push(border.width);
+    down.unshift(border.width);
+    down.push(border.width);
+  }
+  const finished = borders.length > 0 ? borders[borders.length - 1].finishedAfter : centre;
 
   return {
     rows,
     columns,
     allowance,
-    finished: current,
+    finished,
     centre,
     blocks: {
       count: rows * columns,
@@ -215,4 +198,43 @@ export function gridLayout(input: GridLayoutInput): GridLayout {
     borders,
     parts: { across, down },
   };
+}
+
+export interface BorderOptions extends AllowanceOptions {
+  /** Usable width of the fabric strips are cut across; default 40 in. */
+  usableWidth?: Length;
+  /** Cut border strips across the width (pieced when too long) or along the length (unpieced); default across. */
+  borderGrain?: 'across-width' | 'lengthwise';
+}
+
+/**
+ * Borders round any finished centre (a grid, an on-point centre, a medallion),
+ * innermost first; each is added sides first, then top and bottom.
+ */
+export function planBorders(centre: Size, widths: readonly Length[], options: BorderOptions = {}): BorderPlan[] {
+  requirePositive(centre.width, 'centre width');
+  requirePositive(centre.height, 'centre height');
+  const { allowance, ruler } = resolveAllowance(options);
+  const usable = requirePositive(options.usableWidth ?? DEFAULT_USABLE_WIDTH, 'usable width');
+  if (usable.lte(allowance.times(4))) {
+    throw new DomainError('too-small', 'Expected a usable fabric width larger than four seam allowances.', 'usable width');
+  }
+  const grainUsable = options.borderGrain === 'lengthwise' ? null : usable;
+  const borders: BorderPlan[] = [];
+  let current: Size = centre;
+  widths.forEach((width, i) => {
+    requirePositive(width, `border ${i + 1} width`);
+    resolveAllowance(options, width);
+    const sides = stripGroup('sides', 2, current.height, width, allowance, ruler, grainUsable);
+    const after = { width: current.width.plus(width.times(2)), height: current.height.plus(width.times(2)) };
+    const topAndBottom = stripGroup('top and bottom', 2, after.width, width, allowance, ruler, grainUsable);
+    const wofStrips =
+      grainUsable === null
+        ? 0
+        : wofStripsEndToEnd(sides.cut.length.rounded, 2, usable, allowance) +
+          wofStripsEndToEnd(topAndBottom.cut.length.rounded, 2, usable, allowance);
+    borders.push({ number: i + 1, width, sides, topAndBottom, wofStrips, finishedAfter: after });
+    current = after;
+  });
+  return borders;
 }

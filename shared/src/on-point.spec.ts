@@ -54,6 +54,12 @@ describe('onPointLayout', () => {
     expect(inches(layout.blocks.cut.rounded)).toBe('10.5');
   });
 
+  it('adds borders round the on-point centre', () => {
+    const layout = onPointLayout({ across: 3, down: 4, block: inch(10), borders: [inch(3)] });
+    expect(layout.finished.width.toNumber('in')).toBeCloseTo(3 * Math.hypot(10, 10) + 6, 12);
+    expect(layout.borders[0].sides.finished.length.eq(layout.centre.height)).toBe(true);
+  });
+
   it('block diagonal is side x sqrt 2 (derived: Math.hypot)', () => {
     expect(num(blockDiagonal(inch(10)))).toBeCloseTo(Math.hypot(10, 10), 12);
   });

@@ -5,6 +5,7 @@
 
 import Decimal from 'decimal.js';
 import { requireCount } from './errors';
+import { BorderOptions, BorderPlan, planBorders } from './grid-layout';
 import { Length, requireNonNegative, requirePositive, Size } from './measure';
 import { cutSize, CutSize } from './rounding';
 import { addSeamAllowance, AllowanceOptions, resolveAllowance, UnitCut } from './seam-allowance';
@@ -55,21 +56,26 @@ export function cornerSettingTriangleCut(blockSide: Length, options: SettingTria
   };
 }
 
-export interface OnPointLayoutInput extends SettingTriangleOptions {
+export interface OnPointLayoutInput extends SettingTriangleOptions, BorderOptions {
   /** Whole blocks along the top edge. */
   across: number;
   /** Whole blocks down the side edge. */
   down: number;
   /** Finished block side. */
   block: Length;
+  /** Border widths round the on-point centre, innermost first. */
+  borders?: readonly Length[];
 }
 
 export interface OnPointLayout {
   across: number;
   down: number;
   blockDiagonal: Length;
-  /** Exact finished size of the pieced centre: across x diagonal by down x diagonal. */
+  /** Exact finished size of the on-point centre: across x diagonal by down x diagonal. */
+  centre: Size;
+  /** Finished size of the whole top, borders included. */
   finished: Size;
+  borders: BorderPlan[];
   blocks: { count: number; finished: Length; cut: CutSize };
   sideTriangles: { count: number; squares: number; cut: UnitCut };
   cornerTriangles: { count: number; squares: number; cut: UnitCut };
@@ -88,11 +94,15 @@ export function onPointLayout(input: OnPointLayoutInput): OnPointLayout {
   const sideCount = 2 * (across - 1) + 2 * (down - 1);
   const side = sideSettingTriangleCut(input.block, input);
   const corner = cornerSettingTriangleCut(input.block, input);
+  const centre = { width: diagonal.times(across), height: diagonal.times(down) };
+  const borders = planBorders(centre, input.borders ?? [], input);
   return {
     across,
     down,
     blockDiagonal: diagonal,
-    finished: { width: diagonal.times(across), height: diagonal.times(down) },
+    centre,
+    finished: borders.length > 0 ? borders[borders.length - 1].finishedAfter : centre,
+    borders,
     blocks: {
       count: across * down + (across - 1) * (down - 1),
       finished: input.block,
