@@ -19,7 +19,7 @@ import { searchPlan } from './plan-search';
 export type GrainDirection = 'along-height' | 'along-width' | 'unknown';
 
 /** A rectangle in a panel's coordinates. */
-export interface Rect {
+export interface PlanRect {
   x: number;
   y: number;
   width: number;
@@ -27,7 +27,7 @@ export interface Rect {
 }
 
 /** Something in a panel to keep whole inside one piece: a pocket, a label, embroidery. */
-export interface KeptFeatureInput extends Rect {
+export interface KeptFeatureInput extends PlanRect {
   /** Unique across the whole input. */
   id: string;
   label?: string;
@@ -139,7 +139,7 @@ export interface Placement {
 /** What a region of a panel becomes. */
 export type RegionContent = 'piece' | 'strip' | 'offcut' | 'waste';
 
-export interface CutRegion extends Rect {
+export interface CutRegion extends PlanRect {
   /** Path label: '1' is the first part cut from the panel, '1.2' the second part cut from that. */
   label: string;
   content: RegionContent;
@@ -159,7 +159,7 @@ export interface CutStep {
   /** Label of the region being cut ('panel' for the whole panel). */
   region: string;
   /** The region as it lies when this cut is made. */
-  regionRect: Rect;
+  regionRect: PlanRect;
   direction: 'horizontal' | 'vertical';
   at: number;
   /** Length of the cut: the region's width (horizontal) or height (vertical). */
@@ -186,7 +186,7 @@ export interface PanelPlan {
   areaUsed: number;
   /** areaUsed / area, a fraction from 0 to 1 (0 for an empty panel of no area). */
   yield: number;
-  offcuts: Rect[];
+  offcuts: PlanRect[];
   cuts: CutStep[];
 }
 

@@ -19,7 +19,7 @@ export type {
   PieceShortfall,
   PieceSource,
   Placement,
-  Rect,
+  PlanRect,
   RegionContent,
   ShortfallReason,
   StudioFabricInput,

@@ -13,7 +13,7 @@ import { cutSequence, normalizeTree, trimUnbounded } from './cut-sequence';
 import type { CutNode, PieceNode } from './guillotine-packer';
 import type { PlanModel } from './plan-model';
 import type { PlanState } from './plan-search';
-import { fromSteps } from './scaled-units';
+import { SCALE } from './scaled-units';
 import { extraLength, garmentMinimumShortfalls, pieceShortfalls } from './shortfall';
 
 function pieceNodes(node: CutNode, out: PieceNode[] = []): PieceNode[] {
@@ -23,6 +23,9 @@ function pieceNodes(node: CutNode, out: PieceNode[] = []): PieceNode[] {
 }
 
 const ratio = (part: number, whole: number) => (whole > 0 ? part / whole : 0);
+// Read once: a module binding read in a loop can cost a getter call per read.
+const PER_UNIT = SCALE;
+const fromSteps = (steps: number) => steps / PER_UNIT;
 
 /** Writes the chosen plan out. */
 export function reportPlan(model: PlanModel, state: PlanState): CutPlan {
@@ -49,6 +52,13 @@ export function reportPlan(model: PlanModel, state: PlanState): CutPlan {
     named.set(node, { piece, copy: placedCopies[piece] });
   };
 
+  const sequenceOptions = {
+    describe: (node: PieceNode) => {
+      const n = named.get(node) as { piece: number; copy: number };
+      return { pieceId: pieces[n.piece].id, copy: n.copy };
+    },
+    minimumOffcut: model.minimumOffcut,
+  };
   const placements: Placement[] = [];
   const panels: PanelPlan[] = [];
   const pieceArea = (piece: number) => pieces[piece].width * pieces[piece].height;
@@ -85,13 +95,7 @@ export function reportPlan(model: PlanModel, state: PlanState): CutPlan {
       if (node.pinned >= 0) placement.featureId = model.pinned[node.pinned].feature.id;
       placements.push(placement);
     }
-    const { cuts, offcuts } = cutSequence(tree, {
-      describe: (node) => {
-        const n = named.get(node) as { piece: number; copy: number };
-        return { pieceId: pieces[n.piece].id, copy: n.copy };
-      },
-      minimumOffcut: model.minimumOffcut,
-    });
+    const { cuts, offcuts } = cutSequence(tree, sequenceOptions);
     const height = bin.unbounded ? fromSteps(heightSteps) : bin.height;
     const area = bin.width * height;
     binUsed.push(areaUsed);

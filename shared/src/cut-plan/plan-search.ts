@@ -91,9 +91,17 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
   let placedCount = pinned.placements.length;
   for (const p of pinned.placements) placedArea += p.w * p.h;
 
-  const context = (options: Orientation[], mask: Uint8Array, variant: Variant, build: boolean, budget: number, c: Int32Array): FillContext => ({
+  const context = (
+    options: Orientation[],
+    minSide: number,
+    mask: Uint8Array,
+    variant: Variant,
+    build: boolean,
+    budget: number,
+    c: Int32Array,
+  ): FillContext => ({
     options,
-    minSide: options.reduce((m, o) => Math.min(m, o.w, o.h), Infinity),
+    minSide,
     counts: c,
     mask,
     rank: strategy.rank,
@@ -109,13 +117,19 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
   /** Fills a bin with the best of the variants; returns pieces placed. */
   const fillBest = (bin: number, mask: Uint8Array, variants: readonly Variant[], budget = Infinity): number => {
     // Only the orientations of types that may and can still be placed.
-    const options = binOptions[bin].filter((o) => mask[o.type] === 1 && counts[o.type] > 0);
+    const options: Orientation[] = [];
+    let minSide = Infinity;
+    for (const o of binOptions[bin]) {
+      if (mask[o.type] === 0 || counts[o.type] <= 0) continue;
+      options.push(o);
+      minSide = Math.min(minSide, o.w, o.h);
+    }
     if (options.length === 0) return 0;
     let best = variants[0];
     if (variants.length > 1) {
       let bestArea = -1;
       for (const variant of variants) {
-        const trial = context(options, mask, variant, false, budget, counts.slice());
+        const trial = context(options, minSide, mask, variant, false, budget, counts.slice());
         const area = fillTree(trees[bin], trial);
         if (area > bestArea) {
           bestArea = area;
@@ -123,7 +137,7 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
         }
       }
     }
-    const ctx = context(options, mask, best, true, budget, counts);
+    const ctx = context(options, minSide, mask, best, true, budget, counts);
     fillTree(trees[bin], ctx);
     binPieces[bin] += ctx.placedCount;
     placedArea += ctx.placedArea;
