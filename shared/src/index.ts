@@ -34,3 +34,6 @@ export * from './yardage';
 export * from './binding';
 export * from './backing';
 export * from './wadding';
+
+// The cut planner.
+export * from './cut-plan/index';
