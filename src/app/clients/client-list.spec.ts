@@ -66,7 +66,7 @@ describe('ClientList', () => {
     const input = await loader.getHarness(MatInputHarness.with({ selector: '[type=search]' }));
     await input.setValue(text);
     // Let the (shortened) debounce pass.
-    await new Promise((resolve) => setTimeout(resolve, 20));
+    await new Promise((resolve) => setTimeout(resolve, 50));
     await fixture.whenStable();
   }
 
