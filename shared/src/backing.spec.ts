@@ -6,7 +6,7 @@ const inch = (v: number | string) => Length.inches(v);
 const inches = (l: Length) => l.to('in').toString();
 
 describe('backing', () => {
-  // 60 x 80 in top, 4 in each side (common practice), 40 in usable WOF, 1/2 in seams.
+  // 60 x 80 in top, 4 in each side (common practice), 40 in usable WOF (common practice), 1/2 in seams (common practice, from memory).
   const plan = backing({ quilt: { width: inch(60), height: inch(80) } });
 
   it('is 4 in larger than the top on every side: 68 x 88 in (common practice)', () => {
@@ -30,19 +30,22 @@ describe('backing', () => {
     expect(inches(plan.wide!.fabricLength)).toBe('68');
   });
 
-  it('a small quilt fits one width', () => {
+  it('a small quilt fits one width (derived: 30 + 8 = 38 <= 40 in; one panel of 40 + 8 = 48 in)', () => {
     const small = backing({ quilt: { width: inch(30), height: inch(40) } });
     expect(small.pieced).toMatchObject({ method: 'single-width', panels: 1 });
     // 38 x 48 in: the 38 in width fits the 40 in fabric, so one 48 in panel
     expect(inches(small.pieced.fabricLength)).toBe('48');
+    expect(30 + 2 * 4).toBeLessThanOrEqual(40);
+    expect(40 + 2 * 4).toBe(48);
   });
 
-  it('a king quilt wider than wide backing both ways has no wide option', () => {
+  it('a king quilt wider than wide backing both ways has no wide option (derived)', () => {
     const king = backing({ quilt: { width: inch(110), height: inch(110) } });
     expect(king.wide).toBeNull();
     // 118 in wide: 3 panels give 3 x 40 - 2 x 1 = 118 in (derived)
     expect(king.pieced.panels).toBe(3);
     expect(3 * 40 - 2 * 2 * 0.5).toBeGreaterThanOrEqual(118);
+    expect(2 * 40 - 2 * 0.5).toBeLessThan(118);
   });
 
   it('takes a 6 in oversize and refuses bad input', () => {

@@ -44,7 +44,7 @@ describe('mattress presets', () => {
     expect(inches(p.size.height)).toBe(l);
   });
 
-  it('lists presets by region, each naming its source, with unique ids', () => {
+  it('lists presets by region, each naming its source, with unique ids (published: six EU widths)', () => {
     expect(mattressPresets('EU')).toHaveLength(6);
     expect(new Set(MATTRESS_PRESETS.map((p) => p.id)).size).toBe(MATTRESS_PRESETS.length);
     expect(MATTRESS_PRESETS.every((p) => p.source.length > 0)).toBe(true);
@@ -70,14 +70,14 @@ describe('quiltSizeForBed', () => {
     expect(inches(parts.pillowTuck)).toBe('10');
   });
 
-  it('drops only the exposed sides (bed against a wall)', () => {
+  it('drops only the exposed sides, bed against a wall (derived; mathjs unit sum)', () => {
     const { size } = quiltSizeForBed({
       mattress: mattressPreset('uk-single').size,
       drop: Length.centimetres(25),
       exposed: { left: false },
     });
-    expect(cm(size.width)).toBe('115');
-    expect(cm(size.height)).toBe('215');
+    expect(cm(size.width)).toBe(mathjsEvaluate('90 cm + 25 cm', 'cm'));
+    expect(cm(size.height)).toBe(mathjsEvaluate('190 cm + 25 cm', 'cm'));
   });
 
   it('keeps the common-practice drop range of 10 to 16 in', () => {

@@ -2,6 +2,7 @@ import { biasBindingSquare, biasLengthFromSquare, straightBinding } from './bind
 import { DomainError } from './errors';
 import { Length } from './measure';
 import { TEN_CENTIMETRES } from './shop-increment';
+import { mathjsConvert } from './testing/mathjs-units';
 
 const inch = (v: number | string) => Length.inches(v);
 const inches = (l: Length) => l.to('in').toString();
@@ -17,7 +18,7 @@ describe('straightBinding', () => {
     expect(b.purchase.length.to('yd').toString()).toBe('0.625');
   });
 
-  it('2 1/4 in strips and a metric increment', () => {
+  it('2 1/4 in strips and a metric increment (derived; mathjs converts 700 cm and 15.75 in)', () => {
     const b = straightBinding({
       quilt: { width: Length.centimetres(150), height: Length.centimetres(200) },
       stripWidth: inch('2.25'),
@@ -29,6 +30,8 @@ describe('straightBinding', () => {
     expect(b.strips).toBe(Math.ceil((700 / 2.54 + 10) / 42));
     expect(inches(b.fabricLength)).toBe('15.75');
     expect(b.purchase.length.to('cm').toString()).toBe('50');
+    expect(b.perimeter.to('in').toDecimalPlaces(10).toString()).toBe(Number(mathjsConvert('700', 'cm', 'in')).toFixed(10).replace(/0+$/, ''));
+    expect(mathjsConvert('15.75', 'in', 'cm')).toBe('40.005');
   });
 
   it('refuses bad input', () => {

@@ -23,11 +23,12 @@ describe('centreCircle', () => {
     expect(c.cardRadius.gt(plate.innerRadius)).toBe(true);
   });
 
-  it('for a fan gives a quarter circle cut from a square of fabric radius + seam allowance', () => {
+  it('for a fan gives a quarter circle cut from a square of fabric radius + seam allowance (derived: 2 + 1/4 + 1/4, + 1/4)', () => {
     const fan = wedgeBlock({ kind: 'fan', blades: 5, outerRadius: inch(8), innerRadius: inch(2) });
     const c = centreCircle(fan);
     expect(inches(c.fabricRadius)).toBe('2.5');
     expect(inches(c.fanSquare!.rounded)).toBe('2.75');
+    expect(2 + 0.25 + 0.25 + 0.25).toBe(2.75);
   });
 
   it('refuses a turn allowance over 1 in or a circle as large as the plate', () => {
@@ -45,9 +46,10 @@ describe('backgroundSquare', () => {
     expect(inches(bg.cut.rounded)).toBe('12.5');
   });
 
-  it('rounds the finished square up to the step, and sets a fan in the corner', () => {
+  it('rounds the finished square up to the step, and sets a fan in the corner (derived: 2 (6.2 + 1) = 14.4 -> 15; 8 + 2 = 10)', () => {
     const plate = wedgeBlock({ kind: 'plate', blades: 16, outerRadius: inch('6.2'), innerRadius: inch(2) });
     expect(inches(backgroundSquare(plate).finished)).toBe('15');
+    expect(Math.ceil(2 * (6.2 + 1))).toBe(15);
     const fan = wedgeBlock({ kind: 'fan', blades: 5, outerRadius: inch(8), innerRadius: inch(2) });
     expect(inches(backgroundSquare(fan, { margin: inch(2) }).finished)).toBe('10');
   });

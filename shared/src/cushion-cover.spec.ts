@@ -6,7 +6,7 @@ const inch = (v: number | string) => Length.inches(v);
 const inches = (l: Length) => l.to('in').toString();
 
 describe('cushionCover', () => {
-  it('18 in pad: front 19 x 19 in at 1/2 in seams; backs 19 x 12 1/2 in with a 4 in overlap (common practice)', () => {
+  it('18 in pad: front 19 x 19 in at 1/2 in seams; backs 19 x 12 1/2 in with a 4 in overlap (common practice, from memory: 1/2 in cushion seams, 4 in overlap, 1 in hem)', () => {
     const cover = cushionCover({ pad: { width: inch(18), height: inch(18) } });
     expect(inches(cover.front.width.rounded)).toBe('19');
     expect(inches(cover.back.width.rounded)).toBe('19');

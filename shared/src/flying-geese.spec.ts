@@ -7,7 +7,7 @@ const num = (l: Length) => l.toNumber('in');
 const inches = (l: Length) => l.to('in').toString();
 
 describe('flying geese', () => {
-  it('four at a time: 3 x 6 in geese from a 7 1/4 in square and four 3 7/8 in squares (common practice)', () => {
+  it('four at a time: 3 x 6 in geese from a 7 1/4 in square and four 3 7/8 in squares (common practice, from memory; exact sizes derived below)', () => {
     const cut = flyingGeeseCut({ width: inch(6), height: inch(3) });
     const [goose, sky] = cut.pieces;
     expect(inches(goose.width.rounded)).toBe('7.25');
@@ -26,7 +26,7 @@ describe('flying geese', () => {
     expect(boundingBox(sky).width).toBeCloseTo(num(cut.pieces[1].width.exact), 5);
   });
 
-  it('stitch and flip: a 3 1/2 x 6 1/2 in rectangle and two 3 1/2 in squares (common practice)', () => {
+  it('stitch and flip: a 3 1/2 x 6 1/2 in rectangle and two 3 1/2 in squares (common practice, from memory)', () => {
     const cut = flyingGeeseCut({ width: inch(6), height: inch(3) }, { method: 'stitch-and-flip' });
     expect(inches(cut.pieces[0].width.rounded)).toBe('6.5');
     expect(inches(cut.pieces[0].height.rounded)).toBe('3.5');

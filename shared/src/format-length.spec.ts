@@ -21,11 +21,11 @@ describe('formatInches', () => {
     ['2.25', '2 1/4 in'],
     ['3.375', '3 3/8 in'],
     ['0', '0 in'],
-  ])('writes %s in as %p', (value, text) => {
+  ])('writes %s in as %p (derived: whole + eighths, reduced)', (value, text) => {
     expect(formatInches(Length.inches(value))).toBe(text);
   });
 
-  it('rounds cut sizes up and finished sizes to the nearest mark', () => {
+  it('rounds cut sizes up and finished sizes to the nearest mark (rounding step; common practice)', () => {
     const exact = Length.inches('6.8536');
     expect(formatCutSize(exact)).toBe('6 7/8 in');
     expect(formatFinishedSize(Length.inches('8.4853'))).toBe('8 1/2 in');
@@ -40,7 +40,7 @@ describe('formatInches', () => {
 
 describe('formatMetric', () => {
   // published: 1 in = 25.4 mm exactly (NIST SP 811 appendix B), so 6 1/2 in = 165.1 mm.
-  it('writes millimetres, centimetres and metres to the millimetre', () => {
+  it('writes millimetres, centimetres and metres to the millimetre (published: NIST SP 811 appendix B)', () => {
     const l = Length.inches('6.5');
     expect(formatMetric(l, 'mm')).toBe('165 mm');
     expect(formatMetric(l, 'cm')).toBe('16.5 cm');
@@ -53,13 +53,14 @@ describe('formatMetric', () => {
 });
 
 describe('formatSize and formatFabricLength', () => {
-  it('writes sizes as width x height', () => {
+  it('writes sizes as width x height (published: 1 in = 25.4 mm)', () => {
     expect(formatSize({ width: Length.inches('6.5'), height: Length.inches(12) })).toBe('6 1/2 x 12 in');
     expect(formatSize({ width: Length.centimetres(135), height: Length.centimetres(190) }, 'metric')).toBe('135 x 190 cm');
   });
 
-  it('writes fabric in yards to 1/8 yd or metres to 1 cm', () => {
+  it('writes fabric in yards to 1/8 yd or metres to 1 cm (derived: 49.5 / 36 = 1.375 yd)', () => {
     expect(formatFabricLength(Length.inches('49.5'), 'yd')).toBe('1 3/8 yd');
+    expect(49.5 / 36).toBe(1.375);
     expect(formatFabricLength(Length.centimetres(120), 'm')).toBe('1.2 m');
   });
 });

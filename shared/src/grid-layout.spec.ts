@@ -55,16 +55,16 @@ describe('gridLayout', () => {
     expect(second.wofStrips).toBe(3 + 5);
   });
 
-  it('without cornerstones, the strips between rows run the full width and are pieced', () => {
+  it('without cornerstones, the strips between rows run the full width and are pieced (derived: 5 x 12 + 4 x 2 + 1/2)', () => {
     const plain = gridLayout({ rows: 4, columns: 5, block: inch(12), sashing: { width: inch(2) } });
     const [, betweenRows] = plain.sashing!.strips;
     expect(betweenRows.count).toBe(3);
-    expect(inches(betweenRows.cut.length.rounded)).toBe('68.5');
+    expect(inches(betweenRows.cut.length.rounded)).toBe(String(5 * 12 + 4 * 2 + 0.5));
     expect(betweenRows.piecing.joins).toBe(1);
     expect(plain.sashing!.cornerstones).toBeNull();
   });
 
-  it('outer sashing frames the blocks', () => {
+  it('outer sashing frames the blocks (derived counts)', () => {
     const framed = gridLayout({ rows: 2, columns: 3, block: inch(10), sashing: { width: inch(2), cornerstones: true, outer: true } });
     expect(inches(framed.finished.width)).toBe(String(3 * 10 + 4 * 2));
     expect(framed.sashing!.cornerstones!.count).toBe(3 * 4);
@@ -77,7 +77,7 @@ describe('gridLayout', () => {
     expect(l.borders[0].wofStrips).toBe(0);
   });
 
-  it('works in metric: 20 cm blocks at 7.5 mm seams, 6 x 8, 10 cm border -> 140 x 180 cm', () => {
+  it('works in metric: 20 cm blocks at 7.5 mm seams, 6 x 8, 10 cm border -> 140 x 180 cm (derived)', () => {
     const l = gridLayout({
       rows: 8,
       columns: 6,
@@ -89,7 +89,8 @@ describe('gridLayout', () => {
     });
     expect(l.finished.width.to('cm').toString()).toBe('140');
     expect(l.finished.height.to('cm').toString()).toBe('180');
-    expect(l.blocks.cut.width.rounded.mm.toString()).toBe('215');
+    expect(l.blocks.cut.width.rounded.mm.toString()).toBe(String(200 + 2 * 7.5));
+    expect([6 * 20 + 2 * 10, 8 * 20 + 2 * 10]).toEqual([140, 180]);
   });
 
   it('refuses bad input', () => {
@@ -102,7 +103,7 @@ describe('gridLayout', () => {
 });
 
 describe('planBorders', () => {
-  it('borders any centre, sides first', () => {
+  it('borders any centre, sides first (derived: 40 + 2 x 5, 50 + 2 x 5)', () => {
     const [b] = planBorders({ width: inch(40), height: inch(50) }, [inch(5)]);
     expect(inches(b.sides.finished.length)).toBe('50');
     expect(inches(b.topAndBottom.finished.length)).toBe('50');
@@ -112,7 +113,7 @@ describe('planBorders', () => {
 });
 
 describe('piecing', () => {
-  it('a strip no longer than the usable width is one strip', () => {
+  it('a strip no longer than the usable width is one strip (derived: floor(40 / 12) = 3 a strip)', () => {
     expect(piecingFor(inch(40), inch(40), inch('0.25'))).toEqual({ wofStrips: 1, joins: 0 });
     expect(wofStripsEndToEnd(inch(12), 7, inch(40), inch('0.25'))).toBe(3);
   });

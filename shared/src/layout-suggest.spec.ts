@@ -13,14 +13,14 @@ describe('suggestGrid', () => {
     expect(best.difference.width.isZero() && best.difference.height.isZero()).toBe(true);
   });
 
-  it('shows the signed difference when the target cannot be met', () => {
+  it('shows the signed difference when the target cannot be met (derived: 6 x 10 - 63, 8 x 10 - 84)', () => {
     const [best] = suggestGrid({ target: { width: inch(63), height: inch(84) }, block: inch(10) });
     expect(best).toMatchObject({ rows: 8, columns: 6 });
     expect(inches(best.difference.width)).toBe('-3');
-    expect(inches(best.difference.height)).toBe('-4');
+    expect(inches(best.difference.height)).toBe(String(8 * 10 - 84));
   });
 
-  it('chooses a border width that closes the gap, preferring fewer blocks on a tie', () => {
+  it('chooses a border width that closes the gap, preferring fewer blocks on a tie (derived)', () => {
     const results = suggestGrid({
       target: { width: inch(66), height: inch(86) },
       block: inch(10),
@@ -30,6 +30,8 @@ describe('suggestGrid', () => {
     expect(inches(results[0].borderWidth)).toBe('8');
     expect(results[1]).toMatchObject({ rows: 8, columns: 6 });
     expect(inches(results[1].borderWidth)).toBe('3');
+    // second way: 5 x 10 + 2 x 8 = 66 and 7 x 10 + 2 x 8 = 86; 6 x 10 + 2 x 3 = 66 and 8 x 10 + 2 x 3 = 86
+    expect([5 * 10 + 16, 7 * 10 + 16, 6 * 10 + 6, 8 * 10 + 6]).toEqual([66, 86, 66, 86]);
   });
 
   it('agrees with gridLayout for every suggestion (derived: the layout sums its parts)', () => {

@@ -49,7 +49,7 @@ describe('Length conversions', () => {
 });
 
 describe('Length arithmetic', () => {
-  it('adds, subtracts, scales and compares exactly', () => {
+  it('adds, subtracts, scales and compares exactly (published: 2.54 cm = 1 in, NIST SP 811 appendix B)', () => {
     const a = Length.inches('6.5');
     const b = Length.centimetres('2.54');
     expect(a.plus(b).to('in').toString()).toBe('7.5');

@@ -39,7 +39,7 @@ describe('setting triangles', () => {
     expect(boundingBox(grown).width).toBeCloseTo(num(cut.pieces[0].width.exact), 5);
   });
 
-  it('adds an oversize for trimming', () => {
+  it('adds an oversize for trimming (derived: 18 1/4 + 1 in)', () => {
     expect(inches(sideSettingTriangleCut(inch(12), { oversize: inch(1) }).pieces[0].width.rounded)).toBe('19.25');
   });
 });
@@ -54,7 +54,7 @@ describe('onPointLayout', () => {
     expect(inches(layout.blocks.cut.rounded)).toBe('10.5');
   });
 
-  it('adds borders round the on-point centre', () => {
+  it('adds borders round the on-point centre (derived: 3 x hypot(10, 10) + 2 x 3)', () => {
     const layout = onPointLayout({ across: 3, down: 4, block: inch(10), borders: [inch(3)] });
     expect(layout.finished.width.toNumber('in')).toBeCloseTo(3 * Math.hypot(10, 10) + 6, 12);
     expect(layout.borders[0].sides.finished.length.eq(layout.centre.height)).toBe(true);

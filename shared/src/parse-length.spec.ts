@@ -31,12 +31,12 @@ describe('parseLength', () => {
     expect(mm(text)).toBe(expected);
   });
 
-  it('reads a bare number in the default unit', () => {
+  it('reads a bare number in the default unit (published: NIST SP 811 appendix B)', () => {
     expect(mm('190', 'cm')).toBe('1900');
     expect(mm('7.5', 'mm')).toBe('7.5');
   });
 
-  it('knows every unicode vulgar fraction it lists', () => {
+  it('knows every unicode vulgar fraction it lists (published: the Unicode Standard, Number Forms and Latin-1 charts)', () => {
     for (const [glyph, [num, den]] of Object.entries(VULGAR_FRACTIONS)) {
       const value = parseLength(`1${glyph}`, 'in').to('in');
       expect(value.minus(1).times(den).toDecimalPlaces(10).toNumber()).toBe(num);

@@ -32,13 +32,13 @@ describe('squares, rectangles and strips', () => {
     expect(cut.pieces[0].width.rounded.mm.toString()).toBe('115');
   });
 
-  it('rounds a metric cut up to the millimetre', () => {
+  it('rounds a metric cut up to the millimetre (published: 4 in = 101.6 mm, NIST SP 811; derived + 12 mm; rounding step)', () => {
     const cut = squareCut(Length.inches(4), { allowance: Length.millimetres(6), ruler: 'millimetre' });
     expect(cut.pieces[0].width.exact.mm.toString()).toBe('113.6');
     expect(cut.pieces[0].width.rounded.mm.toString()).toBe('114');
   });
 
-  it('counts batches', () => {
+  it('counts batches (derived: one square a unit)', () => {
     expect(batchesFor(squareCut(inch(6)), 40)).toBe(40);
   });
 });

@@ -23,12 +23,13 @@ describe('dimensional change (published definition: AATCC TM135, AATCC TM150, IS
     expect(change.toNumber()).toBeCloseTo((100 * (48.5 - 50)) / 50, 12);
   });
 
-  it('growth is positive', () => {
+  it('growth is positive (published formula; derived: 100 (51 - 50) / 50 = 2)', () => {
     expect(dimensionalChangePercent(cm(50), cm(51)).toString()).toBe('2');
   });
 
-  it('applies a change to a length', () => {
+  it('applies a change to a length (derived: 100 x 0.97)', () => {
     expect(applyDimensionalChange(cm(100), -3).to('cm').toString()).toBe('97');
+    expect(100 * 0.97).toBeCloseTo(97, 12);
   });
 });
 
@@ -45,7 +46,7 @@ describe('shrinkage and take-up applied to plan sizes', () => {
     expect(new Decimal(62.5).times(0.96).toString()).toBe('60');
   });
 
-  it('combines take-up and laundering and undoes them exactly', () => {
+  it('combines take-up and laundering and undoes them exactly (derived: inverse operations)', () => {
     const target = { width: inch(60), height: inch(80) };
     const shrink = { takeUpPercent: 4, launderingPercent: '2.5' };
     const back = sizeAfterQuiltingAndWashing(topSizeForTarget(target, shrink), shrink);

