@@ -235,6 +235,10 @@ export function reviveLengths(_key: string, value: unknown): unknown {
   return isLengthJSON(value) ? Length.fromJSON(value) : value;
 }
 
+function shown(length: Length): string {
+  return `${length.mm.toDecimalPlaces(3).toString()} mm (${length.to('in').toDecimalPlaces(4).toString()} in)`;
+}
+
 /** Checks that `length` is greater than zero and returns it. */
 export function requirePositive(length: Length, field: string): Length {
   if (!(length instanceof Length)) {
@@ -243,7 +247,7 @@ export function requirePositive(length: Length, field: string): Length {
   if (!length.isPositive()) {
     throw new MeasureError(
       length.isZero() ? 'not-positive' : 'negative',
-      `Expected ${field} to be greater than zero; got ${length.to('in').toDecimalPlaces(4).toString()} in.`,
+      `Expected ${field} to be greater than zero; got ${shown(length)}.`,
       field,
     );
   }
@@ -258,7 +262,7 @@ export function requireNonNegative(length: Length, field: string): Length {
   if (length.isNegative()) {
     throw new MeasureError(
       'negative',
-      `Expected ${field} to be zero or more; got ${length.to('in').toDecimalPlaces(4).toString()} in.`,
+      `Expected ${field} to be zero or more; got ${shown(length)}.`,
       field,
     );
   }
