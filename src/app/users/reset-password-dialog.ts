@@ -26,7 +26,7 @@ export interface ResetPasswordDialogData {
     MatProgressBarModule,
   ],
   template: `
-    <h2 mat-dialog-title>New password for {{ data.name }}</h2>
+    <h2 mat-dialog-title>Reset password for {{ data.name }}</h2>
     <form (ngSubmit)="setPassword()" novalidate>
       <mat-dialog-content>
         @if (saving()) {
