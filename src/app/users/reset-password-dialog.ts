@@ -51,7 +51,7 @@ export interface ResetPasswordDialogData {
       </mat-dialog-content>
       <mat-dialog-actions align="end">
         <button mat-button type="button" mat-dialog-close>Cancel</button>
-        <button mat-flat-button type="submit" [disabled]="saving()">Set password</button>
+        <button mat-flat-button type="submit" [disabled]="saving()">Save new password</button>
       </mat-dialog-actions>
     </form>
   `,
