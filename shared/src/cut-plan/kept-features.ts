@@ -25,8 +25,11 @@ function overlaps(a: Box, b: Box): boolean {
   return a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h;
 }
 
-/** Frames one fixed rectangle inside a region with at most four cuts, keeping the larger free parts. */
-function frame(region: Box, r: Box, piece: CutNode): CutNode {
+/** Which cut frames a fixed piece first: horizontal, vertical, or whichever keeps the largest free part. */
+export type FrameFirst = 'h' | 'v' | 'largest-free';
+
+/** Frames one fixed rectangle inside a region with at most four cuts. */
+function frame(region: Box, r: Box, piece: CutNode, first: FrameFirst): CutNode {
   const parts = (dir: 'h' | 'v'): CutNode => {
     // dir 'h': top band, middle band (left | piece | right), bottom band.
     const children: CutNode[] = [];
@@ -58,6 +61,7 @@ function frame(region: Box, r: Box, piece: CutNode): CutNode {
   };
   const largestFree = (node: CutNode): number =>
     node.kind === 'empty' ? node.w * node.h : node.kind === 'split' ? Math.max(0, ...node.children.map(largestFree)) : 0;
+  if (first !== 'largest-free') return parts(first);
   const across = parts('h');
   const down = parts('v');
   return largestFree(down) > largestFree(across) ? down : across;
@@ -68,9 +72,13 @@ function frame(region: Box, r: Box, piece: CutNode): CutNode {
  * empty regions for the rest; null when the rectangles cannot all be cut
  * apart that way (they interlock like a pinwheel).
  */
-export function separate(region: Box, fixed: { box: Box; node: CutNode }[]): CutNode | null {
+export function separate(
+  region: Box,
+  fixed: { box: Box; node: CutNode }[],
+  first: FrameFirst = 'largest-free',
+): CutNode | null {
   if (fixed.length === 0) return emptyNode(region.x, region.y, region.w, region.h);
-  if (fixed.length === 1) return frame(region, fixed[0].box, fixed[0].node);
+  if (fixed.length === 1) return frame(region, fixed[0].box, fixed[0].node, first);
   for (const dir of ['h', 'v'] as const) {
     const start = dir === 'h' ? region.y : region.x;
     const end = start + (dir === 'h' ? region.h : region.w);
@@ -79,16 +87,16 @@ export function separate(region: Box, fixed: { box: Box; node: CutNode }[]): Cut
       .filter((at) => at > start && at < end)
       .sort((a, b) => a - b);
     for (const at of edges) {
-      const first = fixed.filter(({ box }) => (dir === 'h' ? box.y + box.h <= at : box.x + box.w <= at));
-      const second = fixed.filter(({ box }) => (dir === 'h' ? box.y >= at : box.x >= at));
-      if (first.length === 0 || second.length === 0 || first.length + second.length !== fixed.length) continue;
+      const firstPart = fixed.filter(({ box }) => (dir === 'h' ? box.y + box.h <= at : box.x + box.w <= at));
+      const secondPart = fixed.filter(({ box }) => (dir === 'h' ? box.y >= at : box.x >= at));
+      if (firstPart.length === 0 || secondPart.length === 0 || firstPart.length + secondPart.length !== fixed.length) continue;
       const a: Box = dir === 'h' ? { ...region, h: at - region.y } : { ...region, w: at - region.x };
       const b: Box =
         dir === 'h'
           ? { ...region, y: at, h: region.y + region.h - at }
           : { ...region, x: at, w: region.x + region.w - at };
-      const left = separate(a, first);
-      const right = left && separate(b, second);
+      const left = separate(a, firstPart, first);
+      const right = left && separate(b, secondPart, first);
       if (!left || !right) return null;
       return { kind: 'split', dir, ...region, children: [left, right] };
     }
@@ -159,7 +167,7 @@ export function placePinnedPieces(model: PlanModel): { placements: PinnedPlaceme
 }
 
 /** A bin's starting cut tree: its pinned pieces framed by cuts, the rest empty. */
-export function skeletonTree(bin: BinModel, placements: PinnedPlacement[]): CutNode {
+export function skeletonTree(bin: BinModel, placements: PinnedPlacement[], first: FrameFirst = 'largest-free'): CutNode {
   const mine = placements.filter((p) => p.bin === bin.index);
   const region: Box = { x: 0, y: 0, w: bin.w, h: bin.h };
   const tree = separate(
@@ -168,6 +176,7 @@ export function skeletonTree(bin: BinModel, placements: PinnedPlacement[]): CutN
       box: p,
       node: { kind: 'piece', x: p.x, y: p.y, w: p.w, h: p.h, type: -1, pinned: p.pinned, rotated: p.rotated },
     })),
+    first,
   );
   // placePinnedPieces only keeps pieces that separate.
   return tree as CutNode;

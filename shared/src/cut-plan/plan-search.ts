@@ -83,10 +83,37 @@ function strategies(model: PlanModel): Strategy[] {
 function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof placePinnedPieces>): PlanState {
   const { bins, types, binOptions } = model;
   const counts = Int32Array.from(types, (t) => t.count);
+  const all = new Uint8Array(types.length).fill(1);
   const trees = bins.map((bin) => skeletonTree(bin, pinned.placements));
+  // A panel with kept pieces: frame them with horizontal or vertical cuts
+  // first, whichever a trial fill of the panel finds holds more.
+  for (const bin of new Set(pinned.placements.map((p) => p.bin))) {
+    let best = -1;
+    for (const first of ['h', 'v'] as const) {
+      const tree = skeletonTree(bins[bin], pinned.placements, first);
+      const trial: FillContext = {
+        options: binOptions[bin],
+        minSide: 0,
+        counts: counts.slice(),
+        mask: all,
+        rank: strategy.rank,
+        weight: strategy.weight,
+        budget: Infinity,
+        variant: strategy.variants[0],
+        build: false,
+        placedArea: 0,
+        placedValue: 0,
+        placedCount: 0,
+      };
+      const value = fillTree(tree, trial);
+      if (value > best) {
+        best = value;
+        trees[bin] = tree;
+      }
+    }
+  }
   const binPieces = new Int32Array(bins.length);
   for (const p of pinned.placements) binPieces[p.bin]++;
-  const all = new Uint8Array(types.length).fill(1);
   const restricted = Uint8Array.from(types, (t) => (t.restricted ? 1 : 0));
   const order = bins.map((b) => b.index).sort(strategy.order);
   let placedArea = 0;
