@@ -17,6 +17,21 @@ export const routes: Routes = [
     loadChildren: () => import('./clients/clients.routes').then((m) => m.clientsRoutes),
   },
   {
+    path: 'commissions',
+    canActivate: [roleGuard('owner', 'workroom')],
+    loadChildren: () => import('./commissions/commissions.routes').then((m) => m.commissionsRoutes),
+  },
+  {
+    path: 'stock',
+    canActivate: [roleGuard('owner')],
+    loadChildren: () => import('./stock/stock.routes').then((m) => m.stockRoutes),
+  },
+  {
+    path: 'portal',
+    canActivate: [roleGuard('client')],
+    loadChildren: () => import('./portal/portal.routes').then((m) => m.portalRoutes),
+  },
+  {
     path: 'users',
     canActivate: [roleGuard('owner')],
     loadChildren: () => import('./users/users.routes').then((m) => m.usersRoutes),

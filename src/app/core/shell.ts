@@ -21,8 +21,11 @@ interface NavItem {
 
 /** Every place in the app, with the roles that may open it. */
 const navItems: readonly NavItem[] = [
+  { path: '/commissions', label: 'Commissions', icon: 'assignment', roles: ['owner', 'workroom'] },
   { path: '/clients', label: 'Clients', icon: 'group', roles: ['owner', 'workroom'] },
+  { path: '/stock', label: 'Studio fabric', icon: 'inventory_2', roles: ['owner'] },
   { path: '/users', label: 'Users', icon: 'manage_accounts', roles: ['owner'] },
+  { path: '/portal', label: 'My commissions', icon: 'assignment', roles: ['client'] },
   { path: '/my-details', label: 'My details', icon: 'badge', roles: ['client'] },
 ];
 

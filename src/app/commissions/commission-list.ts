@@ -1,0 +1,185 @@
+import {
+  AfterViewInit,
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  InjectionToken,
+  computed,
+  inject,
+  signal,
+  viewChild,
+} from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
+import { FormControl, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSort, MatSortModule } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { Router, RouterLink } from '@angular/router';
+import { ALL_STAGES, COMMISSION_KIND, STAGE_LABELS, Stage } from '@keepstitch/shared';
+import {
+  Subject,
+  catchError,
+  debounceTime,
+  distinctUntilChanged,
+  map,
+  merge,
+  of,
+  share,
+  startWith,
+  switchMap,
+  tap,
+} from 'rxjs';
+
+import { Auth } from '../core/auth';
+import { Commission, CommissionSortField, daysLeftText, showDate } from './commission';
+import { CommissionsApi } from './commissions-api';
+
+const sortFields: readonly CommissionSortField[] = ['deadline', 'createdAt', 'title', 'stage'];
+
+/** How long to wait after the last key press before filtering on the server (ms). */
+export const COMMISSION_FILTER_DELAY = new InjectionToken<number>('COMMISSION_FILTER_DELAY', {
+  factory: () => 300,
+});
+
+/** The commissions, paged, sorted and filtered on the server; deadlines first by default. */
+@Component({
+  selector: 'ks-commission-list',
+  imports: [
+    ReactiveFormsModule,
+    RouterLink,
+    MatTableModule,
+    MatSortModule,
+    MatPaginatorModule,
+    MatProgressBarModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+  ],
+  templateUrl: './commission-list.html',
+  styleUrl: './commission-list.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CommissionList implements AfterViewInit {
+  private readonly api = inject(CommissionsApi);
+  private readonly auth = inject(Auth);
+  private readonly router = inject(Router);
+  private readonly destroyRef = inject(DestroyRef);
+  private readonly filterDelay = inject(COMMISSION_FILTER_DELAY);
+  private readonly retry = new Subject<void>();
+
+  protected readonly paginator = viewChild.required(MatPaginator);
+  protected readonly sort = viewChild.required(MatSort);
+
+  protected readonly stageLabels: Readonly<Record<string, string>> = STAGE_LABELS;
+  protected readonly kindLabels: Readonly<Record<string, string>> = COMMISSION_KIND.labels;
+  protected readonly allStages = ALL_STAGES;
+  protected readonly daysLeftText = daysLeftText;
+  protected readonly showDate = showDate;
+  protected readonly pageSizeOptions = [10, 25, 50, 100];
+  protected readonly displayedColumns = ['client', 'title', 'kind', 'stage', 'deadline'];
+
+  protected readonly filter = new FormControl('', { nonNullable: true });
+  protected readonly stages = new FormControl<Stage[]>([], { nonNullable: true });
+  protected readonly dueWithin = new FormControl<number | null>(null);
+
+  protected readonly isOwner = computed(() => this.auth.role() === 'owner');
+  protected readonly rows = signal<Commission[]>([]);
+  protected readonly total = signal(0);
+  protected readonly loading = signal(true);
+  protected readonly failed = signal(false);
+  protected readonly filtered = signal(false);
+
+  protected readonly nothingYet = computed(
+    () => !this.loading() && !this.failed() && this.total() === 0 && !this.filtered(),
+  );
+  protected readonly noMatches = computed(
+    () => !this.loading() && !this.failed() && this.total() === 0 && this.filtered(),
+  );
+  protected readonly status = computed(() => {
+    if (this.loading()) return 'Loading commissions…';
+    if (this.failed()) return 'The commissions could not be loaded.';
+    if (this.nothingYet()) return 'No commissions yet.';
+    if (this.noMatches()) return 'No commissions match these filters.';
+    const total = this.total();
+    return total === 1 ? '1 commission.' : `${total} commissions.`;
+  });
+
+  ngAfterViewInit(): void {
+    const sort = this.sort();
+    const paginator = this.paginator();
+
+    const filterChange = merge(
+      this.filter.valueChanges.pipe(debounceTime(this.filterDelay), map((t) => t.trim()), distinctUntilChanged()),
+      this.stages.valueChanges,
+      this.dueWithin.valueChanges.pipe(debounceTime(this.filterDelay), distinctUntilChanged()),
+    ).pipe(share());
+
+    merge(sort.sortChange, filterChange)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe(() => (paginator.pageIndex = 0));
+
+    merge(sort.sortChange, filterChange, paginator.page, this.retry)
+      .pipe(
+        startWith(null),
+        tap(() => {
+          this.loading.set(true);
+          this.failed.set(false);
+        }),
+        switchMap(() => {
+          const q = this.filter.value.trim();
+          const due = this.dueWithin.value;
+          const dueWithinDays = due !== null && Number.isInteger(due) && due >= 0 ? due : null;
+          this.filtered.set(q !== '' || this.stages.value.length > 0 || dueWithinDays !== null);
+          return this.api
+            .list({
+              page: paginator.pageIndex,
+              pageSize: paginator.pageSize,
+              sort: sortFields.find((f) => f === sort.active) ?? 'deadline',
+              dir: sort.direction === 'desc' ? 'desc' : 'asc',
+              stages: this.stages.value,
+              q,
+              dueWithinDays,
+            })
+            .pipe(catchError(() => of(null)));
+        }),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe((page) => {
+        this.loading.set(false);
+        if (page === null) {
+          this.failed.set(true);
+          this.rows.set([]);
+          return;
+        }
+        this.rows.set(page.items);
+        this.total.set(page.total);
+      });
+  }
+
+  protected openFromRow(row: Commission, event: MouseEvent): void {
+    if ((event.target as Element | null)?.closest('a, button')) return;
+    void this.router.navigate(['/commissions', row.id]);
+  }
+
+  protected newCommission(): void {
+    void this.router.navigate(['/commissions/new']);
+  }
+
+  protected clearFilters(): void {
+    this.filter.setValue('');
+    this.stages.setValue([]);
+    this.dueWithin.setValue(null);
+  }
+
+  protected loadAgain(): void {
+    this.retry.next();
+  }
+}

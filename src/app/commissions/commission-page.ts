@@ -1,0 +1,194 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { AbstractControl, FormControl, FormGroup, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
+import {
+  AGE_GROUP,
+  ALL_STAGES,
+  COMMISSION_KIND,
+  FIBRE,
+  GARMENT_STATUS_LABELS,
+  STAGE_LABELS,
+  Stage,
+} from '@keepstitch/shared';
+
+import { apiErrorOf, messageFor } from '../core/api-error';
+import { Auth } from '../core/auth';
+import { Notices } from '../core/notices';
+import { CautionCards } from '../shared/caution-cards';
+import { showMillimetres } from '../shared/length-text';
+import { Photo } from '../shared/photo';
+import { PhotoGallery } from '../shared/photo-gallery';
+import { PhotoUpload } from '../shared/photo-upload';
+import { CommissionDetail, daysLeftText, showDate, todayIso } from './commission';
+import { needsNote } from './commission-board';
+import { CommissionsApi } from './commissions-api';
+import { GarmentIntake } from './garment-intake';
+
+type LoadState = 'loading' | 'ready' | 'missing' | 'failed';
+
+/** One commission: summary and cautions, garments, stage and its history, hours, progress photos. */
+@Component({
+  selector: 'ks-commission-page',
+  imports: [
+    DatePipe,
+    ReactiveFormsModule,
+    RouterLink,
+    MatTableModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    MatButtonModule,
+    MatIconModule,
+    MatProgressBarModule,
+    CautionCards,
+    PhotoGallery,
+    PhotoUpload,
+    GarmentIntake,
+  ],
+  templateUrl: './commission-page.html',
+  styleUrl: './commission-page.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class CommissionPage {
+  private readonly api = inject(CommissionsApi);
+  private readonly notices = inject(Notices);
+  private readonly auth = inject(Auth);
+
+  /** From the route, `/commissions/:id`. */
+  readonly id = input.required<string>();
+
+  protected readonly stageLabels = STAGE_LABELS;
+  protected readonly kindLabels = COMMISSION_KIND.labels;
+  protected readonly ageLabels = AGE_GROUP.labels;
+  protected readonly fibreLabels: Readonly<Record<string, string>> = FIBRE.labels;
+  protected readonly statusLabels: Readonly<Record<string, string>> = GARMENT_STATUS_LABELS;
+  protected readonly allStages = ALL_STAGES;
+  protected readonly showDate = showDate;
+  protected readonly daysLeftText = daysLeftText;
+  protected readonly showMillimetres = showMillimetres;
+  protected readonly garmentColumns = ['description', 'whose', 'fibre', 'status', 'place'];
+
+  protected readonly state = signal<LoadState>('loading');
+  protected readonly commission = signal<CommissionDetail | null>(null);
+  protected readonly intakeOpen = signal(false);
+  protected readonly isStaff = computed(() => this.auth.role() === 'owner' || this.auth.role() === 'workroom');
+  protected readonly commissionId = computed(() => Number(this.id()));
+  protected readonly progressUrl = computed(() => `/api/commissions/${this.commissionId()}/photos`);
+
+  protected readonly stageForm = new FormGroup({
+    to: new FormControl<Stage | null>(null, [Validators.required]),
+    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(1000)] }),
+  });
+  protected readonly movingStage = signal(false);
+  protected readonly stageError = signal<string | null>(null);
+
+  protected readonly hoursForm = new FormGroup({
+    stage: new FormControl<Stage>('enquiry', { nonNullable: true }),
+    hours: new FormControl<number | null>(null, [Validators.required, Validators.min(0.25), Validators.max(24), quarterHours]),
+    workedOn: new FormControl(todayIso(), { nonNullable: true, validators: [Validators.required] }),
+    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(500)] }),
+  });
+  protected readonly loggingHours = signal(false);
+  protected readonly hoursError = signal<string | null>(null);
+
+  protected readonly hoursByStage = computed(() => {
+    const byStage = this.commission()?.hours?.byStage ?? {};
+    return ALL_STAGES.filter((s) => byStage[s] !== undefined).map((s) => ({ stage: s, hours: byStage[s] }));
+  });
+
+  constructor() {
+    effect(() => this.load(this.commissionId()));
+  }
+
+  protected load(id = this.commissionId()): void {
+    if (!this.commission()) this.state.set('loading');
+    this.api.get(id).subscribe({
+      next: (commission) => {
+        this.commission.set(commission);
+        this.state.set('ready');
+        if (!this.hoursForm.dirty) this.hoursForm.controls.stage.setValue(commission.stage);
+      },
+      error: (error: unknown) => this.state.set(apiErrorOf(error)?.code === 'not_found' || (error as { status?: number }).status === 404 ? 'missing' : 'failed'),
+    });
+  }
+
+  protected noteNeeded(): boolean {
+    const c = this.commission();
+    const to = this.stageForm.controls.to.value;
+    return !!c && !!to && needsNote(c.stage, to);
+  }
+
+  protected moveStage(): void {
+    const c = this.commission();
+    const { to, note } = this.stageForm.getRawValue();
+    this.stageError.set(null);
+    if (!c || !to) {
+      this.stageForm.controls.to.markAsTouched();
+      return;
+    }
+    if (this.noteNeeded() && note.trim() === '') {
+      this.stageForm.controls.note.setErrors({ required: true });
+      this.stageForm.controls.note.markAsTouched();
+      return;
+    }
+    this.movingStage.set(true);
+    this.api.moveStage(c.id, to, note.trim() || undefined).subscribe({
+      next: (reply) => {
+        this.movingStage.set(false);
+        this.stageForm.reset({ to: null, note: '' });
+        this.notices.info(`Moved to ${STAGE_LABELS[reply.stage]}.`);
+        this.load();
+      },
+      error: (error: unknown) => {
+        this.movingStage.set(false);
+        this.stageError.set(messageFor(error));
+      },
+    });
+  }
+
+  protected logHours(): void {
+    const c = this.commission();
+    this.hoursError.set(null);
+    if (!c || this.hoursForm.invalid) {
+      this.hoursForm.markAllAsTouched();
+      return;
+    }
+    const v = this.hoursForm.getRawValue();
+    this.loggingHours.set(true);
+    this.api
+      .logHours(c.id, { stage: v.stage, hours: v.hours!, workedOn: v.workedOn, ...(v.note.trim() ? { note: v.note.trim() } : {}) })
+      .subscribe({
+        next: () => {
+          this.loggingHours.set(false);
+          this.hoursForm.reset({ stage: v.stage, hours: null, workedOn: v.workedOn, note: '' });
+          this.notices.info(`${v.hours} h logged against ${STAGE_LABELS[v.stage]}.`);
+          this.load();
+        },
+        error: (error: unknown) => {
+          this.loggingHours.set(false);
+          this.hoursError.set(messageFor(error));
+        },
+      });
+  }
+
+  protected garmentAdded(): void {
+    this.load();
+  }
+
+  protected progressUploaded(photos: Photo[]): void {
+    this.commission.update((c) => (c ? { ...c, progressPhotos: [...c.progressPhotos, ...photos] } : c));
+  }
+}
+
+function quarterHours(control: AbstractControl): ValidationErrors | null {
+  const v = control.value as number | null;
+  return v === null || Number.isInteger(v * 4) ? null : { quarter: true };
+}

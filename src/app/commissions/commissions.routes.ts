@@ -1,0 +1,16 @@
+import { Routes } from '@angular/router';
+
+import { roleGuard } from '../core/role-guard';
+import { CommissionBoard } from './commission-board';
+import { CommissionForm } from './commission-form';
+import { CommissionList } from './commission-list';
+import { CommissionPage } from './commission-page';
+import { GarmentPage } from './garment-page';
+
+export const commissionsRoutes: Routes = [
+  { path: '', title: 'Commissions', component: CommissionList },
+  { path: 'board', title: 'Commissions board', component: CommissionBoard },
+  { path: 'new', title: 'New commission', canActivate: [roleGuard('owner')], component: CommissionForm },
+  { path: ':id', title: 'Commission', component: CommissionPage },
+  { path: ':id/garments/:garmentId', title: 'Garment', component: GarmentPage },
+];
