@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -27,7 +27,7 @@ export interface ResetPasswordDialogData {
   ],
   template: `
     <h2 mat-dialog-title>Reset password for {{ data.name }}</h2>
-    <form (ngSubmit)="setPassword()" novalidate>
+    <form [formGroup]="form" (ngSubmit)="setPassword()" novalidate>
       <mat-dialog-content>
         @if (saving()) {
           <mat-progress-bar mode="indeterminate" aria-label="Saving password" />
@@ -35,7 +35,7 @@ export interface ResetPasswordDialogData {
         <p>Tell {{ data.name }} the new password in person or by phone, not by e-mail.</p>
         <mat-form-field>
           <mat-label>New password</mat-label>
-          <input matInput type="password" [formControl]="password" autocomplete="new-password" required />
+          <input matInput type="password" formControlName="password" autocomplete="new-password" required />
           <mat-hint>At least {{ minLength }} characters</mat-hint>
           @if (password.hasError('required')) {
             <mat-error>Enter a new password</mat-error>
@@ -71,10 +71,13 @@ export class ResetPasswordDialog {
   protected readonly data = inject<ResetPasswordDialogData>(MAT_DIALOG_DATA);
 
   protected readonly minLength = minPasswordLength;
-  protected readonly password = new FormControl('', {
-    nonNullable: true,
-    validators: [Validators.required, Validators.minLength(minPasswordLength)],
+  protected readonly form = new FormGroup({
+    password: new FormControl('', {
+      nonNullable: true,
+      validators: [Validators.required, Validators.minLength(minPasswordLength)],
+    }),
   });
+  protected readonly password = this.form.controls.password;
   protected readonly saving = signal(false);
   protected readonly error = signal<string | null>(null);
 
