@@ -366,17 +366,21 @@ function median(values: number[]): number {
   return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
 }
 
-function timeIt(run: () => Outcome, repeats: number): { outcome: Outcome; ms: number } {
-  let outcome = run(); // warm-up, also the result
-  sampleMemory();
-  const times: number[] = [];
+/**
+ * Times the three packers on one instance, taking turns run by run so that
+ * all three see the same machine load; returns each one's median.
+ */
+function timeTogether(runs: (() => Outcome)[], repeats: number): { outcome: Outcome; ms: number }[] {
+  const outcomes = runs.map((run) => run()); // warm-up, also the results
+  const times: number[][] = runs.map(() => []);
   for (let r = 0; r < repeats; r++) {
-    const t0 = performance.now();
-    outcome = run();
-    times.push(performance.now() - t0);
-    sampleMemory();
+    runs.forEach((run, i) => {
+      const t0 = performance.now();
+      run();
+      times[i].push(performance.now() - t0);
+    });
   }
-  return { outcome, ms: median(times) };
+  return outcomes.map((outcome, i) => ({ outcome, ms: median(times[i]) }));
 }
 
 const MB = 2 ** 20;
@@ -394,11 +398,11 @@ interface Row {
   faults: number;
 }
 
-function main(): void {
+export function main(): void {
   const repeats = Number(process.env.BENCH_REPEATS ?? 15);
   console.log(
     `Cut planner benchmark, ${new Date().toISOString()}, Node ${process.version}, ${os.cpus().length} cores, ` +
-      `load average ${os.loadavg().map((l) => l.toFixed(2)).join(' ')}; median of ${repeats} runs after a warm-up`,
+      `load average ${os.loadavg().map((l) => l.toFixed(2)).join(' ')}; median of ${repeats} runs after a warm-up, the three packers taking turns`,
   );
   console.log('Yield = area of pieces placed / area of fabric offered.');
   console.log('NOTE: the peers do NOT keep the guillotine (edge-to-edge cut) rule: they are peers for yield and speed, not for feasibility.');
@@ -411,26 +415,34 @@ function main(): void {
     runMaxRects(inst.input);
     runPotpack(inst.input);
   }
-  // The planner first, on its own, so the memory it needs is measured alone.
+  // Memory: the planner alone, before the peers have run in this measurement.
   collectGarbage();
   const base = process.memoryUsage();
   peak.rss = base.rss;
   peak.heap = base.heapUsed;
-  const planned = INSTANCES.map((inst) => {
+  for (const inst of INSTANCES) {
     collectGarbage();
-    return { inst, planner: timeIt(() => runPlanner(inst.input), repeats) };
-  });
+    for (let r = 0; r < 3; r++) {
+      runPlanner(inst.input);
+      sampleMemory();
+    }
+  }
   const plannerPeak = { ...peak };
-  const rows: Row[] = planned.map(({ inst, planner }) => {
-    const plan = planCuts(inst.input);
+
+  // Time: the three take turns on each instance.
+  const rows: Row[] = INSTANCES.map((inst) => {
+    const [planner, maxrects, potpack] = timeTogether(
+      [() => runPlanner(inst.input), () => runMaxRects(inst.input), () => runPotpack(inst.input)],
+      repeats,
+    );
     return {
       inst,
       count: inst.input.pieces.reduce((s, p) => s + p.count, 0),
       fabric: fabricArea(inst.input),
       planner,
-      maxrects: timeIt(() => runMaxRects(inst.input), repeats),
-      potpack: timeIt(() => runPotpack(inst.input), repeats),
-      faults: checkPlan(inst.input, plan).length,
+      maxrects,
+      potpack,
+      faults: checkPlan(inst.input, planCuts(inst.input)).length,
     };
   });
 

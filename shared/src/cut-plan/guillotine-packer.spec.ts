@@ -16,6 +16,7 @@ function context(options: Orientation[], counts: number[], build = true, variant
     minSide: 0,
     variant,
     build,
+    work: 0,
     placedArea: 0,
     placedValue: 0,
     placedCount: 0,

@@ -83,6 +83,8 @@ export interface FillContext {
   variant: Variant;
   /** Build the cut tree, or only count (a trial run). */
   build: boolean;
+  /** Options looked at so far: a measure of the effort spent, the same on every machine. */
+  work: number;
   /** Square steps placed so far. */
   placedArea: number;
   /** Square steps placed, each times its type's weight. */
@@ -110,6 +112,7 @@ const picked: Pick = { option: { type: -1, w: 0, h: 0, rotated: false, area: 0 }
 function choose(ctx: FillContext, w: number, h: number, unbounded: boolean): Pick | null {
   const { options, counts, mask, variant, rank } = ctx;
   if (w < ctx.minSide || h < ctx.minSide) return null;
+  ctx.work += options.length;
   // Smallest short and long side of any piece that still fits: a leftover
   // thinner or shorter than these cannot take a piece and counts as used up.
   let minShort = Infinity;

@@ -29,6 +29,8 @@ export interface PlanState {
   placedCount: number;
   /** Sum over garments of the pieces missing from their minimums. */
   minimumDeficit: number;
+  /** Effort spent (see FillContext.work). */
+  work: number;
 }
 
 interface Strategy {
@@ -42,7 +44,7 @@ interface Strategy {
   variants: readonly Variant[];
 }
 
-function strategies(model: PlanModel): Strategy[] {
+function strategies(model: PlanModel): { core: Strategy[]; extra: Strategy[] } {
   const area = (i: number) => {
     const bin = model.bins[i];
     return bin.unbounded ? Number.MAX_VALUE : bin.w * bin.h;
@@ -70,7 +72,7 @@ function strategies(model: PlanModel): Strategy[] {
   // Cheap single-variant runs first, then two that try every variant on each
   // panel. The set was chosen on seeded memory-quilt instances (see
   // scripts/bench-cut-plan.ts); each order wins on some of them.
-  return [
+  const core: Strategy[] = [
     { name: 'longest panels first, scarcest pieces first', order: byLongSide, rank: scarceArea, weight: flat, variants: [largestFirst] },
     { name: 'largest panels first, largest pieces first', order: byArea, rank: byPieceArea, weight: flat, variants: [largestFirst] },
     { name: 'largest panels first, longest pieces first, vertical strips', order: byArea, rank: byPieceLength, weight: flat, variants: [vertical] },
@@ -78,11 +80,37 @@ function strategies(model: PlanModel): Strategy[] {
     { name: 'longest panels first, largest pieces first, best variant per panel', order: byLongSide, rank: byPieceArea, weight: scarcity, variants: perPanel },
     { name: 'largest panels first, largest pieces first, best variant per panel', order: byArea, rank: byPieceArea, weight: scarcity, variants: perPanel },
   ];
+  // More orders, tried while the effort budget lasts (small plans get them all).
+  const byHeight = Float64Array.from(model.types, (t) => t.h * 1e9 + t.w * t.h);
+  const byWidth = Float64Array.from(model.types, (t) => t.w * 1e9 + t.w * t.h);
+  const orders: [string, (a: number, b: number) => number][] = [['largest panels', byArea], ['longest panels', byLongSide]];
+  const ranks: [string, Float64Array][] = [
+    ['largest pieces', byPieceArea],
+    ['longest pieces', byPieceLength],
+    ['scarcest pieces', scarceArea],
+    ['tallest pieces', byHeight],
+    ['widest pieces', byWidth],
+  ];
+  const extra: Strategy[] = [];
+  for (const variant of VARIANTS) {
+    for (const [rankName, rank] of ranks) {
+      for (const [orderName, order] of orders) {
+        extra.push({ name: `${orderName} first, ${rankName} first, ${variant.name}`, order, rank, weight: flat, variants: [variant] });
+      }
+    }
+  }
+  for (const [rankName, rank] of ranks) {
+    for (const [orderName, order] of orders) {
+      extra.push({ name: `${orderName} first, ${rankName} first, every variant per panel`, order, rank, weight: scarcity, variants: VARIANTS });
+    }
+  }
+  return { core, extra };
 }
 
 function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof placePinnedPieces>): PlanState {
   const { bins, types, binOptions } = model;
   const counts = Int32Array.from(types, (t) => t.count);
+  let work = 0;
   const all = new Uint8Array(types.length).fill(1);
   const trees = bins.map((bin) => skeletonTree(bin, pinned.placements));
   // A panel with kept pieces: frame them with horizontal or vertical cuts
@@ -101,11 +129,13 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
         budget: Infinity,
         variant: strategy.variants[0],
         build: false,
+        work: 0,
         placedArea: 0,
         placedValue: 0,
         placedCount: 0,
       };
       const value = fillTree(tree, trial);
+      work += trial.work;
       if (value > best) {
         best = value;
         trees[bin] = tree;
@@ -138,6 +168,7 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
     budget,
     variant,
     build,
+    work: 0,
     placedArea: 0,
     placedValue: 0,
     placedCount: 0,
@@ -145,6 +176,7 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
 
   /** Fills a bin with the best of the variants; returns pieces placed. */
   const fillBest = (bin: number, mask: Uint8Array, variants: readonly Variant[], budget = Infinity): number => {
+    work += BIN_OVERHEAD * (variants.length === 1 ? 1 : variants.length + 1);
     // Only the orientations of types that may and can still be placed.
     const options: Orientation[] = [];
     let minSide = Infinity;
@@ -160,6 +192,7 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
       for (const variant of variants) {
         const trial = context(options, minSide, mask, variant, false, budget, counts.slice());
         const area = fillTree(trees[bin], trial);
+        work += trial.work;
         if (area > bestArea) {
           bestArea = area;
           best = variant;
@@ -168,6 +201,7 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
     }
     const ctx = context(options, minSide, mask, best, true, budget, counts);
     fillTree(trees[bin], ctx);
+    work += ctx.work;
     binPieces[bin] += ctx.placedCount;
     placedArea += ctx.placedArea;
     placedCount += ctx.placedCount;
@@ -209,6 +243,7 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
     placedArea,
     placedCount,
     minimumDeficit,
+    work,
   };
 }
 
@@ -225,14 +260,43 @@ export function betterPlan(a: PlanState, b: PlanState): boolean {
  */
 export function runStrategies(model: PlanModel): PlanState[] {
   const pinned = placePinnedPieces(model);
+  const { core, extra } = strategies(model);
   const states: PlanState[] = [];
-  for (const strategy of strategies(model)) {
+  let spent = 0;
+  let runs = 0;
+  const done = (state: PlanState) => state.minimumDeficit === 0 && state.counts.every((c) => c === 0);
+  for (const strategy of core) {
     const state = run(model, strategy, pinned);
     states.push(state);
-    if (state.minimumDeficit === 0 && state.counts.every((c) => c === 0)) break;
+    spent += state.work;
+    runs += fillRuns(strategy);
+    if (done(state)) return states;
+  }
+  // Further orders while the effort budget lasts, judged by the effort of a run so far.
+  for (const strategy of extra) {
+    if (spent + (spent / runs) * fillRuns(strategy) > WORK_BUDGET) continue;
+    const state = run(model, strategy, pinned);
+    states.push(state);
+    spent += state.work;
+    runs += fillRuns(strategy);
+    if (done(state)) break;
   }
   return states;
 }
+
+/** Fill runs one bin takes under a strategy: one per variant tried, and the real one. */
+function fillRuns(strategy: Strategy): number {
+  return strategy.variants.length === 1 ? 1 : strategy.variants.length + 1;
+}
+
+/**
+ * Effort (options looked at) the search may spend on further orders. It
+ * counts work, not time, so the plan is the same on every machine.
+ */
+export const WORK_BUDGET = 100_000;
+
+/** Effort counted for each fill of a bin besides the options looked at (setting it up, walking its tree). */
+const BIN_OVERHEAD = 50;
 
 /** The best plan of every strategy (the earliest among equals). */
 export function searchPlan(model: PlanModel): PlanState {

@@ -60,6 +60,7 @@ export function extraLength(
     minSide: 0,
     variant: VARIANTS[0],
     build: true,
+    work: 0,
     placedArea: 0,
     placedValue: 0,
     placedCount: 0,
