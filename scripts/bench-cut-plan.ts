@@ -208,7 +208,7 @@ function perfectSheet(name: string, seed: number, side: number, count: number): 
   };
 }
 
-export const INSTANCES: Instance[] = [
+const INSTANCES: Instance[] = [
   realisticInstance('cushion set, 10 g / 50 p', 101, 10, 50, 1.2),
   realisticInstance('baby quilt, 12 g / 80 p', 102, 12, 80, 0.8),
   realisticInstance('lap quilt, 18 g / 150 p', 103, 18, 150, 1.1),
@@ -275,7 +275,7 @@ const restrictedFirst = (a: Copy, b: Copy) =>
  * maxrects-packer: one bin per panel, largest panels first; copies offered
  * restricted ones first, then longest side first (the library's own order).
  */
-export function runMaxRects(input: CutPlanInput): Outcome {
+function runMaxRects(input: CutPlanInput): Outcome {
   const copies = copiesOf(input).sort(
     (a, b) => restrictedFirst(a, b) || Math.max(b.w, b.h) - Math.max(a.w, a.h) || b.w * b.h - a.w * a.h,
   );
@@ -398,7 +398,7 @@ interface Row {
   faults: number;
 }
 
-export function main(): void {
+function main(): void {
   const repeats = Number(process.env.BENCH_REPEATS ?? 15);
   console.log(
     `Cut planner benchmark, ${new Date().toISOString()}, Node ${process.version}, ${os.cpus().length} cores, ` +
@@ -499,4 +499,4 @@ export function main(): void {
   if (checks.some(([, ok]) => !ok)) process.exitCode = 1;
 }
 
-if (!process.env.BENCH_IMPORT) main();
+main();

@@ -58,6 +58,7 @@ describe('planCuts: pieces that tile a panel exactly', () => {
 describe('planCuts: turning, grain and directional prints', () => {
   const rect = { id: 'r', width: 10, height: 4, count: 1 };
 
+  // derived: a 10 x 4 piece fits a 5 x 12 panel only turned (4 <= 5, 10 <= 12).
   it('turns a piece by 90 degrees where that is the only way it fits', () => {
     const plan = planChecked({ panels: [{ garmentId: 'g', panelId: 'p', width: 5, height: 12 }], pieces: [rect] });
     expect(plan.placements[0]).toMatchObject({ rotated: true, width: 4, height: 10 });
@@ -93,6 +94,7 @@ describe('planCuts: turning, grain and directional prints', () => {
       panels: [{ garmentId: 'g', panelId: 'p', width: 12, height: 12 }],
       pieces: [square('big', 12.5, 2)],
     });
+    // derived: two 12 1/2 in squares side by side, 25 x 12 1/2 in, have exactly their area.
     expect(plan.shortfall.pieces[0]).toMatchObject({
       reason: 'no-panel-large-enough',
       count: 2,
@@ -108,6 +110,7 @@ describe('planCuts: source rules', () => {
     { garmentId: 'red-dress', panelId: 'red-skirt', width: 20, height: 20 },
   ];
 
+  // derived: each 20 in panel holds four 10 in squares, so the blues hold all 8.
   it('cuts a named-garment piece only from that garment, and a group piece only from the group', () => {
     const blues: PieceSource = { kind: 'garment-group', name: 'the blues', garmentIds: ['blue-shirt', 'navy-shirt'] };
     const plan = planChecked({
@@ -237,6 +240,7 @@ describe('planCuts: garment minimums', () => {
       pieces: [square('sq', 6.5, 10)],
       rules: { garmentMinimums: [{ garmentId: 'hankie', count: 1 }, { garmentId: 'a', count: 20 }, { garmentId: 'ghost', count: 1 }] },
     });
+    // derived: a 20 in square panel holds floor(20 / 6.5)^2 = 9 squares of 6 1/2 in.
     expect(plan.shortfall.garmentMinimums).toEqual([
       expect.objectContaining({ garmentId: 'a', required: 20, achieved: 9, reason: 'not-enough-area' }),
       expect.objectContaining({ garmentId: 'hankie', achieved: 0, reason: 'no-panel-large-enough' }),

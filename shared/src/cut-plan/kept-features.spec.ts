@@ -12,6 +12,11 @@ describe('kept features', () => {
     expect(tree?.kind === 'split' && tree.children[tree.children.length - 1]).toEqual(emptyNode(6, 0, 14, 10));
   });
 
+  it('frames with horizontal or vertical cuts first when asked', () => {
+    expect(separate({ x: 0, y: 0, w: 20, h: 10 }, [fixed(2, 2, 4, 4)], 'h')).toMatchObject({ kind: 'split', dir: 'h' });
+    expect(separate({ x: 0, y: 0, w: 20, h: 10 }, [fixed(2, 2, 4, 4)], 'v')).toMatchObject({ kind: 'split', dir: 'v' });
+  });
+
   it('cuts several fixed pieces apart when a full cut separates them, and refuses a pinwheel', () => {
     expect(separate({ x: 0, y: 0, w: 20, h: 20 }, [fixed(0, 0, 5, 5), fixed(10, 10, 5, 5)])).not.toBeNull();
     const pinwheel = [fixed(0, 0, 2, 1), fixed(2, 0, 1, 2), fixed(1, 2, 2, 1), fixed(0, 1, 1, 2)];
