@@ -1,9 +1,9 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
-import { Observable, catchError, firstValueFrom, map, of, tap } from 'rxjs';
+import { Observable, catchError, firstValueFrom, from, map, of, switchMap, tap, throwError } from 'rxjs';
 import * as z from 'zod/mini';
 
-import { REPORT_API_ERRORS } from './api-error';
+import { REPORT_API_ERRORS, apiErrorOf } from './api-error';
 import { User, homeFor, userSchema } from './user';
 
 const meSchema = z.object({ user: z.nullable(userSchema) });
@@ -31,29 +31,38 @@ export class Auth {
     return firstValueFrom(me$).then((user) => this.currentUser.set(user));
   }
 
-  /** Errors are left to the sign-in form, which shows them beside the fields. */
+  /**
+   * Errors are left to the sign-in form, which shows them beside the fields.
+   * A refused security token (an old tab, an ended session) is fetched afresh
+   * and the sign-in tried once more.
+   */
   signIn(email: string, password: string): Observable<User> {
-    return this.http
-      .post<unknown>(
+    const attempt = () =>
+      this.http.post<unknown>(
         '/api/auth/sign-in',
         { email, password },
         { context: new HttpContext().set(REPORT_API_ERRORS, false) },
-      )
-      .pipe(
-        map((body) => signInSchema.parse(body).user),
-        map((user) => {
-          this.currentUser.set(user);
-          return user;
-        }),
       );
+    return attempt().pipe(
+      catchError((error: unknown) =>
+        apiErrorOf(error)?.code === 'csrf'
+          ? from(this.load()).pipe(switchMap(() => attempt()))
+          : throwError(() => error),
+      ),
+      map((body) => signInSchema.parse(body).user),
+      tap((user) => this.currentUser.set(user)),
+    );
   }
 
+  /**
+   * Ends the session, then asks the server again who this is: that also
+   * brings the new security token the next sign-in needs.
+   */
   signOut(): Observable<void> {
-    // Forgotten before the caller hears back, so the sign-in page opens for nobody.
-    const forget = () => this.currentUser.set(null);
     return this.http.post<void>('/api/auth/sign-out', null).pipe(
+      catchError(() => of(null)),
+      switchMap(() => from(this.load())),
       map(() => undefined),
-      tap({ complete: forget, error: forget }),
     );
   }
 
