@@ -157,6 +157,18 @@ describe('planCuts: studio fabric', () => {
     expect(plan.panels[0].cuts.filter((c) => c.stage === 1)).toHaveLength(6);
   });
 
+  it('lays pieces on fabric bought by length the way that needs the least length', () => {
+    // derived: 2 1/2 x 12 1/2 in strips laid across 42 in go 3 to a 2 1/2 in
+    // strip, 8 strips = 20 in; laid along they go 16 to a 12 1/2 in strip,
+    // 2 strips = 25 in.
+    const plan = planChecked({
+      panels: [],
+      studioFabrics: [{ fabricId: 'white', width: 42, length: 'unlimited' }],
+      pieces: [{ id: 'sashing', width: 2.5, height: 12.5, count: 24, source: { kind: 'studio-fabric', fabricId: 'white' } }],
+    });
+    expect(plan.studioFabrics[0].lengthUsed).toBe(20);
+  });
+
   it('reports the extra length a finite piece of fabric would need', () => {
     // derived: 36 in holds 5 strips of 6 1/2 in (32 1/2 in), so 30 squares; the
     // other 10 need 2 more strips, 13 in.

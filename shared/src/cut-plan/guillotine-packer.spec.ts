@@ -17,6 +17,7 @@ function context(options: Orientation[], counts: number[], build = true, variant
     variant,
     build,
     work: 0,
+    length: 0,
     placedArea: 0,
     placedValue: 0,
     placedCount: 0,

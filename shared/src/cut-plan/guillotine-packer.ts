@@ -85,6 +85,8 @@ export interface FillContext {
   build: boolean;
   /** Options looked at so far: a measure of the effort spent, the same on every machine. */
   work: number;
+  /** Length of unlimited fabric used so far, in steps. */
+  length: number;
   /** Square steps placed so far. */
   placedArea: number;
   /** Square steps placed, each times its type's weight. */
@@ -164,7 +166,14 @@ function choose(ctx: FillContext, w: number, h: number, unbounded: boolean): Pic
         if (rest > 0 && !(Math.min(rest, o.w) >= minShort && Math.max(rest, o.w) >= minLong)) used += rest * o.w;
         if (beside > 0 && !(Math.min(beside, h) >= minShort && Math.max(beside, h) >= minLong)) used += beside * h;
       }
-      const util = (n * o.area) / used;
+      let util = (n * o.area) / used;
+      if (unbounded) {
+        // Fabric bought by length: judge a way of laying a piece by the length
+        // all its copies would take in such strips, last partial strip included.
+        const perStrip = Math.floor(w / o.w);
+        const strips = Math.ceil(Math.min(left, ctx.budget) / perStrip);
+        util = (Math.min(left, ctx.budget) * o.area) / (w * strips * o.h);
+      }
       const ok = util >= threshold;
       let better: boolean;
       if (best === null) better = true;
@@ -253,6 +262,7 @@ export function fillRegion(ctx: FillContext, x: number, y: number, w: number, h:
     const pick: Pick = { option: chosen.option, dir: chosen.dir, n: chosen.n };
     place(ctx, pick);
     const o = pick.option;
+    if (unbounded) ctx.length += o.h;
     const stripW = pick.dir === 'h' ? w : o.w;
     const stripH = pick.dir === 'h' ? o.h : h;
     const strip = cutStrip(ctx, pick, x, y, stripW, stripH);

@@ -130,6 +130,7 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
         variant: strategy.variants[0],
         build: false,
         work: 0,
+        length: 0,
         placedArea: 0,
         placedValue: 0,
         placedCount: 0,
@@ -169,6 +170,7 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
     variant,
     build,
     work: 0,
+    length: 0,
     placedArea: 0,
     placedValue: 0,
     placedCount: 0,
@@ -186,15 +188,20 @@ function run(model: PlanModel, strategy: Strategy, pinned: ReturnType<typeof pla
       minSide = Math.min(minSide, o.w, o.h);
     }
     if (options.length === 0) return 0;
-    let best = variants[0];
-    if (variants.length > 1) {
+    // Fabric bought by length tries every variant: the shortest length that
+    // holds the most is what to buy.
+    const tried = bins[bin].unbounded ? VARIANTS : variants;
+    let best = tried[0];
+    if (tried.length > 1) {
       let bestArea = -1;
-      for (const variant of variants) {
+      let bestLength = Infinity;
+      for (const variant of tried) {
         const trial = context(options, minSide, mask, variant, false, budget, counts.slice());
         const area = fillTree(trees[bin], trial);
         work += trial.work;
-        if (area > bestArea) {
+        if (area > bestArea || (area === bestArea && trial.length < bestLength)) {
           bestArea = area;
+          bestLength = trial.length;
           best = variant;
         }
       }

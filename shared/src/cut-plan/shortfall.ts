@@ -61,6 +61,7 @@ export function extraLength(
     variant: VARIANTS[0],
     build: true,
     work: 0,
+    length: 0,
     placedArea: 0,
     placedValue: 0,
     placedCount: 0,
