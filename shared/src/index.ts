@@ -37,3 +37,4 @@ export * from './wadding';
 
 // The cut planner.
 export * from './cut-plan/index';
+export * from './money/quote-totals';
