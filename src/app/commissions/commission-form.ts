@@ -15,7 +15,7 @@ import { catchError, map, of } from 'rxjs';
 import { ClientsApi } from '../clients/clients-api';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
-import { lengthText, readLength } from '../shared/length-text';
+import { lengthText, readingText } from '../shared/length-text';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { CommissionDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
@@ -80,8 +80,8 @@ export class CommissionForm {
 
   private readonly value = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
   protected readonly cautions = computed(() => cautionsFor(this.value().ageGroup ?? 'adult'));
-  protected readonly widthReading = computed(() => readLength(this.value().width ?? '', this.value().unit ?? 'in'));
-  protected readonly lengthReading = computed(() => readLength(this.value().length ?? '', this.value().unit ?? 'in'));
+  protected readonly widthReading = computed(() => readingText(this.value().width ?? '', this.value().unit ?? 'in'));
+  protected readonly lengthReading = computed(() => readingText(this.value().length ?? '', this.value().unit ?? 'in'));
   protected readonly saving = signal(false);
   protected readonly formError = signal<string | null>(null);
 

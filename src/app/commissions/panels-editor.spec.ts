@@ -66,6 +66,12 @@ describe('PanelsEditor', () => {
 
     await typeInto('Height', '50 cm');
     expect(await (await field('Height')).getTextHints()).toEqual(['19 5/8 in · 50 cm']);
+
+    // The reading sits under the field, not inside the input's box.
+    const readings = (fixture.nativeElement as HTMLElement).querySelectorAll(
+      '.mat-mdc-form-field-subscript-wrapper [data-testid="length-reading"]',
+    );
+    expect(readings.length).toBe(2);
   });
 
   it("shows the parser's own message for a length it cannot read", async () => {

@@ -12,7 +12,7 @@ import { GRAIN, Grain, Length, LengthUnit, formatInches } from '@keepstitch/shar
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
-import { lengthText, readLength, showMillimetres } from '../shared/length-text';
+import { lengthText, readingText, showMillimetres } from '../shared/length-text';
 import { Panel, PanelDraft } from './commission';
 import { CommissionsApi } from './commissions-api';
 
@@ -104,7 +104,7 @@ export class PanelsEditor {
 
   /** What the typed text reads as, in inches and centimetres. */
   protected reading(text: string) {
-    return readLength(text, this.unitValue());
+    return readingText(text, this.unitValue());
   }
 
   protected savedSize(row: PanelRow): string {

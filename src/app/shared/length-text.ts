@@ -48,3 +48,9 @@ export function lengthText(unit: () => LengthUnit, required = false): ValidatorF
     return reading && !reading.ok ? { length: reading.message } : null;
   };
 }
+
+/** "19 1/2 in · 49.5 cm" for a readable length; null when empty or unreadable. */
+export function readingText(text: string, unit: LengthUnit): string | null {
+  const reading = readLength(text, unit);
+  return reading && reading.ok ? `${reading.imperial} · ${reading.metric}` : null;
+}

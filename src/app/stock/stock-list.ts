@@ -13,7 +13,7 @@ import { FIBRE, Fibre, Length, formatFabricLength } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
-import { lengthText, readLength, showMillimetres } from '../shared/length-text';
+import { lengthText, readingText, showMillimetres } from '../shared/length-text';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { DeleteStockDialog, DeleteStockDialogData } from './delete-stock-dialog';
 import { StockApi } from './stock-api';
@@ -79,8 +79,8 @@ export class StockList {
     notes: new FormControl('', { nonNullable: true }),
   });
   private readonly value = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
-  protected readonly widthReading = computed(() => readLength(this.value().width ?? '', this.value().unit ?? 'in'));
-  protected readonly lengthReading = computed(() => readLength(this.value().length ?? '', this.value().unit ?? 'in'));
+  protected readonly widthReading = computed(() => readingText(this.value().width ?? '', this.value().unit ?? 'in'));
+  protected readonly lengthReading = computed(() => readingText(this.value().length ?? '', this.value().unit ?? 'in'));
   protected readonly status = computed(() => {
     if (this.loading()) return 'Loading studio fabric…';
     if (this.failed()) return 'The studio fabric could not be loaded.';
