@@ -1,15 +1,16 @@
-// The search: a few packing orders, each run through the same phases, and
-// the best plan kept. Deterministic: no randomness, and ties go to the
-// earlier order.
+// The search: a few packing orders (strategies), each run through the same
+// phases, and the best plan kept. Deterministic: no randomness, effort
+// counted in work rather than time, and ties go to the earlier order.
 //
 // Phases of one run:
-//  1. pieces kept around features are fixed in their panels;
+//  1. pieces kept around features are fixed in their panels, framed by
+//     horizontal or vertical cuts first, whichever a trial fill prefers;
 //  2. pieces that must come from particular garments (or a studio fabric)
 //     are packed before pieces that may come from any garment;
 //  3. each garment with a minimum gets that many pieces, the garments with
 //     the least fabric first;
-//  4. every panel is filled with what is left, trying each packer variant
-//     on the panel and keeping the one that places the most area.
+//  4. every panel is filled with what is left, with the strategy's packer
+//     variant, or the best of its variants on that panel.
 
 import { VARIANTS, fillTree, type CutNode, type FillContext, type Variant } from './guillotine-packer';
 import { placePinnedPieces, skeletonTree, type PinnedFailure, type PinnedPlacement } from './kept-features';
