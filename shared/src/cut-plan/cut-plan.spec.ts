@@ -510,6 +510,8 @@ describe('planCuts: property tests (every plan passes the independent checker)',
         const plan = planCuts(input);
         expect(checkPlan(input, plan)).toEqual([]);
         expect(plan.totals.areaPlaced).toBeLessThanOrEqual(plan.totals.fabricArea + 1e-9);
+        // Plain JSON: no NaN or Infinity (they would come back as null).
+        expect(JSON.parse(JSON.stringify(plan))).toEqual(plan);
       }),
       { numRuns: 300, seed: 20261202 },
     );
