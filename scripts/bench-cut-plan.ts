@@ -409,25 +409,25 @@ function main(): void {
   console.log('The peers get the same source, turning and grain rules, and restricted pieces first, through this script\'s harness.');
   console.log('');
 
-  // Warm every code path up once, so no instance is timed on cold code.
-  for (const inst of INSTANCES) {
-    runPlanner(inst.input);
-    runMaxRects(inst.input);
-    runPotpack(inst.input);
-  }
-  // Memory: the planner alone, before the peers have run in this measurement.
+  // Memory: the planner alone, from a cold start, before any peer has run.
   collectGarbage();
   const base = process.memoryUsage();
   peak.rss = base.rss;
   peak.heap = base.heapUsed;
   for (const inst of INSTANCES) {
-    collectGarbage();
     for (let r = 0; r < 3; r++) {
       runPlanner(inst.input);
       sampleMemory();
     }
   }
   const plannerPeak = { ...peak };
+
+  // Warm every code path up, so no instance is timed on cold code.
+  for (const inst of INSTANCES) {
+    runPlanner(inst.input);
+    runMaxRects(inst.input);
+    runPotpack(inst.input);
+  }
 
   // Time: the three take turns on each instance.
   const rows: Row[] = INSTANCES.map((inst) => {
