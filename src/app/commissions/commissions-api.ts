@@ -25,6 +25,7 @@ import {
   panelSchema,
   stageReplySchema,
 } from './commission';
+import { withoutNulls } from '../shared/without-nulls';
 
 /** Errors of these calls are shown by the page beside the form that sent them. */
 const quiet = { context: new HttpContext().set(REPORT_API_ERRORS, false) };
@@ -59,7 +60,7 @@ export class CommissionsApi {
 
   create(draft: CommissionDraft): Observable<Commission> {
     return this.http
-      .post<unknown>('/api/commissions', draft, quiet)
+      .post<unknown>('/api/commissions', withoutNulls(draft), quiet)
       .pipe(map((body) => commissionSchema.parse(body)));
   }
 
@@ -77,7 +78,7 @@ export class CommissionsApi {
 
   addGarment(commissionId: number, draft: GarmentDraft): Observable<GarmentDetail> {
     return this.http
-      .post<unknown>(`/api/commissions/${commissionId}/garments`, draft, quiet)
+      .post<unknown>(`/api/commissions/${commissionId}/garments`, withoutNulls(draft), quiet)
       .pipe(map((body) => garmentSchema.parse(body)));
   }
 

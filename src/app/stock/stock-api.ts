@@ -3,6 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
 import { REPORT_API_ERRORS } from '../core/api-error';
+import { withoutNulls } from '../shared/without-nulls';
 import { StockDraft, StockItem, stockItemSchema, stockListSchema } from './stock-item';
 
 const quiet = { context: new HttpContext().set(REPORT_API_ERRORS, false) };
@@ -17,11 +18,14 @@ export class StockApi {
   }
 
   create(draft: StockDraft): Observable<StockItem> {
-    return this.http.post<unknown>('/api/stock', draft, quiet).pipe(map((body) => stockItemSchema.parse(body)));
+    return this.http.post<unknown>('/api/stock', withoutNulls(draft), quiet).pipe(map((body) => stockItemSchema.parse(body)));
   }
 
   update(id: number, changes: Partial<StockDraft>): Observable<StockItem> {
-    return this.http.patch<unknown>(`/api/stock/${id}`, changes, quiet).pipe(map((body) => stockItemSchema.parse(body)));
+    // Fibre and cost unit are choices, never blank; other empty fields are cleared with null.
+    const { fibre, costUnit, ...rest } = changes;
+    const body = { ...rest, ...(fibre ? { fibre } : {}), ...(costUnit ? { costUnit } : {}) };
+    return this.http.patch<unknown>(`/api/stock/${id}`, body, quiet).pipe(map((body) => stockItemSchema.parse(body)));
   }
 
   remove(id: number): Observable<void> {
