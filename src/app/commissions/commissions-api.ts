@@ -88,7 +88,7 @@ export class CommissionsApi {
 
   recordEvent(garmentId: number, event: CustodyEventDraft) {
     return this.http
-      .post<unknown>(`/api/garments/${garmentId}/events`, event, quiet)
+      .post<unknown>(`/api/garments/${garmentId}/events`, withoutNulls(event), quiet)
       .pipe(map((body) => eventReplySchema.parse(body)));
   }
 
