@@ -47,7 +47,8 @@ export type CutNode = PieceNode | EmptyNode | SplitNode;
  * the copies over the area the strip uses up, counting slivers no piece fits)
  * reaches `threshold`, it takes the one of the highest-ranked piece (then the
  * largest); if none does, the best-filled one. `dirs` limits the strip
- * direction.
+ * direction. On fabric of unlimited length a way of laying a piece is judged
+ * instead by the length all its copies would take.
  */
 export interface Variant {
   name: string;
