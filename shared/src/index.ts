@@ -38,3 +38,6 @@ export * from './wadding';
 // The cut planner.
 export * from './cut-plan/index';
 export * from './money/quote-totals';
+
+// A commission's design: derivation, drawing and its cut plan.
+export * from './design/index';

@@ -1,0 +1,124 @@
+// A commission's design as the maker sets it: target size, blocks, layout,
+// which fabric goes where, and the finishing choices. Stored as JSON (every
+// length an exact millimetre decimal string) and derived by derive-design.ts.
+
+/** The kinds of block a design may use. */
+export type BlockKind = 'square' | 'rectangles' | 'hst' | 'qst' | 'flying-geese' | 'foundation' | 'plate' | 'fan';
+
+export const BLOCK_KIND_LABELS: Readonly<Record<BlockKind, string>> = {
+  square: 'Plain square',
+  rectangles: 'Rectangles (rails)',
+  hst: 'Half-square triangles',
+  qst: 'Quarter-square triangles',
+  'flying-geese': 'Flying geese',
+  foundation: 'Stitch-and-flip foundation',
+  plate: 'Plate',
+  fan: 'Fan',
+};
+
+export const BLOCK_KINDS = Object.keys(BLOCK_KIND_LABELS) as BlockKind[];
+
+/** The piece kinds ("roles") of each block kind; the first takes a position's fabric. */
+export const BLOCK_ROLES: Readonly<Record<BlockKind, readonly string[]>> = {
+  square: ['square'],
+  rectangles: ['rail'],
+  hst: ['dark', 'light'],
+  qst: ['dark', 'light'],
+  'flying-geese': ['goose', 'sky'],
+  foundation: ['strip', 'foundation'],
+  plate: ['blades', 'centre', 'background'],
+  fan: ['blades', 'corner', 'background'],
+};
+
+export interface BlockSpec {
+  /** Short id used by the pattern and assignments, e.g. "A". */
+  id: string;
+  name: string;
+  kind: BlockKind;
+  /**
+   * rectangles: rails in the block; hst / qst: units along each side;
+   * flying-geese: geese down each column (even; the block holds units x units/2 geese).
+   */
+  units?: number;
+  /** flying-geese only. */
+  method?: 'four-at-a-time' | 'stitch-and-flip';
+  /** plate and fan. */
+  blades?: number;
+  outerRadiusMm?: string;
+  innerRadiusMm?: string;
+  /** foundation: mean showing width of the strips. */
+  meanStripWidthMm?: string;
+}
+
+/** A fabric: one garment, a group of garments (the planner picks among them), or a studio stock fabric. */
+export type FabricRef =
+  | { kind: 'garment'; garmentId: number }
+  | { kind: 'group'; name: string; garmentIds: number[] }
+  | { kind: 'stock'; stockId: number };
+
+/**
+ * What an assignment covers: a block position (every piece of that block), or
+ * a piece kind: `block:<id>:<role>`, `sashing`, `cornerstones`,
+ * `border:<n>` (1 = innermost) or `setting-triangles`.
+ * A piece-kind assignment wins over a position's.
+ */
+export type AssignmentTarget = { kind: 'position'; index: number } | { kind: 'piece'; key: string };
+
+export interface Assignment {
+  target: AssignmentTarget;
+  fabric: FabricRef;
+}
+
+export interface DesignBody {
+  /** How the maker reads sizes; metric also cuts to the millimetre. */
+  units: 'imperial' | 'metric';
+  target: {
+    /** A mattress preset id (bed-sizes.ts) or null for a custom size. */
+    preset: string | null;
+    dropMm: string | null;
+    widthMm: string;
+    lengthMm: string;
+  };
+  layout: {
+    setting: 'straight' | 'on-point';
+    /** Straight: rows and columns of blocks. On point: whole blocks down and across. */
+    rows: number;
+    columns: number;
+    /** Finished block side. */
+    blockMm: string;
+    sashing: { widthMm: string; cornerstones: boolean } | null;
+    /** Border widths, innermost first. */
+    borders: string[];
+  };
+  blocks: BlockSpec[];
+  /** Block id at each position, row by row; a shorter list repeats. */
+  pattern: string[];
+  assignments: Assignment[];
+  finishing: {
+    bindingStockId: number | null;
+    bindingStripMm: string;
+    backingStockId: number | null;
+    waddingStockId: number | null;
+    /** Studio fabric bought for this piece will be pre-washed. */
+    prewash: boolean;
+    /** Shrinkage allowed for when pre-washing, in percent (common practice 2 to 5 for cotton). */
+    shrinkPercent: string;
+  };
+  rules: {
+    /** Pieces each garment must give at least (0: no rule). */
+    minimumPerGarment: number;
+  };
+}
+
+/** A stable text key for a fabric reference. */
+export function fabricKey(fabric: FabricRef | null): string {
+  if (!fabric) return 'any';
+  switch (fabric.kind) {
+    case 'garment':
+      return `garment:${fabric.garmentId}`;
+    case 'stock':
+      return `stock:${fabric.stockId}`;
+    case 'group':
+      return `group:${[...fabric.garmentIds].sort((a, b) => a - b).join(',')}`;
+  }
+}
