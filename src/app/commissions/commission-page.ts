@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { AbstractControl, FormControl, FormGroup, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -99,13 +99,17 @@ export class CommissionPage {
   protected readonly loggingHours = signal(false);
   protected readonly hoursError = signal<string | null>(null);
 
+  protected readonly garmentPhotos = computed(() => (this.commission()?.garments ?? []).flatMap((g) => g.photos ?? []));
   protected readonly hoursByStage = computed(() => {
     const byStage = this.commission()?.hours?.byStage ?? {};
     return ALL_STAGES.filter((s) => byStage[s] !== undefined).map((s) => ({ stage: s, hours: byStage[s] }));
   });
 
   constructor() {
-    effect(() => this.load(this.commissionId()));
+    effect(() => {
+      const id = this.commissionId();
+      untracked(() => this.load(id));
+    });
   }
 
   protected load(id = this.commissionId()): void {

@@ -1,5 +1,5 @@
 import { DatePipe, NgTemplateOutlet } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -107,7 +107,10 @@ export class GarmentPage {
   );
 
   constructor() {
-    effect(() => this.load(Number(this.garmentId())));
+    effect(() => {
+      const id = Number(this.garmentId());
+      untracked(() => this.load(id));
+    });
   }
 
   protected load(id = Number(this.garmentId())): void {

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -75,7 +75,10 @@ export class PortalCommission {
   });
 
   constructor() {
-    effect(() => this.load(Number(this.id())));
+    effect(() => {
+      const id = Number(this.id());
+      untracked(() => this.load(id));
+    });
   }
 
   protected load(id = Number(this.id())): void {

@@ -1,0 +1,136 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { HarnessLoader } from '@angular/cdk/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { ComponentFixture, TestBed } from '@angular/core/testing';
+import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatFormFieldHarness } from '@angular/material/form-field/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
+import { provideRouter } from '@angular/router';
+import { cautionsFor } from '@keepstitch/shared';
+
+import { signedInAs } from '../../testing/signed-in-as';
+import { Notices } from '../core/notices';
+import { CommissionDetail } from './commission';
+import { CommissionPage } from './commission-page';
+
+const detail: CommissionDetail = {
+  id: 3,
+  clientId: 4,
+  client: { id: 4, name: 'Imogen Tallis' },
+  title: 'Cot hanging from baby clothes',
+  kind: 'wall_hanging',
+  recipient: 'Baby Ada',
+  ageGroup: 'baby_under_1',
+  occasion: null,
+  sizePreset: null,
+  widthMm: null,
+  lengthMm: null,
+  deadline: '2027-02-01',
+  daysLeft: 61,
+  overdue: false,
+  stage: 'booked',
+  createdAt: '2026-10-01T09:00:00Z',
+  cautions: cautionsFor('baby_under_1'),
+  garments: [
+    { id: 21, description: 'Sleepsuit with ducks', whose: 'Ada', fibre: 'cotton', status: 'in_studio', place: 'Box 2', photos: [] },
+  ],
+  progressPhotos: [],
+  stageHistory: [{ id: 1, fromStage: null, toStage: 'enquiry', note: 'Opened', movedAt: '2026-10-01T09:00:00Z' }],
+  hours: { entries: [], byStage: { booked: '1.50' }, total: '1.50' },
+  nextStages: ['enquiry', 'quoted', 'garments_in', 'cancelled'],
+  facts: { garmentCount: 1, garmentsReceived: 1 },
+};
+
+describe('CommissionPage', () => {
+  let fixture: ComponentFixture<CommissionPage>;
+  let loader: HarnessLoader;
+  let httpMock: HttpTestingController;
+  let page: HTMLElement;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      imports: [CommissionPage],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        signedInAs('owner'),
+        { provide: Notices, useValue: jasmine.createSpyObj<Notices>('Notices', ['info', 'error']) },
+      ],
+    });
+    fixture = TestBed.createComponent(CommissionPage);
+    fixture.componentRef.setInput('id', '3');
+    loader = TestbedHarnessEnvironment.loader(fixture);
+    httpMock = TestBed.inject(HttpTestingController);
+    page = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+    httpMock.expectOne('/api/commissions/3').flush(detail);
+    await fixture.whenStable();
+  });
+
+  afterEach(() => httpMock.verify());
+
+  async function field(label: string) {
+    return loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }));
+  }
+
+  it('shows the safe-sleep caution as a note with its source, and the garments', () => {
+    const card = page.querySelector('[data-testid="caution-safe_sleep"]');
+    expect(card?.getAttribute('role')).toBe('note');
+    expect(card?.textContent).toContain('AAP safe-sleep policy');
+    const rows = page.querySelectorAll('[data-testid="garment-row"]');
+    expect(rows.length).toBe(1);
+    expect(rows[0].textContent).toContain('In the studio');
+    expect(rows[0].textContent).toContain('Box 2');
+  });
+
+  it('asks for a note before moving back a stage, then sends it', async () => {
+    const next = (await (await field('Next stage')).getControl(MatSelectHarness))!;
+    await next.clickOptions({ text: 'Enquiry' });
+    await fixture.whenStable();
+    const move = await loader.getHarness(MatButtonHarness.with({ text: 'Move to stage' }));
+    await move.click();
+    httpMock.expectNone('/api/commissions/3/stage');
+    expect(await (await field('Note')).getTextErrors()).toEqual(['Say why it goes back or is cancelled']);
+
+    await (await (await field('Note')).getControl(MatInputHarness))!.setValue('Client wants to rethink the size');
+    await move.click();
+    const request = httpMock.expectOne('/api/commissions/3/stage');
+    expect(request.request.body).toEqual({ to: 'enquiry', note: 'Client wants to rethink the size' });
+    request.flush({ id: 3, stage: 'enquiry', nextStages: [] });
+    httpMock.expectOne('/api/commissions/3').flush({ ...detail, stage: 'enquiry' });
+    await fixture.whenStable();
+    expect(page.querySelector('[data-testid="current-stage"]')?.textContent).toContain('Enquiry');
+  });
+
+  it("shows the server's reason when a move forward is refused", async () => {
+    const next = (await (await field('Next stage')).getControl(MatSelectHarness))!;
+    await next.clickOptions({ text: 'Garments in' });
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Move to stage' }))).click();
+    httpMock.expectOne('/api/commissions/3/stage').flush(
+      { error: { code: 'stage_refused', message: 'Record at least one garment as received first.' } },
+      { status: 409, statusText: 'Conflict' },
+    );
+    await fixture.whenStable();
+    expect(page.textContent).toContain('Record at least one garment as received first.');
+  });
+
+  it('logs hours in quarter steps and refuses other amounts', async () => {
+    const hours = (await (await field('Hours')).getControl(MatInputHarness))!;
+    await hours.setValue('1.3');
+    const log = await loader.getHarness(MatButtonHarness.with({ text: 'Log hours' }));
+    await log.click();
+    httpMock.expectNone('/api/commissions/3/hours');
+    expect(await (await field('Hours')).getTextErrors()).toEqual(['Quarter hours from 0.25 to 24']);
+
+    await hours.setValue('1.75');
+    await (await (await field('Date')).getControl(MatInputHarness))!.setValue('2026-11-30');
+    await log.click();
+    const request = httpMock.expectOne('/api/commissions/3/hours');
+    expect(request.request.body).toEqual({ stage: 'booked', hours: 1.75, workedOn: '2026-11-30' });
+    request.flush({}, { status: 201, statusText: 'Created' });
+    httpMock.expectOne('/api/commissions/3').flush(detail);
+  });
+});
