@@ -21,6 +21,12 @@ import { commissionsRouter } from './commissions/commissions-router';
 import { garmentsRouter } from './garments/garments-router';
 import { photosRouter } from './photos/photos-router';
 import { stockRouter } from './stock/stock-router';
+import { settingsRouter } from './settings/settings-router';
+import { quotesRouter } from './quotes/quotes-router';
+import { mailRouter } from './mail/mail-router';
+import { paymentsRouter, paymentsWebhookRouter } from './payments/payments-router';
+import { createPaymentProvider } from './payments/payment-provider';
+import type Stripe from 'stripe';
 
 export const SESSION_COOKIE = 'ks.sid';
 
@@ -30,10 +36,15 @@ export interface AppDeps {
   /** pg pool the session store uses. */
   sessionPool: Pool;
   log?: (err: unknown) => void;
+  /** Asks the outbox worker to deliver now (mail was just queued). */
+  kickMail?: () => void;
+  /** The payment provider's SDK; by default built from the configuration. */
+  paymentProvider?: Stripe;
 }
 
 /** Builds the Express app (API and, when built, the Angular app) without listening. */
-export function createApp({ config, knex, sessionPool, log }: AppDeps): Express {
+export function createApp({ config, knex, sessionPool, log, kickMail = () => undefined, paymentProvider }: AppDeps): Express {
+  const provider = paymentProvider ?? createPaymentProvider(config);
   Model.knex(knex);
   const passport = configurePassport();
   const csrf = createCsrf(config.sessionSecret, config.secureCookies);
@@ -68,6 +79,8 @@ export function createApp({ config, knex, sessionPool, log }: AppDeps): Express 
 
   // Health answers even when sessions cannot be read (the database is down).
   app.use(healthRouter(knex));
+  // The payment provider signs its webhooks; they need the raw body and no session or CSRF token.
+  app.use(paymentsWebhookRouter(provider, config, knex, kickMail));
 
   app.use('/api', express.json({ limit: '200kb' }));
   app.use(cookieParser());
@@ -95,10 +108,14 @@ export function createApp({ config, knex, sessionPool, log }: AppDeps): Express 
   );
   app.use(clientsRouter());
   app.use(usersRouter());
-  app.use(commissionsRouter());
+  app.use(commissionsRouter(config, kickMail));
   app.use(garmentsRouter());
   app.use(photosRouter(config.uploadDir));
   app.use(stockRouter());
+  app.use(settingsRouter());
+  app.use(quotesRouter(config, kickMail));
+  app.use(paymentsRouter(provider, config));
+  app.use(mailRouter(config, kickMail));
   assertPolicyCovered();
 
   app.use('/api', apiNotFound);

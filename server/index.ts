@@ -3,6 +3,7 @@ import { createServer } from 'node:http';
 import { loadConfig } from './core/config';
 import { createKnex } from './core/database';
 import { createApp } from './app';
+import { startOutboxWorker } from './mail/mailer';
 
 /** Starts the server; SIGINT/SIGTERM close the listener and the database pools. */
 async function main(): Promise<void> {
@@ -16,7 +17,8 @@ async function main(): Promise<void> {
   const knex = createKnex(config.databaseUrl);
   const sessionPool = new Pool({ connectionString: config.databaseUrl, max: 5 });
   sessionPool.on('error', (err) => console.error('Session pool:', err.message));
-  const app = createApp({ config, knex, sessionPool });
+  const outbox = startOutboxWorker(knex, config);
+  const app = createApp({ config, knex, sessionPool, kickMail: outbox.kick });
   const server = createServer(app);
 
   let stopping = false;
@@ -26,6 +28,7 @@ async function main(): Promise<void> {
     console.log(`\nKeepstitch: ${signal} received, stopping.`);
     const force = setTimeout(() => process.exit(1), 10_000);
     force.unref();
+    outbox.stop();
     server.close(async () => {
       await Promise.allSettled([knex.destroy(), sessionPool.end()]);
       console.log('Keepstitch: stopped.');

@@ -3,10 +3,11 @@ import { parseId, parseInput } from '../core/validate';
 import { createCommissionSchema, hoursSchema, listCommissionsQuerySchema, stageMoveSchema, updateCommissionSchema } from './commissions-schemas';
 import * as commissions from './commissions-service';
 import type { Stage } from '@keepstitch/shared';
+import type { AppConfig } from '../core/config';
 
 const WHAT = 'That commission';
 
-export function commissionsRouter() {
+export function commissionsRouter(config: AppConfig, kickMail: () => void) {
   const r = securedRouter('/api/commissions');
 
   r.get('/', async (req, res) => {
@@ -32,7 +33,9 @@ export function commissionsRouter() {
   r.post('/:id/stage', async (req, res) => {
     const id = parseId(req.params['id'], WHAT);
     const { to, note } = parseInput(stageMoveSchema, req.body, 'stage move');
-    res.json(await commissions.moveStage(req.user!, id, to as Stage, note));
+    const moved = await commissions.moveStage(req.user!, id, to as Stage, note, config.appUrl);
+    if (moved.mailed) kickMail();
+    res.json({ id: moved.id, stage: moved.stage, nextStages: moved.nextStages });
   });
 
   r.post('/:id/hours', async (req, res) => {

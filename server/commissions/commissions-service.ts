@@ -7,6 +7,10 @@ import { custodyStates } from '../garments/custody';
 import { PhotoModel } from '../photos/photo-model';
 import { CommissionModel, HoursModel, StageMoveModel } from './commission-model';
 import type { CreateCommissionInput, ListCommissionsQuery, UpdateCommissionInput } from './commissions-schemas';
+import { paymentState } from '../payments/payment-state';
+import { enqueueMail } from '../mail/outbox-service';
+import { readyMail } from '../mail/mail-templates';
+import { StudioSettingsModel } from '../settings/settings-model';
 
 const NOT_FOUND = 'That commission';
 
@@ -84,7 +88,8 @@ async function stageFacts(commissionId: number, trx?: Knex.Transaction): Promise
   const garments = await GarmentModel.query(trx).select('id').where('commissionId', commissionId);
   const states = await custodyStates(garments.map((g) => g.id), trx);
   const live = [...states.values()].filter((s) => s.state.status !== 'withdrawn');
-  return { garmentCount: live.length, garmentsReceived: live.filter((s) => s.state.received).length };
+  const money = await paymentState(commissionId, trx);
+  return { garmentCount: live.length, garmentsReceived: live.filter((s) => s.state.received).length, balanceDue: !!money && !money.balancePaid && money.balancePence > 0 };
 }
 
 export async function getCommission(user: Express.User, id: number) {
@@ -177,7 +182,7 @@ export async function updateCommission(user: Express.User, id: number, input: Up
   return shape(c, user);
 }
 
-export async function moveStage(user: Express.User, id: number, to: Stage, note: string | null | undefined) {
+export async function moveStage(user: Express.User, id: number, to: Stage, note: string | null | undefined, appUrl: string) {
   return CommissionModel.transaction(async (trx) => {
     const c = await CommissionModel.query(trx).findById(id).forUpdate();
     if (!c) throw AppError.notFound(NOT_FOUND);
@@ -190,8 +195,21 @@ export async function moveStage(user: Express.User, id: number, to: Stage, note:
     }
     await StageMoveModel.query(trx).insert({ commissionId: id, fromStage: c.stage, toStage: to, note: note ?? null, movedBy: user.id });
     await CommissionModel.query(trx).patch({ stage: to }).findById(id);
-    return { id, stage: to, nextStages: nextStages(to, facts) };
+    let mailed = false;
+    if (to === 'ready') mailed = await tellClientReady(trx, c, appUrl);
+    return { id, stage: to, nextStages: nextStages(to, facts), mailed };
   });
+}
+
+/** "Your piece is ready", queued with the move that made it so. */
+async function tellClientReady(trx: Knex.Transaction, c: CommissionModel, appUrl: string): Promise<boolean> {
+  const client = await ClientModel.query(trx).findById(c.clientId);
+  if (!client?.email) return false;
+  const settings = await StudioSettingsModel.query(trx).findById(1);
+  const money = await paymentState(c.id, trx);
+  const mail = readyMail({ clientName: client.name, studioName: settings!.studioName, title: c.title, balancePence: money?.balancePaid ? 0 : (money?.balancePence ?? 0), link: `${appUrl}/portal/${c.id}` });
+  await enqueueMail(trx, { kind: 'ready', to: client.email, ...mail, commissionId: c.id });
+  return true;
 }
 
 export async function logHours(user: Express.User, id: number, input: { stage: string; hours: number; workedOn: string; note?: string | null }) {

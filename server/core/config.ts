@@ -3,6 +3,10 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { z } from 'zod';
 
+/** Keys of the local fake payment service, used when no real keys are configured. */
+export const FAKE_PAYMENTS_SECRET_KEY = 'sk_test_keepstitch_local_fake';
+export const FAKE_PAYMENTS_WEBHOOK_SECRET = 'whsec_keepstitch_local_fake';
+
 /** The project's own data folder (git-ignored): database cluster, secrets, uploads. */
 export const DATA_DIR = path.resolve(__dirname, '..', '..', '.data');
 
@@ -23,6 +27,24 @@ const configSchema = z.object({
   webRoot: z.string().min(1),
   /** Folder of uploaded photos: outside the web root, never served directly. */
   uploadDir: z.string().min(1),
+  /** Address the app is reached at, for links in e-mails and payment returns. */
+  appUrl: z.string().url({ message: 'APP_URL must be a URL such as http://127.0.0.1:4300' }),
+  smtp: z.object({
+    host: z.string().min(1),
+    port: z.coerce.number().int().min(1).max(65535),
+    secure: z.boolean(),
+    user: z.string().optional(),
+    password: z.string().optional(),
+  }),
+  mailFrom: z.string().min(3),
+  /** The local fake mail server's message list (development): enables the owner's sent-mail page. */
+  fakeMailApi: z.string().url().optional(),
+  payments: z.object({
+    secretKey: z.string().min(8),
+    webhookSecret: z.string().min(8),
+    /** Where the payment SDK sends its calls: the local fake unless real keys are configured. */
+    apiUrl: z.string().url().optional(),
+  }),
 });
 
 export type AppConfig = z.infer<typeof configSchema>;
@@ -54,6 +76,23 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     signInWindowMs: env['SIGN_IN_WINDOW_MS'] ?? String(15 * 60 * 1000),
     webRoot: env['WEB_ROOT'] ?? path.resolve(__dirname, '..', '..', 'dist', 'keepstitch', 'browser'),
     uploadDir: env['UPLOAD_DIR'] ?? path.join(DATA_DIR, 'uploads'),
+    appUrl: env['APP_URL'] ?? `http://${env['HOST'] ?? '127.0.0.1'}:${env['PORT'] ?? '4300'}`,
+    smtp: {
+      host: env['SMTP_HOST'] ?? '127.0.0.1',
+      port: env['SMTP_PORT'] ?? '2525',
+      secure: env['SMTP_SECURE'] === 'true',
+      user: env['SMTP_USER'] || undefined,
+      password: env['SMTP_PASSWORD'] || undefined,
+    },
+    mailFrom: env['MAIL_FROM'] ?? 'Keepstitch <studio@keepstitch.test>',
+    fakeMailApi: env['FAKE_MAIL_API'] || undefined,
+    payments: env['PAYMENTS_SECRET_KEY']
+      ? { secretKey: env['PAYMENTS_SECRET_KEY'], webhookSecret: env['PAYMENTS_WEBHOOK_SECRET'], apiUrl: env['PAYMENTS_API_URL'] || undefined }
+      : {
+          secretKey: FAKE_PAYMENTS_SECRET_KEY,
+          webhookSecret: env['PAYMENTS_WEBHOOK_SECRET'] ?? FAKE_PAYMENTS_WEBHOOK_SECRET,
+          apiUrl: env['PAYMENTS_API_URL'] ?? 'http://127.0.0.1:12111',
+        },
   };
   const parsed = configSchema.safeParse(raw);
   if (!parsed.success) {

@@ -4,6 +4,9 @@ const EVERYONE: readonly Caller[] = ['anonymous', 'owner', 'workroom', 'client']
 const SIGNED_IN: readonly Caller[] = ['owner', 'workroom', 'client'];
 const OWNER: readonly Caller[] = ['owner'];
 const STUDIO: readonly Caller[] = ['owner', 'workroom'];
+/** Money: the owner and the client it concerns; never the workroom. */
+const CLIENT_OR_OWNER: readonly Caller[] = ['owner', 'client'];
+const CLIENT: readonly Caller[] = ['client'];
 
 /**
  * The one place that says who may call each API route. Routers are built with
@@ -53,6 +56,31 @@ export const ROUTE_POLICY = {
   'POST /api/stock': OWNER,
   'PATCH /api/stock/:id': OWNER,
   'DELETE /api/stock/:id': OWNER,
+
+  'GET /api/settings': OWNER,
+  'PATCH /api/settings': OWNER,
+
+  // Quotes: clients see their own once sent (drafts never).
+  'GET /api/commissions/:id/quotes': CLIENT_OR_OWNER,
+  'POST /api/commissions/:id/quotes': OWNER,
+  'GET /api/quotes/:id': CLIENT_OR_OWNER,
+  'PUT /api/quotes/:id': OWNER,
+  'GET /api/quotes/:id/pdf': CLIENT_OR_OWNER,
+  'POST /api/quotes/:id/send': OWNER,
+  'POST /api/quotes/:id/accept': CLIENT,
+  'POST /api/quotes/:id/decline': CLIENT,
+
+  // Payments: checkout for the client; the provider's webhook carries its own signature.
+  'POST /api/quotes/:id/deposit-checkout': CLIENT,
+  'POST /api/commissions/:id/balance-checkout': CLIENT,
+  'GET /api/commissions/:id/payments': CLIENT_OR_OWNER,
+  'POST /api/commissions/:id/refund-deposit': OWNER,
+  'POST /api/payments/webhook': EVERYONE,
+
+  'GET /api/mail/outbox': OWNER,
+  'POST /api/mail/outbox/:id/retry': OWNER,
+  'GET /api/mail/sent': OWNER,
+  'GET /api/mail/sent/:id/attachments/:n': OWNER,
 } as const satisfies Record<string, readonly Caller[]>;
 
 export type RouteKey = keyof typeof ROUTE_POLICY;

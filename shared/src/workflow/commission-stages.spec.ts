@@ -34,6 +34,11 @@ describe('commission stage moves', () => {
     expect(checkStageMove('ready', 'delivered', allIn).ok).toBe(true);
   });
 
+  it('refuses delivery while the balance of an accepted quote is owed', () => {
+    expect(checkStageMove('ready', 'delivered', { ...allIn, balanceDue: true })).toEqual({ ok: false, reason: 'The balance has not been paid yet; it is due before delivery.' });
+    expect(checkStageMove('ready', 'delivered', { ...allIn, balanceDue: false }).ok).toBe(true);
+  });
+
   it('allows cancelling from any stage but delivered, and nothing after cancelling', () => {
     for (const s of STAGES.filter((x) => x !== 'delivered')) expect(checkStageMove(s, 'cancelled', allIn).ok).toBe(true);
     expect(checkStageMove('delivered', 'cancelled', allIn).ok).toBe(false);

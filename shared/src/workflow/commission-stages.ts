@@ -50,6 +50,8 @@ export interface StageFacts {
   garmentCount: number;
   /** Of those, how many the studio has received. */
   garmentsReceived: number;
+  /** An accepted quote still has money owing. */
+  balanceDue?: boolean;
 }
 
 export type MoveCheck = { ok: true } | { ok: false; reason: string };
@@ -64,6 +66,7 @@ const FIRST_HANDS_ON = stageIndex('garments_in');
  *   "garments in" on each stage is passed one at a time: no cutting before the
  *   garments are in and prepared, no delivery before ready.
  * - "Garments in" needs at least one garment received; cutting needs every garment received.
+ * - Delivery waits for the balance of an accepted quote.
  */
 export function checkStageMove(from: Stage, to: Stage, facts: StageFacts): MoveCheck {
   if (from === to) return { ok: false, reason: `The commission is already at "${STAGE_LABELS[to]}".` };
@@ -77,6 +80,9 @@ export function checkStageMove(from: Stage, to: Stage, facts: StageFacts): MoveC
   if (b > FIRST_HANDS_ON && b - a > 1) {
     const next = STAGES[a + 1]!;
     return { ok: false, reason: `"${STAGE_LABELS[to]}" comes after "${STAGE_LABELS[next]}": move to that stage first.` };
+  }
+  if (to === 'delivered' && facts.balanceDue) {
+    return { ok: false, reason: 'The balance has not been paid yet; it is due before delivery.' };
   }
   if (to === 'garments_in' && facts.garmentsReceived === 0) {
     return { ok: false, reason: 'Record at least one garment as received before moving to "Garments in".' };

@@ -1,0 +1,219 @@
+/**
+ * A local stand-in for the card-payment provider: the few API calls the app
+ * makes through the provider's Node SDK (create and read a hosted checkout
+ * session, refund a payment), a small hosted checkout page, and signed
+ * webhooks sent back to the app when a payment succeeds, as the real service
+ * does. Test cards: 4242 4242 4242 4242 pays; 4000 0000 0000 0002 is declined.
+ *
+ *   node --import tsx scripts/fakes/fake-payments.ts   (FAKE_PAYMENTS_PORT, APP_URL, PAYMENTS_WEBHOOK_SECRET)
+ */
+import { randomBytes } from 'node:crypto';
+import type { Server } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import express from 'express';
+import Stripe from 'stripe';
+
+import { FAKE_PAYMENTS_SECRET_KEY, FAKE_PAYMENTS_WEBHOOK_SECRET } from '../../server/core/config';
+
+export const FAKE_SECRET_KEY = FAKE_PAYMENTS_SECRET_KEY;
+export const FAKE_WEBHOOK_SECRET = FAKE_PAYMENTS_WEBHOOK_SECRET;
+export const PAYING_CARD = '4242424242424242';
+export const DECLINED_CARD = '4000000000000002';
+
+interface Session {
+  id: string;
+  object: 'checkout.session';
+  amount_total: number;
+  currency: string;
+  mode: 'payment';
+  status: 'open' | 'complete' | 'expired';
+  payment_status: 'unpaid' | 'paid';
+  payment_intent: string | null;
+  success_url: string;
+  cancel_url: string;
+  url: string;
+  metadata: Record<string, string>;
+  client_reference_id: string | null;
+  customer_email: string | null;
+  description: string;
+  created: number;
+}
+
+export interface FakePayments {
+  port: number;
+  baseUrl: string;
+  sessions: Map<string, Session>;
+  webhooksSent: Array<{ id: string; type: string; status: number }>;
+  /** Pays a session as the checkout page would (for tests), returning the webhook status. */
+  pay(sessionId: string): Promise<number>;
+  close(): Promise<void>;
+}
+
+const id = (prefix: string) => `${prefix}_${randomBytes(12).toString('hex')}`;
+const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+
+export async function startFakePayments(options: { port?: number; webhookUrl: string; webhookSecret?: string; secretKey?: string; quiet?: boolean }): Promise<FakePayments> {
+  const secret = options.webhookSecret ?? FAKE_WEBHOOK_SECRET;
+  const key = options.secretKey ?? FAKE_SECRET_KEY;
+  const signer = new Stripe(key);
+  const sessions = new Map<string, Session>();
+  const webhooksSent: FakePayments['webhooksSent'] = [];
+  const app = express();
+  app.use(express.urlencoded({ extended: true }));
+  let baseUrl = '';
+
+  async function sendEvent(type: string, object: unknown): Promise<number> {
+    const event = { id: id('evt'), object: 'event', type, created: Math.floor(Date.now() / 1000), livemode: false, data: { object }, api_version: Stripe.API_VERSION };
+    const payload = JSON.stringify(event);
+    const header = signer.webhooks.generateTestHeaderString({ payload, secret });
+    let status = 0;
+    try {
+      const res = await fetch(options.webhookUrl, { method: 'POST', headers: { 'Content-Type': 'application/json', 'Stripe-Signature': header }, body: payload });
+      status = res.status;
+    } catch {
+      status = 0;
+    }
+    webhooksSent.push({ id: event.id, type, status });
+    if (!options.quiet) console.log(`fake payments: sent ${type} -> ${status || 'no answer'}`);
+    return status;
+  }
+
+  async function pay(sessionId: string): Promise<number> {
+    const s = sessions.get(sessionId);
+    if (!s) throw new Error(`no session ${sessionId}`);
+    s.status = 'complete';
+    s.payment_status = 'paid';
+    s.payment_intent = id('pi');
+    return sendEvent('checkout.session.completed', s);
+  }
+
+  // The provider's API, as far as the app uses it.
+  const api = express.Router();
+  api.use((req, res, next) => {
+    if (req.get('authorization') !== `Bearer ${key}`) {
+      res.status(401).json({ error: { type: 'invalid_request_error', message: 'Invalid API key provided.' } });
+      return;
+    }
+    next();
+  });
+  api.post('/checkout/sessions', (req, res) => {
+    const body = req.body as Record<string, any>;
+    const items = (body['line_items'] ?? []) as Array<{ quantity?: string; price_data?: { unit_amount?: string; currency?: string; product_data?: { name?: string } } }>;
+    const amount = items.reduce((sum, i) => sum + Number(i.price_data?.unit_amount ?? 0) * Number(i.quantity ?? 1), 0);
+    if (!Number.isInteger(amount) || amount <= 0) {
+      res.status(400).json({ error: { type: 'invalid_request_error', message: 'line_items must have a positive amount.' } });
+      return;
+    }
+    const sid = id('cs_test');
+    const session: Session = {
+      id: sid,
+      object: 'checkout.session',
+      amount_total: amount,
+      currency: items[0]?.price_data?.currency ?? 'gbp',
+      mode: 'payment',
+      status: 'open',
+      payment_status: 'unpaid',
+      payment_intent: null,
+      success_url: String(body['success_url'] ?? ''),
+      cancel_url: String(body['cancel_url'] ?? ''),
+      url: `${baseUrl}/pay/${sid}`,
+      metadata: (body['metadata'] ?? {}) as Record<string, string>,
+      client_reference_id: body['client_reference_id'] ?? null,
+      customer_email: body['customer_email'] ?? null,
+      description: items[0]?.price_data?.product_data?.name ?? 'Payment',
+      created: Math.floor(Date.now() / 1000),
+    };
+    sessions.set(sid, session);
+    res.json(session);
+  });
+  api.get('/checkout/sessions/:id', (req, res) => {
+    const s = sessions.get(req.params['id']!);
+    if (!s) {
+      res.status(404).json({ error: { type: 'invalid_request_error', message: 'No such checkout session.' } });
+      return;
+    }
+    res.json(s);
+  });
+  api.post('/refunds', (req, res) => {
+    const intent = String((req.body as Record<string, string>)['payment_intent'] ?? '');
+    const s = [...sessions.values()].find((x) => x.payment_intent === intent && x.payment_status === 'paid');
+    if (!s) {
+      res.status(400).json({ error: { type: 'invalid_request_error', message: 'No paid payment with that id.' } });
+      return;
+    }
+    res.json({ id: id('re'), object: 'refund', status: 'succeeded', amount: s.amount_total, currency: s.currency, payment_intent: intent });
+  });
+  app.use('/v1', api);
+
+  // The hosted checkout page.
+  const page = (s: Session, message = '') => `<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Test checkout</title>
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<style>body{font-family:sans-serif;max-width:28rem;margin:3rem auto;padding:0 1rem;color:#222}label{display:block;margin:.8rem 0 .2rem}input{font-size:1.1rem;padding:.4rem;width:100%;box-sizing:border-box}button{margin-top:1rem;font-size:1.1rem;padding:.6rem 1.2rem}.alert{background:#fdecea;border:1px solid #b3261e;padding:.6rem;margin:1rem 0}.note{color:#555;font-size:.9rem}</style></head>
+<body><main><p class="note">Local test checkout: no real card is charged.</p><h1>Pay ${escapeHtml(formatAmount(s.amount_total, s.currency))}</h1><p>${escapeHtml(s.description)}</p>
+${message ? `<div class="alert" role="alert">${escapeHtml(message)}</div>` : ''}
+${s.status === 'open' ? `<form method="post" action="/pay/${s.id}"><label for="card">Card number</label><input id="card" name="card" inputmode="numeric" autocomplete="cc-number" required>
+<label for="expiry">Expiry (MM/YY)</label><input id="expiry" name="expiry" value="12/34"><label for="cvc">CVC</label><input id="cvc" name="cvc" value="123">
+<button type="submit">Pay ${escapeHtml(formatAmount(s.amount_total, s.currency))}</button></form><p><a href="${escapeHtml(s.cancel_url)}">Cancel and go back</a></p>` : '<p>This checkout is finished.</p>'}
+</main></body></html>`;
+
+  app.get('/pay/:id', (req, res) => {
+    const s = sessions.get(req.params['id']!);
+    if (!s) {
+      res.status(404).send('No such checkout.');
+      return;
+    }
+    res.type('html').send(page(s));
+  });
+  app.post('/pay/:id', async (req, res) => {
+    const s = sessions.get(req.params['id']!);
+    if (!s || s.status !== 'open') {
+      res.status(404).send('No open checkout.');
+      return;
+    }
+    const card = String((req.body as Record<string, string>)['card'] ?? '').replace(/\D/g, '');
+    if (card === DECLINED_CARD) {
+      res.status(402).type('html').send(page(s, 'Your card was declined. No money was taken. Try another card.'));
+      return;
+    }
+    if (card !== PAYING_CARD) {
+      res.status(400).type('html').send(page(s, 'That card number is not one of the test cards (4242 4242 4242 4242 pays; 4000 0000 0000 0002 is declined).'));
+      return;
+    }
+    await pay(s.id);
+    res.redirect(303, s.success_url.replace('{CHECKOUT_SESSION_ID}', s.id));
+  });
+
+  const server: Server = await new Promise((resolve, reject) => {
+    const srv = app.listen(options.port ?? 0, '127.0.0.1', () => resolve(srv));
+    srv.once('error', reject);
+  });
+  const port = (server.address() as AddressInfo).port;
+  baseUrl = `http://127.0.0.1:${port}`;
+  return {
+    port,
+    baseUrl,
+    sessions,
+    webhooksSent,
+    pay,
+    close: () => new Promise<void>((r) => { server.closeAllConnections(); server.close(() => r()); }),
+  };
+}
+
+function formatAmount(minor: number, currency: string): string {
+  return `${currency.toLowerCase() === 'gbp' ? '\u00a3' : currency.toUpperCase() + ' '}${(minor / 100).toFixed(2)}`;
+}
+
+if (require.main === module) {
+  const appUrl = process.env['APP_URL'] ?? `http://127.0.0.1:${process.env['PORT'] ?? 4300}`;
+  startFakePayments({ port: Number(process.env['FAKE_PAYMENTS_PORT'] ?? 12111), webhookUrl: `${appUrl}/api/payments/webhook`, webhookSecret: process.env['PAYMENTS_WEBHOOK_SECRET'] })
+    .then((f) => {
+      console.log(`fake payments: API and checkout on ${f.baseUrl}`);
+      const stop = () => void f.close().then(() => process.exit(0));
+      process.on('SIGINT', stop);
+      process.on('SIGTERM', stop);
+    })
+    .catch((err: Error) => {
+      console.error(`fake payments: ${err.message}`);
+      process.exit(1);
+    });
+}

@@ -1,0 +1,19 @@
+import type { Knex } from 'knex';
+import { QuoteModel } from '../quotes/quote-model';
+import { PaymentModel } from './payment-model';
+
+/** The accepted quote of a commission, if any. */
+export function acceptedQuote(commissionId: number, trx?: Knex.Transaction) {
+  return QuoteModel.query(trx).where({ commissionId, status: 'accepted' }).orderBy('version', 'desc').first();
+}
+
+/** What is still owed on a commission's accepted quote; null when none is accepted. */
+export async function paymentState(commissionId: number, trx?: Knex.Transaction) {
+  const quote = await acceptedQuote(commissionId, trx);
+  if (!quote || quote.totalPence === null || quote.depositPence === null) return null;
+  const paid = await PaymentModel.query(trx).where({ commissionId, status: 'paid' });
+  const depositPaid = paid.some((p) => p.kind === 'deposit');
+  const balancePaid = paid.some((p) => p.kind === 'balance');
+  const paidPence = paid.reduce((s, p) => s + p.amountPence, 0);
+  return { quote, depositPaid, balancePaid, paidPence, depositPence: quote.depositPence, balancePence: Math.max(0, quote.totalPence - paidPence) };
+}

@@ -1,0 +1,44 @@
+import express from 'express';
+import type { Knex } from 'knex';
+import type Stripe from 'stripe';
+import type { AppConfig } from '../core/config';
+import { securedRouter } from '../core/secured-router';
+import { parseId } from '../core/validate';
+import * as payments from './payments-service';
+import { paymentState } from './payment-state';
+
+/** The provider's webhook: mounted before the JSON parser, sessions and CSRF, as it carries its own signature. */
+export function paymentsWebhookRouter(provider: Stripe, config: AppConfig, knex: Knex, kickMail: () => void) {
+  const r = securedRouter('/api/payments');
+  r.post('/webhook', express.raw({ type: 'application/json', limit: '1mb' }), async (req, res) => {
+    const body = Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0);
+    const outcome = await payments.handleWebhook(provider, config, knex, body, req.get('stripe-signature'));
+    if (outcome === 'processed') kickMail();
+    res.json({ received: true, outcome });
+  });
+  return r.router;
+}
+
+export function paymentsRouter(provider: Stripe, config: AppConfig) {
+  const quotes = securedRouter('/api/quotes');
+  quotes.post('/:id/deposit-checkout', async (req, res) => {
+    res.json(await payments.depositCheckout(provider, config, req.user!, parseId(req.params['id'], 'That quote')));
+  });
+
+  const commissions = securedRouter('/api/commissions');
+  commissions.post('/:id/balance-checkout', async (req, res) => {
+    res.json(await payments.balanceCheckout(provider, config, req.user!, parseId(req.params['id'], 'That commission')));
+  });
+  commissions.get('/:id/payments', async (req, res) => {
+    const id = parseId(req.params['id'], 'That commission');
+    const [items, state] = await Promise.all([payments.listPayments(req.user!, id), paymentState(id)]);
+    res.json({
+      items,
+      due: state ? { depositPence: state.depositPence, depositPaid: state.depositPaid, balancePence: state.balancePence, balancePaid: state.balancePaid, quoteId: state.quote.id } : null,
+    });
+  });
+  commissions.post('/:id/refund-deposit', async (req, res) => {
+    res.json(await payments.refundDeposit(provider, parseId(req.params['id'], 'That commission')));
+  });
+  return [quotes.router, commissions.router];
+}

@@ -1,0 +1,36 @@
+import { z } from 'zod';
+import { STAGES } from '@keepstitch/shared';
+import { optionalText } from '../core/validate';
+
+const decimalText = z
+  .union([z.number(), z.string().trim()], { message: 'Quantity must be a number.' })
+  .transform((v) => String(v))
+  .refine((s) => /^\d{1,8}(\.\d{1,4})?$/.test(s) && Number(s) > 0, 'Quantity must be a number above 0 with at most 4 decimal places.');
+
+export const quoteLineSchema = z
+  .object({
+    kind: z.enum(['material', 'labour', 'extra', 'discount'], { message: 'Choose material, labour, extra or discount.' }),
+    description: z.string({ message: 'Describe the line.' }).trim().min(1, 'Describe the line.').max(300),
+    quantity: decimalText,
+    unit: z.string().trim().max(20).default('item'),
+    unitPricePence: z.number({ message: 'Price must be an amount in pence.' }).int('Price must be whole pence.').min(-10_000_000).max(10_000_000),
+    stage: z.enum(STAGES as unknown as [string, ...string[]]).nullable().optional(),
+  })
+  .strict()
+  .superRefine((l, ctx) => {
+    if (l.kind === 'discount' && l.unitPricePence > 0) ctx.addIssue({ code: 'custom', path: ['unitPricePence'], message: 'A discount is a negative amount.' });
+    if (l.kind !== 'discount' && l.unitPricePence < 0) ctx.addIssue({ code: 'custom', path: ['unitPricePence'], message: 'Only a discount can be negative.' });
+  });
+
+export const quoteSchema = z
+  .object({
+    intro: optionalText(2000, 'Introduction'),
+    lines: z.array(quoteLineSchema).min(1, 'A quote needs at least one line.').max(200, 'At most 200 lines.'),
+    depositPercent: z.number().min(0, 'Deposit must be 0 to 100 percent.').max(100, 'Deposit must be 0 to 100 percent.').optional(),
+  })
+  .strict();
+
+export const acceptSchema = z.object({ name: z.string({ message: 'Type your name to accept.' }).trim().min(2, 'Type your name to accept.').max(200) }).strict();
+export const declineSchema = z.object({ note: optionalText(2000, 'Note') }).strict();
+
+export type QuoteInput = z.infer<typeof quoteSchema>;

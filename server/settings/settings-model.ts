@@ -1,0 +1,32 @@
+import { Model } from 'objection';
+import type { VatMode, VatRate } from '@keepstitch/shared';
+
+export class StudioSettingsModel extends Model {
+  static override tableName = 'studioSettings';
+  id!: number;
+  studioName!: string;
+  makerName!: string;
+  address!: string;
+  email!: string | null;
+  hourlyRatePence!: number;
+  vatRegistered!: boolean;
+  vatRate!: VatRate;
+  vatMode!: VatMode;
+  vatNumber!: string | null;
+  depositPercent!: string;
+  validityDays!: number;
+  paymentTerms!: string;
+  blockMinutes!: Record<string, number>;
+  updatedAt!: Date;
+
+  static override get jsonAttributes() {
+    return ['blockMinutes'];
+  }
+
+  /** The one settings row. */
+  static async current(): Promise<StudioSettingsModel> {
+    const row = await StudioSettingsModel.query().findById(1);
+    if (!row) throw new Error('studio_settings has no row: run the migrations.');
+    return row;
+  }
+}
