@@ -10,9 +10,9 @@ import { removeFiles, storeImages, type UploadedFile } from './image-store';
 async function save(uploadDir: string, files: UploadedFile[], row: Pick<PhotoModel, 'commissionId' | 'garmentId' | 'kind' | 'uploadedBy'>, caption: string | null) {
   const images = await storeImages(uploadDir, files);
   try {
-    const photos = await PhotoModel.transaction(async (trx) =>
-      Promise.all(images.map((img) => PhotoModel.query(trx).insertAndFetch({ ...img, ...row, caption }))),
-    );
+    const photos: PhotoModel[] = await PhotoModel.query()
+      .insert(images.map((img) => ({ ...img, ...row, caption })))
+      .returning('*');
     return photos.map((p) => p.toPublic());
   } catch (err) {
     await removeFiles(images.flatMap((i) => [path.join(uploadDir, i.fileName), path.join(uploadDir, i.thumbName)]));

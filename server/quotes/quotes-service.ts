@@ -80,10 +80,8 @@ function checkTotals(input: QuoteInput, q: { vatRate: QuoteModel['vatRate']; vat
 
 async function writeLines(trx: Knex.Transaction, quoteId: number, input: QuoteInput) {
   await QuoteLineModel.query(trx).delete().where('quoteId', quoteId);
-  await Promise.all(
-    input.lines.map((l, position) =>
-      QuoteLineModel.query(trx).insert({ quoteId, position, kind: l.kind, description: l.description, quantity: l.quantity, unit: l.unit, unitPricePence: String(l.unitPricePence), stage: l.stage ?? null }),
-    ),
+  await QuoteLineModel.query(trx).insert(
+    input.lines.map((l, position) => ({ quoteId, position, kind: l.kind, description: l.description, quantity: l.quantity, unit: l.unit, unitPricePence: String(l.unitPricePence), stage: l.stage ?? null })),
   );
 }
 

@@ -1,0 +1,113 @@
+import { ApiAgent, addUser, signedIn, startTestApp, type TestApp } from '../testing/test-app';
+import { addCommission } from '../testing/fixtures';
+import { sendQuote } from '../testing/money-fixtures';
+
+describe('quotes', () => {
+  let t: TestApp;
+  let owner: ApiAgent;
+  let workroom: ApiAgent;
+  let clientA: ApiAgent;
+  let clientB: ApiAgent;
+  let clientAId: number;
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    owner = await signedIn(t.app, (await addUser(t.knex, 'owner')).email);
+    workroom = await signedIn(t.app, (await addUser(t.knex, 'workroom')).email);
+    const a = await addUser(t.knex, 'client');
+    clientAId = a.clientId!;
+    await t.knex('clients').where('id', clientAId).update({ email: 'alma@post.test', name: 'Alma Rowntree' });
+    clientA = await signedIn(t.app, a.email);
+    clientB = await signedIn(t.app, (await addUser(t.knex, 'client')).email);
+  });
+  afterAll(() => t.close());
+
+  it('prices a draft from its lines with the studio VAT settings (hand-worked)', async () => {
+    const commission = await addCommission(t.knex, clientAId);
+    await owner.patch('/api/settings', { vatRegistered: true, vatRate: '20', vatMode: 'line', depositPercent: 25 });
+    const res = await owner.post(`/api/commissions/${commission}/quotes`, {
+      lines: [
+        { kind: 'labour', description: 'Cutting', quantity: 3.25, unit: 'hours', unitPricePence: 2800 },
+        { kind: 'extra', description: 'Embroidered label', quantity: 1, unitPricePence: 1500 },
+        { kind: 'discount', description: 'Returning client', quantity: 1, unitPricePence: -500 },
+      ],
+    });
+    expect(res.status).toBe(201);
+    // Hand-worked: 3.25 x 28.00 = 91.00; + 15.00 - 5.00 = 101.00 net; VAT per line 18.20 + 3.00 - 1.00 = 20.20;
+    // total 121.20; deposit 25% = 30.30; balance 90.90.
+    expect(res.body).toMatchObject({ version: 1, status: 'draft', vatRate: '20' });
+    expect(res.body.totals).toEqual({ netPence: 10100, vatPence: 2020, totalPence: 12120, depositPence: 3030, balancePence: 9090 });
+    const bad = await owner.post(`/api/commissions/${commission}/quotes`, { lines: [{ kind: 'material', description: '', quantity: '-1', unitPricePence: -5 }] });
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['lines.0.description', 'lines.0.quantity', 'lines.0.unitPricePence']);
+  });
+
+  it('freezes a sent quote: no edits through the API or in the database, and a new version supersedes it', async () => {
+    const commission = await addCommission(t.knex, clientAId);
+    const v1 = await sendQuote(owner, commission);
+    const edit = await owner.send('put', `/api/quotes/${v1.id}`, { lines: [{ kind: 'extra', description: 'Changed', quantity: 1, unitPricePence: 1 }] });
+    expect(edit.status).toBe(409);
+    await expect(t.knex('quoteLines').where('quoteId', v1.id).update({ unitPricePence: 1 })).rejects.toThrow(/frozen/);
+    const v2 = await owner.post(`/api/commissions/${commission}/quotes`, { lines: [{ kind: 'extra', description: 'Label', quantity: 1, unitPricePence: 1000 }] });
+    expect(v2.body.version).toBe(2);
+    await owner.post(`/api/quotes/${v2.body.id}/send`);
+    expect((await owner.get(`/api/quotes/${v1.id}`)).body.status).toBe('superseded');
+    expect((await clientA.post(`/api/quotes/${v1.id}/accept`, { name: 'Alma Rowntree' })).status).toBe(409);
+    const accepted = await clientA.post(`/api/quotes/${v2.body.id}/accept`, { name: 'Alma Rowntree' });
+    expect(accepted.body).toMatchObject({ status: 'accepted', version: 2, acceptedName: 'Alma Rowntree' });
+    expect(accepted.body.totals.totalPence).toBe(1200);
+  });
+
+  it('queues the e-mail with its PDF in the same transaction as the send, and moves an enquiry to quoted', async () => {
+    const commission = await addCommission(t.knex, clientAId);
+    const q = await sendQuote(owner, commission);
+    const mails = await t.knex('outboxMails').where({ commissionId: commission, kind: 'quote' });
+    expect(mails).toHaveLength(1);
+    expect(mails[0]).toMatchObject({ toAddress: 'alma@post.test', status: 'pending' });
+    expect(mails[0].textBody).toContain(`/portal/${commission}?quote=${q.id}`);
+    const pdf = Buffer.from(mails[0].attachments[0].content, 'base64');
+    expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+    expect((await owner.get(`/api/commissions/${commission}`)).body.stage).toBe('quoted');
+  });
+
+  it('will not send a quote to a client without an e-mail address, and sends nothing', async () => {
+    const [c] = await t.knex('clients').insert({ name: 'No Mail' }).returning('id');
+    const commission = await addCommission(t.knex, c.id);
+    const draft = await owner.post(`/api/commissions/${commission}/quotes`, { lines: [{ kind: 'extra', description: 'X', quantity: 1, unitPricePence: 100 }] });
+    const res = await owner.post(`/api/quotes/${draft.body.id}/send`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toBe('Add an e-mail address for No Mail before sending the quote.');
+    expect((await owner.get(`/api/quotes/${draft.body.id}`)).body.status).toBe('draft');
+    expect(await t.knex('outboxMails').where('commissionId', commission)).toHaveLength(0);
+  });
+
+  it('shows clients only their own sent quotes, never drafts, and never to the workroom', async () => {
+    const commission = await addCommission(t.knex, clientAId);
+    const draft = await owner.post(`/api/commissions/${commission}/quotes`, { lines: [{ kind: 'extra', description: 'X', quantity: 1, unitPricePence: 100 }] });
+    expect((await clientA.get(`/api/quotes/${draft.body.id}`)).status).toBe(404);
+    expect((await clientA.get(`/api/commissions/${commission}/quotes`)).body.items).toEqual([]);
+    await owner.post(`/api/quotes/${draft.body.id}/send`);
+    expect((await clientA.get(`/api/quotes/${draft.body.id}`)).status).toBe(200);
+    expect((await clientB.get(`/api/quotes/${draft.body.id}`)).status).toBe(404);
+    expect((await clientB.get(`/api/quotes/${draft.body.id}/pdf`)).status).toBe(404);
+    expect((await workroom.get(`/api/quotes/${draft.body.id}`)).status).toBe(403);
+    const pdf = await clientA.agent.get(`/api/quotes/${draft.body.id}/pdf`);
+    expect(pdf.headers['content-type']).toBe('application/pdf');
+  });
+
+  it('records a decline with its note', async () => {
+    const commission = await addCommission(t.knex, clientAId);
+    const q = await sendQuote(owner, commission);
+    const res = await clientA.post(`/api/quotes/${q.id}/decline`, { note: 'A little over budget' });
+    expect(res.body).toMatchObject({ status: 'declined', declineNote: 'A little over budget' });
+    expect((await clientA.post(`/api/quotes/${q.id}/accept`, { name: 'Alma' })).status).toBe(409);
+  });
+
+  it('refuses an expired quote', async () => {
+    const commission = await addCommission(t.knex, clientAId);
+    const q = await sendQuote(owner, commission);
+    await t.knex('quotes').where('id', q.id).update({ validUntil: '2020-01-01' });
+    const res = await clientA.post(`/api/quotes/${q.id}/accept`, { name: 'Alma Rowntree' });
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toMatch(/expired/);
+  });
+});
