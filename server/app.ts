@@ -21,6 +21,7 @@ import { commissionsRouter } from './commissions/commissions-router';
 import { garmentsRouter } from './garments/garments-router';
 import { photosRouter } from './photos/photos-router';
 import { stockRouter } from './stock/stock-router';
+import { designsRouter } from './designs/designs-router';
 import { settingsRouter } from './settings/settings-router';
 import { quotesRouter } from './quotes/quotes-router';
 import { mailRouter } from './mail/mail-router';
@@ -112,6 +113,7 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
   app.use(garmentsRouter());
   app.use(photosRouter(config.uploadDir));
   app.use(stockRouter());
+  app.use(designsRouter());
   app.use(settingsRouter());
   app.use(quotesRouter(config, kickMail));
   app.use(paymentsRouter(provider, config));

@@ -41,6 +41,21 @@ export const ROUTE_POLICY = {
   'POST /api/commissions/:id/photos': STUDIO,
   'POST /api/commissions/:id/garments': SIGNED_IN,
 
+  // Designs: the owner designs; the workroom reads designs and printouts (no prices in them);
+  // a client sees only a shared drawing of its own commission and answers it.
+  'GET /api/commissions/:id/design': STUDIO,
+  'GET /api/commissions/:id/design/versions/:version': STUDIO,
+  'POST /api/commissions/:id/design': OWNER,
+  'POST /api/commissions/:id/design/preview': OWNER,
+  'POST /api/commissions/:id/design/share': OWNER,
+  'GET /api/commissions/:id/design/shared': SIGNED_IN,
+  'POST /api/commissions/:id/design/response': CLIENT,
+  'GET /api/commissions/:id/design/cut-list.pdf': STUDIO,
+  'GET /api/commissions/:id/design/sewing-order.pdf': STUDIO,
+  'GET /api/commissions/:id/design/templates.pdf': STUDIO,
+  'GET /api/commissions/:id/care-card': SIGNED_IN,
+  'GET /api/commissions/:id/care-card.pdf': SIGNED_IN,
+
   'GET /api/garments/:id': SIGNED_IN,
   'PATCH /api/garments/:id': STUDIO,
   'POST /api/garments/:id/events': STUDIO,

@@ -1,0 +1,88 @@
+import { z } from 'zod';
+import { BLOCK_KINDS } from '@keepstitch/shared';
+import { optionalText } from '../core/validate';
+
+/** An exact length in millimetres as a decimal string, above zero and at most 50 m. */
+const mm = (label: string) =>
+  z
+    .string({ message: `${label} is required.` })
+    .regex(/^[0-9]{1,5}(\.[0-9]{1,12})?$/, `${label} must be millimetres, such as 304.8.`)
+    .refine((v) => Number(v) > 0 && Number(v) <= 50_000, `${label} must be above 0 and at most 50 m.`);
+const id = z.number().int().positive();
+const count = (label: string, max: number) => z.number({ message: `${label} must be a whole number.` }).int(`${label} must be a whole number.`).min(1, `${label} must be at least 1.`).max(max, `${label} can be at most ${max}.`);
+
+const fabricSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('garment'), garmentId: id }).strict(),
+  z.object({ kind: z.literal('group'), name: z.string().trim().min(1).max(100), garmentIds: z.array(id).min(1).max(100) }).strict(),
+  z.object({ kind: z.literal('stock'), stockId: id }).strict(),
+]);
+
+const blockSchema = z
+  .object({
+    id: z.string().regex(/^[A-Z][A-Z0-9]{0,3}$/, 'A block id is a capital letter, such as A.'),
+    name: z.string().trim().min(1, 'Name the block.').max(100),
+    kind: z.enum(BLOCK_KINDS as [string, ...string[]], { message: 'Choose a block kind.' }),
+    units: z.number().int().min(1).max(12).optional(),
+    method: z.enum(['four-at-a-time', 'stitch-and-flip']).optional(),
+    blades: z.number().int().min(3).max(120).optional(),
+    outerRadiusMm: mm('Outer radius').optional(),
+    innerRadiusMm: mm('Inner radius').optional(),
+    meanStripWidthMm: mm('Strip width').optional(),
+  })
+  .strict();
+
+/** The design as the owner saves it; derivation checks the rest (plates fit, geese even...). */
+export const designBodySchema = z
+  .object({
+    units: z.enum(['imperial', 'metric']),
+    target: z.object({ preset: z.string().max(60).nullable(), dropMm: mm('Drop').nullable(), widthMm: mm('Target width'), lengthMm: mm('Target length') }).strict(),
+    layout: z
+      .object({
+        setting: z.enum(['straight', 'on-point']),
+        rows: count('Rows', 60),
+        columns: count('Columns', 60),
+        blockMm: mm('Block size'),
+        sashing: z.object({ widthMm: mm('Sashing width'), cornerstones: z.boolean() }).strict().nullable(),
+        borders: z.array(mm('Border width')).max(6, 'At most 6 borders.'),
+      })
+      .strict(),
+    blocks: z.array(blockSchema).min(1, 'Add at least one block.').max(12, 'At most 12 block kinds.'),
+    pattern: z.array(z.string().max(4)).max(3600),
+    assignments: z
+      .array(
+        z
+          .object({
+            target: z.discriminatedUnion('kind', [
+              z.object({ kind: z.literal('position'), index: z.number().int().min(0).max(3599) }).strict(),
+              z.object({ kind: z.literal('piece'), key: z.string().min(1).max(60) }).strict(),
+            ]),
+            fabric: fabricSchema,
+          })
+          .strict(),
+      )
+      .max(4000),
+    finishing: z
+      .object({
+        bindingStockId: id.nullable(),
+        bindingStripMm: mm('Binding strip width'),
+        backingStockId: id.nullable(),
+        waddingStockId: id.nullable(),
+        prewash: z.boolean(),
+        shrinkPercent: z.string().regex(/^[0-9]{1,2}(\.[0-9]{1,3})?$/, 'Shrinkage is a percentage such as 3.').refine((v) => Number(v) < 20, 'Shrinkage must be under 20%.'),
+      })
+      .strict(),
+    rules: z.object({ minimumPerGarment: z.number().int().min(0).max(100) }).strict(),
+  })
+  .strict();
+
+export const saveDesignSchema = z.object({ body: designBodySchema, note: optionalText(1000, 'Note') }).strict();
+
+export const clientResponseSchema = z
+  .object({
+    response: z.enum(['approved', 'changes_requested'], { message: 'Approve the design or ask for a change.' }),
+    note: optionalText(2000, 'Note'),
+  })
+  .strict()
+  .refine((v) => v.response === 'approved' || !!v.note, { message: 'Say what you would like changed.', path: ['note'] });
+
+export const paperSchema = z.object({ paper: z.enum(['a4', 'letter']).default('a4') });

@@ -1,0 +1,10 @@
+import type { CommissionModel } from '../../commissions/commission-model';
+import type { DesignVersionModel } from '../design-model';
+import type { DesignSources } from '@keepstitch/shared';
+
+export interface PrintableDesign {
+  commission: CommissionModel;
+  version: DesignVersionModel;
+  sources: DesignSources;
+  fabrics: { key: string; name: string; hex: string }[];
+}
