@@ -31,7 +31,7 @@ export async function designSources(commissionId: number): Promise<DesignSources
       id: g.id,
       description: g.description,
       colour: g.colour,
-      fibre: g.fibre,
+      fibre: g.fibre ?? 'other',
       construction: g.construction,
       print: g.print,
       panels: panels.filter((p) => p.garmentId === g.id).map((p) => ({ id: p.id, name: p.name, widthMm: p.widthMm, heightMm: p.heightMm, grain: p.grain })),
@@ -230,7 +230,11 @@ export async function careCard(user: Express.User, commissionId: number) {
   const garments = await GarmentModel.query().where('commissionId', c.id).orderBy('id');
   const v = await latestVersion(c.id);
   const fibres = new Map<string, string[]>();
-  for (const g of garments) fibres.set(g.fibre, [...(fibres.get(g.fibre) ?? []), g.description]);
+  for (const g of garments) {
+    // A garment whose fibre is not known yet is listed as such, not guessed.
+    const fibre = g.fibre ?? 'unknown';
+    fibres.set(fibre, [...(fibres.get(fibre) ?? []), g.description]);
+  }
   const stockUsed: { name: string; fibre: string }[] = [];
   if (v) {
     const ids = new Set<number>();

@@ -4,7 +4,7 @@ import type { careCard } from '../designs-service';
 
 type CareCard = Awaited<ReturnType<typeof careCard>>;
 
-const fibreLabel = (f: string) => (FIBRE.labels as Record<string, string>)[f] ?? f;
+const fibreLabel = (f: string) => (f === 'unknown' ? 'Fibre not known' : ((FIBRE.labels as Record<string, string>)[f] ?? f));
 
 /** The care card that goes with the finished piece. */
 export async function careCardPdf(card: CareCard): Promise<Buffer> {
