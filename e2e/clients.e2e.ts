@@ -15,6 +15,8 @@ describe('clients, end to end', () => {
     await page.waitForURL(/\/sign-in/);
     await screenshot(page, 'sign-in');
     await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    await page.waitForURL(/\/commissions/);
+    await page.getByRole('link', { name: 'Clients' }).click();
     await page.waitForURL(/\/clients/);
     await page.getByRole('heading', { name: 'Clients' }).waitFor();
     await page.getByTestId('client-row').first().waitFor();
@@ -28,8 +30,8 @@ describe('clients, end to end', () => {
     await page.getByLabel('Phone').fill('07700 900555');
     await screenshot(page, 'client-form');
     await page.getByRole('button', { name: 'Save' }).click();
+    await page.waitForURL(/\/clients$/);
 
-    await page.goto('/clients');
     await page.getByLabel('Filter clients').fill('Quillfeather');
     const row = page.getByTestId('client-row').filter({ hasText: 'Odette Quillfeather' });
     await row.waitFor();
@@ -39,7 +41,7 @@ describe('clients, end to end', () => {
     await page.getByLabel('Notes').waitFor();
     await page.getByLabel('Phone').fill('07700 900556');
     await page.getByRole('button', { name: 'Save' }).click();
-    await page.goto('/clients');
+    await page.waitForURL(/\/clients$/);
     await page.getByLabel('Filter clients').fill('900556');
     await page.getByTestId('client-row').filter({ hasText: 'Odette Quillfeather' }).waitFor();
     expect(problems).toEqual([]);
@@ -49,6 +51,8 @@ describe('clients, end to end', () => {
   it('shows a signed-in client only their own record', async () => {
     const { page, problems } = await openPage(browser);
     await signIn(page, DEMO_ACCOUNTS.clientA.email, DEMO_ACCOUNTS.clientA.password);
+    await page.waitForURL(/\/portal/);
+    await page.getByRole('link', { name: 'My details' }).click();
     await page.waitForURL(/\/my-details/);
     await page.getByText(DEMO_ACCOUNTS.clientA.name).first().waitFor();
     const body = await page.locator('body').innerText();

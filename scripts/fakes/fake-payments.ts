@@ -44,6 +44,8 @@ export interface FakePayments {
   baseUrl: string;
   sessions: Map<string, Session>;
   webhooksSent: Array<{ id: string; type: string; status: number }>;
+  /** Where webhooks go (the app's address may only be known after the fake starts). */
+  setWebhookUrl(url: string): void;
   /** Pays a session as the checkout page would (for tests), returning the webhook status. */
   pay(sessionId: string): Promise<number>;
   close(): Promise<void>;
@@ -58,6 +60,7 @@ export async function startFakePayments(options: { port?: number; webhookUrl: st
   const signer = new Stripe(key);
   const sessions = new Map<string, Session>();
   const webhooksSent: FakePayments['webhooksSent'] = [];
+  let webhookUrl = options.webhookUrl;
   const app = express();
   app.use(express.urlencoded({ extended: true }));
   let baseUrl = '';
@@ -68,7 +71,7 @@ export async function startFakePayments(options: { port?: number; webhookUrl: st
     const header = signer.webhooks.generateTestHeaderString({ payload, secret });
     let status = 0;
     try {
-      const res = await fetch(options.webhookUrl, { method: 'POST', headers: { 'Content-Type': 'application/json', 'Stripe-Signature': header }, body: payload });
+      const res = await fetch(webhookUrl, { method: 'POST', headers: { 'Content-Type': 'application/json', 'Stripe-Signature': header }, body: payload });
       status = res.status;
     } catch {
       status = 0;
@@ -194,6 +197,9 @@ ${s.status === 'open' ? `<form method="post" action="/pay/${s.id}"><label for="c
     baseUrl,
     sessions,
     webhooksSent,
+    setWebhookUrl: (url: string) => {
+      webhookUrl = url;
+    },
     pay,
     close: () => new Promise<void>((r) => { server.closeAllConnections(); server.close(() => r()); }),
   };

@@ -9,7 +9,7 @@ export class GarmentModel extends Model {
   description!: string;
   whose!: string | null;
   story!: string | null;
-  fibre!: Fibre;
+  fibre!: Fibre | null;
   construction!: Construction;
   colour!: string | null;
   print!: Print;

@@ -33,7 +33,7 @@ export function photosRouter(uploadDir: string) {
     r.get(`/:id/${which}`, async (req, res) => {
       const file = await photos.photoFile(req.user!, parseId(req.params['id'], 'That photo'), which, uploadDir);
       res.setHeader('Cache-Control', 'private, max-age=3600');
-      res.type(file.mime).sendFile(file.path);
+      res.type(file.mime).sendFile(file.path, { dotfiles: 'allow' });
     });
   }
   return [garments.router, commissions.router, r.router];

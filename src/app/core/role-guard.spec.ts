@@ -38,17 +38,17 @@ describe('route guards', () => {
   });
 
   it('sends another role to its own home instead', () => {
-    expect(run(roleGuard('owner'), 'workroom')).toBe('/clients');
-    expect(run(roleGuard('owner', 'workroom'), 'client', '/clients')).toBe('/my-details');
+    expect(run(roleGuard('owner'), 'workroom')).toBe('/commissions');
+    expect(run(roleGuard('owner', 'workroom'), 'client', '/clients')).toBe('/portal');
   });
 
   it('keeps signed-in people away from the sign-in page', () => {
-    expect(run(signedOutGuard, 'client')).toBe('/my-details');
+    expect(run(signedOutGuard, 'client')).toBe('/portal');
     expect(run(signedOutGuard, null)).toBeTrue();
   });
 
   it('sends the bare address to the right first page', () => {
-    expect(run(homeGuard, 'owner')).toBe('/clients');
+    expect(run(homeGuard, 'owner')).toBe('/commissions');
     expect(run(homeGuard, null)).toBe('/sign-in');
   });
 });

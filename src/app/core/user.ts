@@ -16,7 +16,7 @@ export type User = z.infer<typeof userSchema>;
 
 /** The page a role lands on after signing in. */
 export function homeFor(role: Role): string {
-  return role === 'client' ? '/my-details' : '/clients';
+  return role === 'client' ? '/portal' : '/commissions';
 }
 
 export const roleLabels: Record<Role, string> = {

@@ -97,17 +97,17 @@ describe('SignIn', () => {
     await fixture.whenStable();
 
     expect(TestBed.inject(Auth).user()).toEqual(testUsers.owner);
-    expect(navigateByUrl).toHaveBeenCalledWith('/clients');
+    expect(navigateByUrl).toHaveBeenCalledWith('/commissions');
   });
 
-  it('sends a client to their own details', async () => {
+  it('sends a client to their own commissions', async () => {
     await setUp();
     await fillIn('client@studio.test', 'correct horse battery');
     await submit();
     httpMock.expectOne('/api/auth/sign-in').flush({ user: testUsers.client });
     await fixture.whenStable();
 
-    expect(navigateByUrl).toHaveBeenCalledWith('/my-details');
+    expect(navigateByUrl).toHaveBeenCalledWith('/portal');
   });
 
   it('returns to the page that was wanted before signing in', async () => {
@@ -127,7 +127,7 @@ describe('SignIn', () => {
     httpMock.expectOne('/api/auth/sign-in').flush({ user: testUsers.owner });
     await fixture.whenStable();
 
-    expect(navigateByUrl).toHaveBeenCalledWith('/clients');
+    expect(navigateByUrl).toHaveBeenCalledWith('/commissions');
   });
 
   it('says plainly when the e-mail or password is wrong, and lets the person try again', async () => {
