@@ -26,7 +26,7 @@ describe('Auth', () => {
     httpMock.expectOne('/api/auth/me').flush({ user: testUsers.workroom });
     await loaded;
     expect(auth.user()).toEqual(testUsers.workroom);
-    expect(auth.homeUrl()).toBe('/clients');
+    expect(auth.homeUrl()).toBe('/commissions');
   });
 
   it('counts a server that does not answer as nobody signed in', async () => {
