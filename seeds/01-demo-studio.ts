@@ -9,7 +9,7 @@ import { DEMO_ACCOUNTS } from './demo/accounts';
  * Re-running the seed resets what it inserts.
  */
 export async function seed(knex: Knex): Promise<void> {
-  await knex.raw('TRUNCATE session, users, clients, stock_fabrics RESTART IDENTITY CASCADE');
+  await knex.raw('TRUNCATE session, users, clients, stock_fabrics, outbox_mails, webhook_events RESTART IDENTITY CASCADE');
 
   const clients = await knex('clients')
     .insert([

@@ -2,11 +2,13 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync, openSync } from 'node:fs';
 import path from 'node:path';
 import { Client } from 'pg';
-import { E2E_PORT, ROOT } from './e2e-env';
+import { E2E_PORT, FAKE_MAIL_API, FAKE_MAIL_API_PORT, FAKE_PAYMENTS_PORT, FAKE_PAYMENTS_URL, FAKE_SMTP_PORT, ROOT } from './e2e-env';
 
 declare global {
   // eslint-disable-next-line no-var
   var __keepstitchServer: ChildProcess | undefined;
+  // eslint-disable-next-line no-var
+  var __keepstitchFakes: ChildProcess[] | undefined;
 }
 
 function databaseUrl(name: string): string {
@@ -41,13 +43,20 @@ export default async function globalSetup(): Promise<void> {
   await admin.query('DROP DATABASE IF EXISTS keepstitch_e2e WITH (FORCE)');
   await admin.end();
 
-  const env = { ...process.env, DATABASE_URL: databaseUrl('keepstitch_e2e'), PORT: String(E2E_PORT), NODE_ENV: 'production', SESSION_SECRET: 'e2e-session-secret-'.padEnd(48, 'e'), UPLOAD_DIR: path.join(ROOT, 'test-output', 'e2e-uploads') };
+  const env = { ...process.env, DATABASE_URL: databaseUrl('keepstitch_e2e'), PORT: String(E2E_PORT), NODE_ENV: 'production', SESSION_SECRET: 'e2e-session-secret-'.padEnd(48, 'e'), UPLOAD_DIR: path.join(ROOT, 'test-output', 'e2e-uploads'),
+    APP_URL: `http://127.0.0.1:${E2E_PORT}`,
+    SMTP_HOST: '127.0.0.1', SMTP_PORT: String(FAKE_SMTP_PORT), FAKE_MAIL_API,
+    FAKE_SMTP_PORT: String(FAKE_SMTP_PORT), FAKE_MAIL_API_PORT: String(FAKE_MAIL_API_PORT),
+    FAKE_PAYMENTS_PORT: String(FAKE_PAYMENTS_PORT), PAYMENTS_API_URL: FAKE_PAYMENTS_URL };
   const prepare = spawn(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'prepare'], { cwd: ROOT, env, stdio: 'inherit' });
   const code = await new Promise<number | null>((r) => prepare.on('exit', r));
   if (code !== 0) throw new Error('Preparing the end-to-end database failed.');
 
   mkdirSync(path.join(ROOT, 'test-output'), { recursive: true });
   const log = openSync(path.join(ROOT, 'test-output', 'e2e-server.log'), 'w');
+  globalThis.__keepstitchFakes = ['scripts/fakes/fake-smtp.ts', 'scripts/fakes/fake-payments.ts'].map((script) =>
+    spawn(process.execPath, ['--import', 'tsx', script], { cwd: ROOT, env, stdio: ['ignore', log, log] }),
+  );
   const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: ['ignore', log, log] });
   globalThis.__keepstitchServer = server;
   await waitForHealth(`http://127.0.0.1:${E2E_PORT}/api/health`, server);

@@ -1,6 +1,11 @@
-/** Stops the server the set-up started. */
+import type { ChildProcess } from 'node:child_process';
+
+/** Stops the server and the fakes the set-up started. */
 export default async function globalTeardown(): Promise<void> {
-  const server = globalThis.__keepstitchServer;
+  await Promise.all([globalThis.__keepstitchServer, ...(globalThis.__keepstitchFakes ?? [])].map(stop));
+}
+
+async function stop(server: ChildProcess | undefined): Promise<void> {
   if (!server || server.exitCode !== null) return;
   const exited = new Promise((r) => server.once('exit', r));
   server.kill('SIGTERM');
