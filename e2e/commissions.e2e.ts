@@ -1,0 +1,114 @@
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import sharp from 'sharp';
+import type { Browser, Page } from 'playwright-core';
+import { DEMO_ACCOUNTS } from '../seeds/demo/accounts';
+import { ROOT } from './support/e2e-env';
+import { launchBrowser, openPage, screenshot, signIn, waitForCount } from './support/browser';
+
+/** A noisy photo-sized JPEG (a couple of hundred kB), so an upload takes long enough to watch. */
+async function photoFile(): Promise<string> {
+  const dir = path.join(ROOT, 'test-output', 'e2e-files');
+  mkdirSync(dir, { recursive: true });
+  const file = path.join(dir, 'tartan-scarf.jpg');
+  const width = 900;
+  const height = 700;
+  const pixels = Buffer.alloc(width * height * 3);
+  for (let i = 0; i < pixels.length; i++) pixels[i] = (i * 2654435761) % 251;
+  await sharp(pixels, { raw: { width, height, channels: 3 } }).jpeg({ quality: 92 }).toFile(file);
+  return file;
+}
+
+async function choose(page: Page, label: string, option: string): Promise<void> {
+  await page.getByLabel(label, { exact: true }).click();
+  await page.getByRole('option', { name: option, exact: true }).click();
+}
+
+describe('commissions and garment intake, end to end', () => {
+  let browser: Browser;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(() => browser.close());
+
+  it('lets a client add a garment with a photo and watch it upload', async () => {
+    const { page, problems } = await openPage(browser);
+    await signIn(page, DEMO_ACCOUNTS.clientA.email, DEMO_ACCOUNTS.clientA.password);
+    await page.waitForURL(/\/portal$/);
+    await page.getByRole('link', { name: 'Work-shirt memory quilt' }).click();
+    await page.getByRole('button', { name: 'Add a garment' }).click();
+    await page.getByLabel('What it is').fill('Tartan wool scarf');
+    await page.getByLabel('Whose it was').fill('Edmund');
+    await page.getByLabel('Its story').fill('He wore it to every match.');
+    await page.locator('input[type=file]').setInputFiles(await photoFile());
+    // Slow the upload down so its progress can be seen.
+    const cdp = await page.context().newCDPSession(page);
+    await cdp.send('Network.enable');
+    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 20, downloadThroughput: -1, uploadThroughput: 80 * 1024 });
+    await page.getByRole('button', { name: 'Save garment' }).click();
+    await page.locator('[data-testid="upload-file"][data-state="uploading"] mat-progress-bar').waitFor();
+    await screenshot(page, 'portal-upload-progress');
+    await page.locator('[data-testid="upload-file"][data-state="done"]').waitFor({ timeout: 30_000 });
+    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 });
+    await page.getByRole('button', { name: 'Done' }).click();
+    await page.getByTestId('garment-row').filter({ hasText: 'Tartan wool scarf' }).waitFor();
+    await screenshot(page, 'portal-commission');
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+
+  it('lets the owner receive and store it, measure two panels in fractions, and move a commission on the board', async () => {
+    const { page, problems } = await openPage(browser);
+    await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    await page.waitForURL(/\/commissions/);
+    await page.getByRole('link', { name: 'Work-shirt memory quilt' }).first().click();
+    await page.getByTestId('garment-row').filter({ hasText: 'Tartan wool scarf' }).getByRole('link').click();
+    await page.getByTestId('garment-status').filter({ hasText: 'Expected' }).waitFor();
+
+    await choose(page, 'Event', 'Received');
+    await page.getByRole('button', { name: 'Record event' }).click();
+    await page.getByTestId('garment-status').filter({ hasText: 'In the studio' }).waitFor();
+    await choose(page, 'Event', 'Stored');
+    await page.getByLabel('Place', { exact: true }).fill('Box A5');
+    await page.getByRole('button', { name: 'Record event' }).click();
+    await page.getByTestId('garment-place').filter({ hasText: 'Box A5' }).waitFor();
+    await waitForCount(page.getByTestId('custody-event'), 3);
+
+    for (const [name, width, height] of [['back', '19 1/2', '26'], ['fringe end', '10 1/4', '22 1/2']] as const) {
+      await page.getByRole('button', { name: 'Add panel' }).click();
+      const row = page.getByTestId('panel-row').last();
+      await row.getByLabel('Name').fill(name);
+      await row.getByLabel('Width').fill(width);
+      await row.getByLabel('Height').fill(height);
+      await row.getByRole('button', { name: 'Save panel' }).click();
+      await page.waitForResponse((r) => r.url().includes('/panels') && r.request().method() === 'POST' && r.status() === 201);
+    }
+    await waitForCount(page.getByTestId('panel-row'), 2);
+    // 19 1/2 in = 49.53 cm (1 in = 2.54 cm exactly): both systems are shown.
+    const readings = await page.getByTestId('length-reading').allInnerTexts();
+    expect(readings.join(' | ')).toMatch(/19 ?1\/2/);
+    expect(readings.join(' | ')).toMatch(/49\.5/);
+    await screenshot(page, 'garment-panels');
+
+    // The board: the cushions are quoted; move them to booked by dragging, then on with the card's menu.
+    await page.goto('/commissions/board');
+    const card = page.getByTestId('board-card').filter({ hasText: 'Two cushions' });
+    await card.waitFor();
+    const target = page.getByTestId('board-column-booked');
+    const from = (await card.boundingBox())!;
+    const to = (await target.boundingBox())!;
+    await page.mouse.move(from.x + from.width / 2, from.y + 20);
+    await page.mouse.down();
+    await page.mouse.move(from.x + from.width / 2 + 10, from.y + 30, { steps: 5 });
+    await page.mouse.move(to.x + to.width / 2, to.y + 80, { steps: 20 });
+    await page.mouse.up();
+    await target.getByTestId('board-card').filter({ hasText: 'Two cushions' }).waitFor();
+
+    await target.getByTestId('board-card').filter({ hasText: 'Two cushions' }).getByRole('button', { name: /Move to/ }).click();
+    await page.getByRole('menuitem', { name: 'Garments in' }).click();
+    await page.getByTestId('board-column-garments_in').getByTestId('board-card').filter({ hasText: 'Two cushions' }).waitFor();
+    await screenshot(page, 'commission-board');
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+});
