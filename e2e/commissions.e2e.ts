@@ -80,8 +80,10 @@ describe('commissions and garment intake, end to end', () => {
       await row.getByLabel('Name').fill(name);
       await row.getByLabel('Width').fill(width);
       await row.getByLabel('Height').fill(height);
-      await row.getByRole('button', { name: 'Save panel' }).click();
-      await page.waitForResponse((r) => r.url().includes('/panels') && r.request().method() === 'POST' && r.status() === 201);
+      await Promise.all([
+        page.waitForResponse((r) => r.url().includes('/panels') && r.request().method() === 'POST' && r.status() === 201),
+        row.getByRole('button', { name: 'Save panel' }).click(),
+      ]);
     }
     await waitForCount(page.getByTestId('panel-row'), 2);
     // 19 1/2 in = 49.53 cm (1 in = 2.54 cm exactly): both systems are shown.
@@ -90,11 +92,22 @@ describe('commissions and garment intake, end to end', () => {
     expect(readings.join(' | ')).toMatch(/49\.5/);
     await screenshot(page, 'garment-panels');
 
-    // The board: the cushions are quoted; move them to booked by dragging, then on with the card's menu.
+    // The board: a new enquiry (opened here through the API, as the new-commission form would) is dragged
+    // to "Quoted", then moved on to "Booked" with its card's menu.
+    const title = await page.evaluate(async () => {
+      const token = decodeURIComponent(/XSRF-TOKEN=([^;]+)/.exec(document.cookie)![1]!);
+      const clients = await (await fetch('/api/clients?q=Ines')).json();
+      const res = await fetch('/api/commissions', {
+        method: 'POST',
+        headers: { 'Content-Type': 'application/json', 'X-XSRF-TOKEN': token },
+        body: JSON.stringify({ clientId: clients.items[0].id, title: 'Spring baby play mat', kind: 'baby_quilt', ageGroup: 'baby_under_1' }),
+      });
+      return (await res.json()).title as string;
+    });
     await page.goto('/commissions/board');
-    const card = page.getByTestId('board-card').filter({ hasText: 'Two cushions' });
+    const card = page.getByTestId('board-column-enquiry').getByTestId('board-card').filter({ hasText: title });
     await card.waitFor();
-    const target = page.getByTestId('board-column-booked');
+    const target = page.getByTestId('board-column-quoted');
     const from = (await card.boundingBox())!;
     const to = (await target.boundingBox())!;
     await page.mouse.move(from.x + from.width / 2, from.y + 20);
@@ -102,11 +115,11 @@ describe('commissions and garment intake, end to end', () => {
     await page.mouse.move(from.x + from.width / 2 + 10, from.y + 30, { steps: 5 });
     await page.mouse.move(to.x + to.width / 2, to.y + 80, { steps: 20 });
     await page.mouse.up();
-    await target.getByTestId('board-card').filter({ hasText: 'Two cushions' }).waitFor();
+    await target.getByTestId('board-card').filter({ hasText: title }).waitFor();
 
-    await target.getByTestId('board-card').filter({ hasText: 'Two cushions' }).getByRole('button', { name: /Move to/ }).click();
-    await page.getByRole('menuitem', { name: 'Garments in' }).click();
-    await page.getByTestId('board-column-garments_in').getByTestId('board-card').filter({ hasText: 'Two cushions' }).waitFor();
+    await target.getByTestId('board-card').filter({ hasText: title }).getByRole('button', { name: /to another stage/ }).click();
+    await page.getByRole('menuitem', { name: 'Booked' }).click();
+    await page.getByTestId('board-column-booked').getByTestId('board-card').filter({ hasText: title }).waitFor();
     await screenshot(page, 'commission-board');
     expect(problems).toEqual([]);
     await page.context().close();

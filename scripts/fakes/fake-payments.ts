@@ -214,7 +214,10 @@ if (require.main === module) {
   startFakePayments({ port: Number(process.env['FAKE_PAYMENTS_PORT'] ?? 12111), webhookUrl: `${appUrl}/api/payments/webhook`, webhookSecret: process.env['PAYMENTS_WEBHOOK_SECRET'] })
     .then((f) => {
       console.log(`fake payments: API and checkout on ${f.baseUrl}`);
-      const stop = () => void f.close().then(() => process.exit(0));
+      const stop = () => {
+        setTimeout(() => process.exit(0), 2000).unref();
+        void f.close().then(() => process.exit(0));
+      };
       process.on('SIGINT', stop);
       process.on('SIGTERM', stop);
     })

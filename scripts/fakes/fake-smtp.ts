@@ -130,7 +130,10 @@ if (require.main === module) {
   startFakeSmtp({ smtpPort: Number(process.env['FAKE_SMTP_PORT'] ?? 2525), apiPort: Number(process.env['FAKE_MAIL_API_PORT'] ?? 2526) })
     .then((f) => {
       console.log(`fake mail server: SMTP on 127.0.0.1:${f.smtpPort}, messages at http://127.0.0.1:${f.apiPort}/messages`);
-      const stop = () => void f.close().then(() => process.exit(0));
+      const stop = () => {
+        setTimeout(() => process.exit(0), 2000).unref();
+        void f.close().then(() => process.exit(0));
+      };
       process.on('SIGINT', stop);
       process.on('SIGTERM', stop);
     })
