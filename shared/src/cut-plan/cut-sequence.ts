@@ -4,7 +4,7 @@
 // further trims. Each cut runs straight from edge to edge of the region it is
 // made in, and is measured from that region's top or left edge.
 
-import type { CutRegion, CutStep, PlanRect, RegionContent } from './cut-plan';
+import type { CutRegion, CutStep, PlanRect, RegionContent } from './cut-plan-types';
 import type { CutNode, EmptyNode, PieceNode, SplitNode } from './guillotine-packer';
 import { SCALE } from './scaled-units';
 

@@ -24,5 +24,5 @@ export type {
   ShortfallReason,
   StudioFabricInput,
   StudioFabricSummary,
-} from './cut-plan';
+} from './cut-plan-types';
 export { CutPlanInputError } from './cut-plan-input-error';

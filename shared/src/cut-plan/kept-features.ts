@@ -3,7 +3,7 @@
 // feature or at a given offset), so it is placed before anything else and
 // the rest of the panel is cut around it with edge-to-edge cuts.
 
-import type { ShortfallReason } from './cut-plan';
+import type { ShortfallReason } from './cut-plan-types';
 import { emptyNode, type Box, type CutNode } from './guillotine-packer';
 import { allowedTurns, sourceAllows, type BinModel, type PlanModel } from './plan-model';
 import { stepsDown } from './scaled-units';

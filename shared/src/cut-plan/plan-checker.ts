@@ -12,7 +12,7 @@
 // shortfall reasons are true; the totals add up.
 
 import Decimal from 'decimal.js';
-import type { CutPlan, CutPlanInput, PieceInput, Placement } from './cut-plan';
+import type { CutPlan, CutPlanInput, PieceInput, Placement } from './cut-plan-types';
 
 /** Largest amount a piece may be larger than asked (the planner's resolution). */
 const ROUNDING = new Decimal('0.001');

@@ -9,7 +9,7 @@ import type {
   KeptFeaturePin,
   PieceInput,
   PieceSource,
-} from './cut-plan';
+} from './cut-plan-types';
 import { CutPlanInputError } from './cut-plan-input-error';
 import { stepsDown, stepsUp } from './scaled-units';
 

@@ -8,7 +8,7 @@ import type {
   PanelPlan,
   Placement,
   StudioFabricSummary,
-} from './cut-plan';
+} from './cut-plan-types';
 import { cutSequence, normalizeTree, trimUnbounded } from './cut-sequence';
 import type { CutNode, PieceNode } from './guillotine-packer';
 import type { PlanModel } from './plan-model';

@@ -1,7 +1,7 @@
 // Shortfall: what could not be placed, why, and the smallest extra fabric
 // that would hold it where that can be computed.
 
-import type { GarmentMinimumShortfall, PieceShortfall, PieceSource, ShortfallReason } from './cut-plan';
+import type { GarmentMinimumShortfall, PieceShortfall, PieceSource, ShortfallReason } from './cut-plan-types';
 import { emptyLeaves, fillRegion, VARIANTS, type CutNode, type FillContext } from './guillotine-packer';
 import type { PinnedFailure } from './kept-features';
 import { orientationsIn, sourceAllows, type BinModel, type Orientation, type PlanModel } from './plan-model';
