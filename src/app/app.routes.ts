@@ -22,6 +22,10 @@ export const routes: Routes = [
     loadChildren: () => import('./commissions/commissions.routes').then((m) => m.commissionsRoutes),
   },
   {
+    path: 'designs',
+    loadChildren: () => import('./designs/designs.routes').then((m) => m.designsRoutes),
+  },
+  {
     path: 'stock',
     canActivate: [roleGuard('owner')],
     loadChildren: () => import('./stock/stock.routes').then((m) => m.stockRoutes),

@@ -1,0 +1,110 @@
+import path from 'node:path';
+import type { Browser, Page } from 'playwright-core';
+import { DEMO_ACCOUNTS } from '../seeds/demo/accounts';
+import { launchBrowser, openPage, screenshot, signIn } from './support/browser';
+import { SCREENSHOT_DIR } from './support/e2e-env';
+import { renderPdfPage } from './support/render-pdf';
+
+/** Drags with the mouse in small steps, as the CDK needs to see a drag start. */
+async function drag(page: Page, from: string, to: string): Promise<void> {
+  await page.locator(to).first().scrollIntoViewIfNeeded();
+  const a = (await page.locator(from).first().boundingBox())!;
+  const b = (await page.locator(to).first().boundingBox())!;
+  await page.mouse.move(a.x + a.width / 2, a.y + a.height / 2);
+  await page.mouse.down();
+  for (let i = 1; i <= 12; i++) {
+    await page.mouse.move(a.x + a.width / 2 + ((b.x + b.width / 2 - a.x - a.width / 2) * i) / 12, a.y + a.height / 2 + ((b.y + b.height / 2 - a.y - a.height / 2) * i) / 12);
+  }
+  await page.mouse.up();
+}
+
+describe('design, cut plan and printouts, end to end', () => {
+  let browser: Browser;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(() => browser.close());
+
+  it('lets the owner build a design, assign garments, see yield and shortfall, print the cut list and get the PDFs', async () => {
+    const { page, problems } = await openPage(browser);
+    await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    const list = await (await page.request.get('/api/commissions?q=Work-shirt')).json();
+    await page.goto(`/commissions/${list.items[0].id}`);
+    await page.getByTestId('open-design').click();
+    await page.waitForURL(/\/designs\/\d+$/);
+    const commissionId = Number(new URL(page.url()).pathname.split('/').pop());
+
+    // The demo's saved design: drawing, size in both units, the client's earlier answer.
+    const drawing = page.getByTestId('quilt-drawing');
+    await drawing.waitFor();
+    await page.getByTestId('design-version').filter({ hasText: 'Version 2' }).waitFor();
+    await page.getByTestId('finished-size').filter({ hasText: '72 in (182.9 cm) × 86 in (218.4 cm)' }).waitFor();
+    await page.getByTestId('finished-size').filter({ hasText: 'length -2 in' }).waitFor();
+    await page.getByTestId('client-answer').filter({ hasText: 'tucks under the pillows' }).waitFor();
+    expect(await drawing.locator('polygon[data-position="0"]').count()).toBe(22); // hand-worked: background + 20 blades + centre
+    await page.getByTestId('yield-row').first().waitFor();
+    await screenshot(page, 'design-page');
+
+    // Build: a sixth row of blocks; the drawing follows at once, the plan after the server re-plans.
+    const rows = page.getByLabel('Rows');
+    await rows.fill('6');
+    await page.getByTestId('position-tile').nth(23).waitFor();
+    expect(await page.getByTestId('position-tile').count()).toBe(24);
+    await page.getByTestId('finished-size').filter({ hasText: '100 in' }).waitFor(); // hand-worked: 86 + 12 + 2
+    // Assign a garment to the first block by dragging it from the fabrics.
+    const blue = '[data-testid="fabric-chip"]:has-text("Blue oxford work shirt")';
+    await drag(page, blue, '[data-testid="position-tile"][data-position="0"]');
+    await page.waitForFunction(() => document.querySelector('svg[data-testid="quilt-drawing"] polygon[data-position="0"][data-fill^="garment:"]') !== null);
+    // More blocks than the four shirts can give: the plan reports what is short and what to do.
+    await page.getByTestId('shortfall').first().waitFor({ timeout: 20_000 });
+    await page.getByText(/Use fewer blocks|smaller block|studio fabric/).first().waitFor();
+    await screenshot(page, 'design-shortfall');
+
+    // Back to five rows, and save as a new version.
+    await rows.fill('5');
+    await page.getByTestId('position-tile').nth(19).waitFor();
+    await page.waitForFunction(() => document.querySelectorAll('[data-testid="position-tile"]').length === 20);
+    await page.getByLabel('Note for this version').fill('First plate from the blue shirt');
+    await page.getByRole('button', { name: 'Save as new version' }).click();
+    await page.getByTestId('design-version').filter({ hasText: 'Version 3' }).waitFor();
+
+    // The cut list's print view, as it prints.
+    await page.getByRole('link', { name: 'Cut list to print' }).click();
+    await page.waitForURL(/\/cut-list$/);
+    await page.getByTestId('cut-list-meta').filter({ hasText: 'design version 3' }).waitFor();
+    await page.getByTestId('cut-source').filter({ hasText: 'From the Blue oxford work shirt' }).waitFor();
+    await page.emulateMedia({ media: 'print' });
+    await screenshot(page, 'cut-list-print');
+    await page.emulateMedia({ media: 'screen' });
+
+    // The PDFs, downloaded with the owner's session.
+    for (const url of [`/api/commissions/${commissionId}/design/cut-list.pdf`, `/api/commissions/${commissionId}/design/sewing-order.pdf`, `/api/commissions/${commissionId}/design/templates.pdf?paper=a4`, `/api/commissions/${commissionId}/design/templates.pdf?paper=letter`, `/api/commissions/${commissionId}/care-card.pdf`]) {
+      const res = await page.request.get(url);
+      expect(res.status()).toBe(200);
+      expect(res.headers()['content-type']).toBe('application/pdf');
+      const body = await res.body();
+      expect(body.subarray(0, 5).toString()).toBe('%PDF-');
+      if (url.includes('cut-list')) await renderPdfPage(browser, body, path.join(SCREENSHOT_DIR, 'cut-list-pdf-page1.png'));
+      if (url.includes('paper=a4')) await renderPdfPage(browser, body, path.join(SCREENSHOT_DIR, 'templates-a4-page1.png'));
+    }
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+
+  it('shows the client the shared drawing and takes their answer', async () => {
+    const { page, problems } = await openPage(browser);
+    await signIn(page, DEMO_ACCOUNTS.clientA.email, DEMO_ACCOUNTS.clientA.password);
+    await page.getByText('Work-shirt memory quilt').first().click();
+    await page.getByTestId('see-design').click();
+    await page.getByTestId('quilt-drawing').waitFor();
+    await page.getByTestId('review-size').waitFor();
+    const body = await page.locator('body').innerText();
+    expect(body).not.toMatch(/yield|Cut list|£/);
+    await page.getByLabel('A note for the maker').fill('Lovely. Could the green shirt be in the middle?');
+    await page.getByRole('button', { name: 'Ask for a change' }).click();
+    await page.getByTestId('review-answer').filter({ hasText: 'green shirt be in the middle' }).waitFor();
+    await screenshot(page, 'client-design-review');
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+});

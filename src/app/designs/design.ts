@@ -1,0 +1,109 @@
+import type { DesignBody, DesignDerivation, DesignPlanSummary, FabricRef } from '@keepstitch/shared';
+import * as z from 'zod/mini';
+
+const object = <T>() => z.custom<T>((v) => typeof v === 'object' && v !== null);
+const date = z.nullable(z.string());
+
+/** A fabric the design may name, with the colour the drawing uses. */
+export const fabricSchema = z.object({
+  key: z.string(),
+  kind: z.enum(['garment', 'stock', 'group']),
+  id: z.optional(z.nullable(z.number())),
+  name: z.string(),
+  colour: z.optional(z.nullable(z.string())),
+  hex: z.string(),
+  detail: z.optional(z.string()),
+});
+export type Fabric = z.infer<typeof fabricSchema>;
+
+export const versionSchema = z.object({
+  id: z.number(),
+  version: z.number(),
+  body: object<DesignBody>(),
+  derived: object<DesignDerivation>(),
+  plan: object<DesignPlanSummary>(),
+  note: z.nullable(z.string()),
+  createdAt: z.string(),
+  sharedAt: date,
+  clientResponse: z.nullable(z.enum(['approved', 'changes_requested'])),
+  clientNote: z.nullable(z.string()),
+  respondedAt: date,
+});
+export type DesignVersion = z.infer<typeof versionSchema>;
+
+export const garmentSourceSchema = z.object({
+  id: z.number(),
+  description: z.string(),
+  colour: z.nullable(z.string()),
+  fibre: z.string(),
+  print: z.string(),
+  construction: z.string(),
+  panels: z.array(z.object({ id: z.number(), name: z.string(), widthMm: z.string(), heightMm: z.string(), grain: z.string() })),
+});
+export type GarmentSource = z.infer<typeof garmentSourceSchema>;
+
+export const stockSourceSchema = z.object({ id: z.number(), name: z.string(), colour: z.nullable(z.string()), fibre: z.string(), widthMm: z.string(), lengthMm: z.string() });
+export type StockSource = z.infer<typeof stockSourceSchema>;
+
+export const designScreenSchema = z.object({
+  commission: z.object({
+    id: z.number(),
+    title: z.string(),
+    kind: z.string(),
+    ageGroup: z.string(),
+    sizePreset: z.nullable(z.string()),
+    widthMm: z.nullable(z.string()),
+    lengthMm: z.nullable(z.string()),
+    stage: z.string(),
+  }),
+  current: z.nullable(versionSchema),
+  versions: z.array(
+    z.object({ id: z.number(), version: z.number(), note: z.nullable(z.string()), createdAt: z.string(), sharedAt: date, clientResponse: z.nullable(z.string()), clientNote: z.nullable(z.string()), respondedAt: date }),
+  ),
+  fabrics: z.array(fabricSchema),
+  garments: z.array(garmentSourceSchema),
+  stock: z.array(stockSourceSchema),
+});
+export type DesignScreen = z.infer<typeof designScreenSchema>;
+
+export const previewSchema = z.object({ derived: object<DesignDerivation>(), plan: object<DesignPlanSummary>(), fabrics: z.array(fabricSchema) });
+export type DesignPreview = z.infer<typeof previewSchema>;
+
+export const sharedDesignSchema = z.object({
+  commission: z.object({ id: z.number(), title: z.string() }),
+  version: z.number(),
+  sharedAt: z.string(),
+  body: object<DesignBody>(),
+  derived: object<DesignDerivation>(),
+  fabrics: z.array(z.object({ key: z.string(), kind: z.string(), name: z.string(), hex: z.string() })),
+  clientResponse: z.nullable(z.enum(['approved', 'changes_requested'])),
+  clientNote: z.nullable(z.string()),
+  respondedAt: date,
+});
+export type SharedDesign = z.infer<typeof sharedDesignSchema>;
+
+/** Words for a fabric reference, from the legend. */
+export function fabricName(ref: FabricRef | null, fabrics: readonly { key: string; name: string }[]): string {
+  if (!ref) return 'Planner chooses (any garment)';
+  const key = ref.kind === 'garment' ? `garment:${ref.garmentId}` : ref.kind === 'stock' ? `stock:${ref.stockId}` : `group:${[...ref.garmentIds].sort((a, b) => a - b).join(',')}`;
+  return fabrics.find((f) => f.key === key)?.name ?? (ref.kind === 'group' ? ref.name : key);
+}
+
+/** A design to start from: the commission's size, 12 in plain squares with 2 in sashing. */
+export function starterDesign(widthMm: string | null, lengthMm: string | null): DesignBody {
+  const w = Number(widthMm ?? 1524);
+  const l = Number(lengthMm ?? 1828.8);
+  const block = 304.8;
+  const columns = Math.max(1, Math.floor((w + 50.8) / (block + 50.8)));
+  const rows = Math.max(1, Math.floor((l + 50.8) / (block + 50.8)));
+  return {
+    units: 'imperial',
+    target: { preset: null, dropMm: null, widthMm: String(w), lengthMm: String(l) },
+    layout: { setting: 'straight', rows, columns, blockMm: String(block), sashing: { widthMm: '50.8', cornerstones: true }, borders: [] },
+    blocks: [{ id: 'A', name: 'Plain square', kind: 'square' }],
+    pattern: ['A'],
+    assignments: [],
+    finishing: { bindingStockId: null, bindingStripMm: '63.5', backingStockId: null, waddingStockId: null, prewash: true, shrinkPercent: '3' },
+    rules: { minimumPerGarment: 0 },
+  };
+}

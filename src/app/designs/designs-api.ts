@@ -1,0 +1,54 @@
+import { HttpClient, HttpContext } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import type { DesignBody } from '@keepstitch/shared';
+import { Observable, map } from 'rxjs';
+
+import { REPORT_API_ERRORS } from '../core/api-error';
+import { DesignPreview, DesignScreen, DesignVersion, SharedDesign, designScreenSchema, previewSchema, sharedDesignSchema, versionSchema } from './design';
+
+/** Errors of these calls are shown by the page beside what sent them. */
+const quiet = { context: new HttpContext().set(REPORT_API_ERRORS, false) };
+
+/** Every call about a commission's design, its review by the client and its printouts. */
+@Injectable({ providedIn: 'root' })
+export class DesignsApi {
+  private readonly http = inject(HttpClient);
+
+  screen(commissionId: number): Observable<DesignScreen> {
+    return this.http.get<unknown>(`/api/commissions/${commissionId}/design`).pipe(map((b) => designScreenSchema.parse(b)));
+  }
+
+  preview(commissionId: number, body: DesignBody): Observable<DesignPreview> {
+    return this.http.post<unknown>(`/api/commissions/${commissionId}/design/preview`, body, quiet).pipe(map((b) => previewSchema.parse(b)));
+  }
+
+  save(commissionId: number, body: DesignBody, note: string | null): Observable<DesignVersion> {
+    return this.http.post<unknown>(`/api/commissions/${commissionId}/design`, { body, note }, quiet).pipe(map((b) => versionSchema.parse(b)));
+  }
+
+  share(commissionId: number): Observable<void> {
+    return this.http.post<unknown>(`/api/commissions/${commissionId}/design/share`, {}, quiet).pipe(map(() => undefined));
+  }
+
+  shared(commissionId: number): Observable<SharedDesign> {
+    return this.http.get<unknown>(`/api/commissions/${commissionId}/design/shared`).pipe(map((b) => sharedDesignSchema.parse(b)));
+  }
+
+  respond(commissionId: number, response: 'approved' | 'changes_requested', note: string | null): Observable<void> {
+    return this.http.post<unknown>(`/api/commissions/${commissionId}/design/response`, { response, note }, quiet).pipe(map(() => undefined));
+  }
+
+  /** Addresses of the server's PDFs (opened by the browser, not through HttpClient). */
+  pdf(commissionId: number, kind: 'cut-list' | 'sewing-order' | 'templates-a4' | 'templates-letter' | 'care-card'): string {
+    switch (kind) {
+      case 'templates-a4':
+        return `/api/commissions/${commissionId}/design/templates.pdf?paper=a4`;
+      case 'templates-letter':
+        return `/api/commissions/${commissionId}/design/templates.pdf?paper=letter`;
+      case 'care-card':
+        return `/api/commissions/${commissionId}/care-card.pdf`;
+      default:
+        return `/api/commissions/${commissionId}/design/${kind}.pdf`;
+    }
+  }
+}
