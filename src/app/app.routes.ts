@@ -46,5 +46,17 @@ export const routes: Routes = [
     canActivate: [roleGuard('client')],
     loadComponent: () => import('./my-details/my-details').then((m) => m.MyDetails),
   },
+  {
+    path: 'settings',
+    title: 'Settings',
+    canActivate: [roleGuard('owner')],
+    loadComponent: () => import('./settings/settings-page').then((m) => m.SettingsPage),
+  },
+  {
+    path: 'mail',
+    title: 'Mail',
+    canActivate: [roleGuard('owner')],
+    loadComponent: () => import('./mail/mail-page').then((m) => m.MailPage),
+  },
   { path: '**', title: 'Page not found', component: NotFound },
 ];

@@ -43,6 +43,22 @@ const detail: CommissionDetail = {
   facts: { garmentCount: 1, garmentsReceived: 1 },
 };
 
+const studioSettings = {
+  studioName: 'Test studio',
+  makerName: 'Ottilie Marsh',
+  address: '',
+  email: null,
+  hourlyRatePence: 2500,
+  vatRegistered: false,
+  vatRate: '20',
+  vatMode: 'line',
+  vatNumber: null,
+  depositPercent: '30',
+  validityDays: 30,
+  paymentTerms: '',
+  blockMinutes: {},
+};
+
 describe('CommissionPage', () => {
   let fixture: ComponentFixture<CommissionPage>;
   let loader: HarnessLoader;
@@ -67,6 +83,11 @@ describe('CommissionPage', () => {
     page = fixture.nativeElement as HTMLElement;
     await fixture.whenStable();
     httpMock.expectOne('/api/commissions/3').flush(detail);
+    await fixture.whenStable();
+    // The owner's quote section loads its own data (see quotes/).
+    httpMock.expectOne('/api/commissions/3/quotes').flush({ items: [] });
+    httpMock.expectOne('/api/commissions/3/payments').flush({ items: [], due: null });
+    httpMock.expectOne('/api/settings').flush(studioSettings);
     await fixture.whenStable();
   });
 

@@ -22,6 +22,7 @@ import {
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
+import { QuoteSection } from '../quotes/quote-section';
 import { CautionCards } from '../shared/caution-cards';
 import { showMillimetres } from '../shared/length-text';
 import { Photo } from '../shared/photo';
@@ -52,6 +53,7 @@ type LoadState = 'loading' | 'ready' | 'missing' | 'failed';
     PhotoGallery,
     PhotoUpload,
     GarmentIntake,
+    QuoteSection,
   ],
   templateUrl: './commission-page.html',
   styleUrl: './commission-page.scss',
@@ -80,6 +82,8 @@ export class CommissionPage {
   protected readonly commission = signal<CommissionDetail | null>(null);
   protected readonly intakeOpen = signal(false);
   protected readonly isStaff = computed(() => this.auth.role() === 'owner' || this.auth.role() === 'workroom');
+  /** Prices and payments are the owner's alone. */
+  protected readonly isOwner = computed(() => this.auth.role() === 'owner');
   protected readonly commissionId = computed(() => Number(this.id()));
   protected readonly progressUrl = computed(() => `/api/commissions/${this.commissionId()}/photos`);
 

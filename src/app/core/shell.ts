@@ -25,6 +25,8 @@ const navItems: readonly NavItem[] = [
   { path: '/clients', label: 'Clients', icon: 'group', roles: ['owner', 'workroom'] },
   { path: '/stock', label: 'Studio fabric', icon: 'inventory_2', roles: ['owner'] },
   { path: '/users', label: 'Users', icon: 'manage_accounts', roles: ['owner'] },
+  { path: '/mail', label: 'Mail', icon: 'mail', roles: ['owner'] },
+  { path: '/settings', label: 'Settings', icon: 'settings', roles: ['owner'] },
   { path: '/portal', label: 'My commissions', icon: 'assignment', roles: ['client'] },
   { path: '/my-details', label: 'My details', icon: 'badge', roles: ['client'] },
 ];

@@ -62,6 +62,10 @@ describe('PortalCommission', () => {
     await fixture.whenStable();
     httpMock.expectOne('/api/commissions/5').flush(detail);
     await fixture.whenStable();
+    // The quote section loads its own data (see quotes/client-quote.spec.ts).
+    httpMock.expectOne('/api/commissions/5/quotes').flush({ items: [] });
+    httpMock.expectOne('/api/commissions/5/payments').flush({ items: [], due: null });
+    await fixture.whenStable();
   });
 
   afterEach(() => httpMock.verify());

@@ -13,6 +13,7 @@ import { CommissionDetail, GarmentDetail, orNull, showDate } from '../commission
 import { CommissionsApi } from '../commissions/commissions-api';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
+import { ClientQuote } from '../quotes/client-quote';
 import { CautionCards } from '../shared/caution-cards';
 import { PhotoGallery } from '../shared/photo-gallery';
 import { PhotoUpload } from '../shared/photo-upload';
@@ -33,6 +34,7 @@ import { applyServerFieldErrors } from '../shared/server-field-errors';
     CautionCards,
     PhotoGallery,
     PhotoUpload,
+    ClientQuote,
   ],
   templateUrl: './portal-commission.html',
   styleUrl: './portal-commission.scss',
@@ -43,6 +45,10 @@ export class PortalCommission {
   private readonly notices = inject(Notices);
 
   readonly id = input.required<string>();
+  /** `?quote=` in the quote e-mail's link. */
+  readonly quote = input<string | undefined>(undefined);
+  /** `?payment=done|cancelled` on return from the card payment page. */
+  readonly payment = input<string | undefined>(undefined);
 
   protected readonly stages = STAGES;
   protected readonly stageLabels = STAGE_LABELS;

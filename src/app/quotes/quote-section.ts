@@ -1,0 +1,178 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, untracked } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
+import { MatDialog } from '@angular/material/dialog';
+import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { Stage, formatPounds } from '@keepstitch/shared';
+import { filter, forkJoin, switchMap } from 'rxjs';
+
+import { showDate } from '../commissions/commission';
+import { messageFor } from '../core/api-error';
+import { Notices } from '../core/notices';
+import { SettingsApi } from '../settings/settings-api';
+import { ConfirmDialog, ConfirmDialogData } from './confirm-dialog';
+import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft, showDateTime } from './quote';
+import { QuoteEditor } from './quote-editor';
+import { QuoteSummary } from './quote-summary';
+import { QuotesApi } from './quotes-api';
+
+/**
+ * The owner's quotes and payments for one commission: every version, the
+ * editor for a draft, the frozen view of a sent one, and the payments with
+ * the deposit refund after a cancellation. Never shown to the workroom.
+ */
+@Component({
+  selector: 'ks-quote-section',
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, QuoteEditor, QuoteSummary],
+  templateUrl: './quote-section.html',
+  styleUrl: './quote-section.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class QuoteSection {
+  private readonly api = inject(QuotesApi);
+  private readonly settingsApi = inject(SettingsApi);
+  private readonly dialog = inject(MatDialog);
+  private readonly notices = inject(Notices);
+
+  readonly commissionId = input.required<number>();
+  readonly stage = input.required<Stage>();
+  /** Sending a quote or refunding a deposit can change the commission (its stage). */
+  readonly changed = output<void>();
+
+  protected readonly statusLabels = QUOTE_STATUS_LABELS;
+  protected readonly paymentKindLabels = PAYMENT_KIND_LABELS;
+  protected readonly paymentStatusLabels = PAYMENT_STATUS_LABELS;
+  protected readonly showDate = showDate;
+  protected readonly showDateTime = showDateTime;
+
+  protected readonly state = signal<'loading' | 'ready' | 'failed'>('loading');
+  protected readonly quotes = signal<Quote[]>([]);
+  protected readonly payments = signal<Payments | null>(null);
+  protected readonly hourlyRatePence = signal<number | null>(null);
+  protected readonly defaultDeposit = signal<number | null>(null);
+  protected readonly selectedId = signal<number | null>(null);
+  protected readonly creating = signal(false);
+  protected readonly refunding = signal(false);
+  protected readonly actionError = signal<string | null>(null);
+
+  protected readonly selected = computed<Quote | null>(() => {
+    const list = this.quotes();
+    return list.find((q) => q.id === this.selectedId()) ?? list[0] ?? null;
+  });
+  protected readonly hasDraft = computed(() => this.quotes().some((q) => q.status === 'draft'));
+  protected readonly closed = computed(() => this.stage() === 'delivered' || this.stage() === 'cancelled');
+  protected readonly canRefund = computed(
+    () => this.stage() === 'cancelled' && (this.payments()?.items ?? []).some((p) => p.kind === 'deposit' && p.status === 'paid'),
+  );
+
+  constructor() {
+    effect(() => {
+      const id = this.commissionId();
+      untracked(() => this.load(id));
+    });
+  }
+
+  protected load(id = this.commissionId()): void {
+    this.state.set('loading');
+    forkJoin({ quotes: this.api.list(id), payments: this.api.payments(id), settings: this.settingsApi.get() }).subscribe({
+      next: ({ quotes, payments, settings }) => {
+        this.quotes.set(quotes);
+        this.payments.set(payments);
+        this.hourlyRatePence.set(settings.hourlyRatePence);
+        this.defaultDeposit.set(Number(settings.depositPercent));
+        this.state.set('ready');
+      },
+      error: () => this.state.set('failed'),
+    });
+  }
+
+  protected select(quote: Quote): void {
+    this.selectedId.set(quote.id);
+  }
+
+  /** A new draft version, starting from the newest version's lines, or from one labour line at the hourly rate. */
+  protected newQuote(): void {
+    const latest = this.quotes()[0];
+    const draft: QuoteDraft = latest
+      ? {
+          intro: latest.intro ?? '',
+          lines: latest.lines.map((l) => ({ kind: l.kind, description: l.description, quantity: l.quantity, unit: l.unit, unitPricePence: l.unitPricePence, ...(l.stage ? { stage: l.stage } : {}) })),
+          depositPercent: latest.depositPercent,
+        }
+      : {
+          lines: [{ kind: 'labour', description: 'Making: piecing, quilting and binding', quantity: '1', unit: 'hours', unitPricePence: this.hourlyRatePence() ?? 0 }],
+          ...(this.defaultDeposit() !== null ? { depositPercent: this.defaultDeposit()! } : {}),
+        };
+    this.creating.set(true);
+    this.actionError.set(null);
+    this.api.create(this.commissionId(), draft).subscribe({
+      next: (quote) => {
+        this.creating.set(false);
+        this.quotes.update((list) => [quote, ...list]);
+        this.selectedId.set(quote.id);
+        this.notices.info(`Draft version ${quote.version} started.`);
+      },
+      error: (error: unknown) => {
+        this.creating.set(false);
+        this.actionError.set(messageFor(error));
+      },
+    });
+  }
+
+  protected quoteSaved(quote: Quote): void {
+    this.replace(quote);
+    this.notices.info(`Version ${quote.version} saved.`);
+  }
+
+  protected quoteSent(quote: Quote): void {
+    this.notices.info(`Version ${quote.version} sent to the client.`);
+    this.selectedId.set(quote.id);
+    this.load();
+    this.changed.emit();
+  }
+
+  protected refundDeposit(): void {
+    const deposit = this.payments()?.items.find((p) => p.kind === 'deposit' && p.status === 'paid');
+    if (!deposit) return;
+    const data: ConfirmDialogData = {
+      title: 'Refund the deposit?',
+      message: `${formatPounds(deposit.amountPence)} goes back to the client’s card. This cannot be undone.`,
+      confirmLabel: 'Refund deposit',
+      cancelLabel: 'Keep it',
+    };
+    this.actionError.set(null);
+    this.dialog
+      .open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, { data })
+      .afterClosed()
+      .pipe(
+        filter((yes) => yes === true),
+        switchMap(() => {
+          this.refunding.set(true);
+          return this.api.refundDeposit(this.commissionId());
+        }),
+      )
+      .subscribe({
+        next: () => {
+          this.refunding.set(false);
+          this.notices.info('The deposit is refunded.');
+          this.load();
+        },
+        error: (error: unknown) => {
+          this.refunding.set(false);
+          this.actionError.set(messageFor(error));
+        },
+      });
+  }
+
+  protected pdfUrl(quote: Quote): string {
+    return this.api.pdfUrl(quote.id);
+  }
+
+  protected pounds(pence: number): string {
+    return formatPounds(pence);
+  }
+
+  private replace(quote: Quote): void {
+    this.quotes.update((list) => list.map((q) => (q.id === quote.id ? quote : q)));
+  }
+}

@@ -1,0 +1,75 @@
+import { HttpClient, HttpContext } from '@angular/common/http';
+import { Injectable, inject } from '@angular/core';
+import { Observable, map } from 'rxjs';
+
+import { REPORT_API_ERRORS } from '../core/api-error';
+import { Payment, Payments, Quote, QuoteDraft, checkoutSchema, paymentSchema, paymentsSchema, quoteListSchema, quoteSchema } from './quote';
+
+/** Errors of these calls are shown by the page beside the button or form that made them. */
+const quiet = { context: new HttpContext().set(REPORT_API_ERRORS, false) };
+
+/** Every call about a commission's quotes and payments, for the owner and the client. */
+@Injectable({ providedIn: 'root' })
+export class QuotesApi {
+  private readonly http = inject(HttpClient);
+
+  /** Newest version first; a client gets only the versions that were sent. */
+  list(commissionId: number): Observable<Quote[]> {
+    return this.http
+      .get<unknown>(`/api/commissions/${commissionId}/quotes`)
+      .pipe(map((body) => quoteListSchema.parse(body).items));
+  }
+
+  create(commissionId: number, draft: QuoteDraft): Observable<Quote> {
+    return this.http
+      .post<unknown>(`/api/commissions/${commissionId}/quotes`, draft, quiet)
+      .pipe(map((body) => quoteSchema.parse(body)));
+  }
+
+  update(id: number, draft: QuoteDraft): Observable<Quote> {
+    return this.http.put<unknown>(`/api/quotes/${id}`, draft, quiet).pipe(map((body) => quoteSchema.parse(body)));
+  }
+
+  send(id: number): Observable<Quote> {
+    return this.http.post<unknown>(`/api/quotes/${id}/send`, null, quiet).pipe(map((body) => quoteSchema.parse(body)));
+  }
+
+  accept(id: number, name: string): Observable<Quote> {
+    return this.http.post<unknown>(`/api/quotes/${id}/accept`, { name }, quiet).pipe(map((body) => quoteSchema.parse(body)));
+  }
+
+  decline(id: number, note?: string): Observable<Quote> {
+    return this.http
+      .post<unknown>(`/api/quotes/${id}/decline`, note ? { note } : {}, quiet)
+      .pipe(map((body) => quoteSchema.parse(body)));
+  }
+
+  pdfUrl(id: number): string {
+    return `/api/quotes/${id}/pdf`;
+  }
+
+  payments(commissionId: number): Observable<Payments> {
+    return this.http
+      .get<unknown>(`/api/commissions/${commissionId}/payments`)
+      .pipe(map((body) => paymentsSchema.parse(body)));
+  }
+
+  /** The address of the hosted card payment page for the deposit. */
+  depositCheckout(quoteId: number): Observable<string> {
+    return this.http
+      .post<unknown>(`/api/quotes/${quoteId}/deposit-checkout`, null, quiet)
+      .pipe(map((body) => checkoutSchema.parse(body).url));
+  }
+
+  balanceCheckout(commissionId: number): Observable<string> {
+    return this.http
+      .post<unknown>(`/api/commissions/${commissionId}/balance-checkout`, null, quiet)
+      .pipe(map((body) => checkoutSchema.parse(body).url));
+  }
+
+  refundDeposit(commissionId: number): Observable<Payment> {
+    return this.http
+      .post<unknown>(`/api/commissions/${commissionId}/refund-deposit`, null, quiet)
+      .pipe(map((body) => paymentSchema.parse(body)));
+  }
+}
