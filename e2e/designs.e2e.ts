@@ -45,12 +45,13 @@ describe('design, cut plan and printouts, end to end', () => {
     await page.getByTestId('yield-row').first().waitFor();
     await screenshot(page, 'design-page');
 
-    // Build: a sixth row of blocks; the drawing follows at once, the plan after the server re-plans.
+    // Build: twelve rows of blocks, far more than the garments hold (even with garments other specs add);
+    // the drawing follows at once, the plan after the server re-plans.
     const rows = page.getByLabel('Rows');
-    await rows.fill('6');
-    await page.getByTestId('position-tile').nth(23).waitFor();
-    expect(await page.getByTestId('position-tile').count()).toBe(24);
-    await page.getByTestId('finished-size').filter({ hasText: '100 in' }).waitFor(); // hand-worked: 86 + 12 + 2
+    await rows.fill('12');
+    await page.getByTestId('position-tile').nth(47).waitFor();
+    expect(await page.getByTestId('position-tile').count()).toBe(48);
+    await page.getByTestId('finished-size').filter({ hasText: '184 in' }).waitFor(); // hand-worked: 12 x 12 + 11 x 2 + 2 x 9
     // Assign a garment to the first block by dragging it from the fabrics.
     const blue = '[data-testid="fabric-chip"]:has-text("Blue oxford work shirt")';
     await drag(page, blue, '[data-testid="position-tile"][data-position="0"]');
