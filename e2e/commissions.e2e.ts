@@ -19,6 +19,13 @@ async function photoFile(): Promise<string> {
   return file;
 }
 
+/** Closes any notice at the foot of the page, so it cannot lie over the buttons below it. */
+async function dismissNotices(page: Page): Promise<void> {
+  const close = page.locator('mat-snack-bar-container').getByRole('button', { name: 'Close' });
+  if (await close.count()) await close.first().click();
+  await page.locator('mat-snack-bar-container').waitFor({ state: 'detached' });
+}
+
 async function choose(page: Page, label: string, option: string): Promise<void> {
   await page.getByLabel(label, { exact: true }).click();
   await page.getByRole('option', { name: option, exact: true }).click();
@@ -73,6 +80,7 @@ describe('commissions and garment intake, end to end', () => {
     await page.getByRole('button', { name: 'Record event' }).click();
     await page.getByTestId('garment-place').filter({ hasText: 'Box A5' }).waitFor();
     await waitForCount(page.getByTestId('custody-event'), 3);
+    await dismissNotices(page);
 
     for (const [name, width, height] of [['back', '19 1/2', '26'], ['fringe end', '10 1/4', '22 1/2']] as const) {
       await page.getByRole('button', { name: 'Add panel' }).click();
@@ -84,6 +92,7 @@ describe('commissions and garment intake, end to end', () => {
         page.waitForResponse((r) => r.url().includes('/panels') && r.request().method() === 'POST' && r.status() === 201),
         row.getByRole('button', { name: 'Save panel' }).click(),
       ]);
+      await dismissNotices(page);
     }
     await waitForCount(page.getByTestId('panel-row'), 2);
     // 19 1/2 in = 49.53 cm (1 in = 2.54 cm exactly): both systems are shown.

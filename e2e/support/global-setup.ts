@@ -52,6 +52,8 @@ export default async function globalSetup(): Promise<void> {
   const code = await new Promise<number | null>((r) => prepare.on('exit', r));
   if (code !== 0) throw new Error('Preparing the end-to-end database failed.');
 
+  const stale = await fetch(`http://127.0.0.1:${E2E_PORT}/api/health`).then(() => true, () => false);
+  if (stale) throw new Error(`Something already answers on port ${E2E_PORT}; stop it (or set E2E_PORT) before the end-to-end tests.`);
   mkdirSync(path.join(ROOT, 'test-output'), { recursive: true });
   const log = openSync(path.join(ROOT, 'test-output', 'e2e-server.log'), 'w');
   globalThis.__keepstitchFakes = ['scripts/fakes/fake-smtp.ts', 'scripts/fakes/fake-payments.ts'].map((script) =>
