@@ -1,17 +1,36 @@
 import PDFDocument from 'pdfkit';
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 
 const FONT_DIR = path.resolve(__dirname, '..', '..', 'node_modules', '@fontsource', 'lato', 'files');
-/** Lato from the bundled font package (pdfkit draws .woff; .woff2 would come out blank). */
-export const LATO = path.join(FONT_DIR, 'lato-latin-400-normal.woff');
-export const LATO_BOLD = path.join(FONT_DIR, 'lato-latin-700-normal.woff');
+let fonts: { regular: Buffer; bold: Buffer } | null = null;
 
-/** A new A4 document with Lato registered as "body" and "bold". 1 in = 72 pt. */
-export function newDocument(info: { title: string; author?: string }, size: 'A4' | 'LETTER' = 'A4'): PDFKit.PDFDocument {
-  const doc = new PDFDocument({ size, margin: 56, info: { Title: info.title, Author: info.author ?? 'Keepstitch', Creator: 'Keepstitch' }, bufferPages: true });
-  doc.registerFont('body', LATO);
-  doc.registerFont('bold', LATO_BOLD);
-  doc.font('body');
+/** Lato from the bundled font package, read once (pdfkit draws .woff; .woff2 would come out blank). */
+function lato() {
+  fonts ??= {
+    regular: readFileSync(path.join(FONT_DIR, 'lato-latin-400-normal.woff')),
+    bold: readFileSync(path.join(FONT_DIR, 'lato-latin-700-normal.woff')),
+  };
+  return fonts;
+}
+
+/** PDF points per millimetre: 1 in = 72 pt exactly, 1 in = 25.4 mm exactly. */
+export const PT_PER_MM = 72 / 25.4;
+
+export type Paper = 'a4' | 'letter';
+export const PAPER_SIZES: Record<Paper, [number, number]> = { a4: [595.28, 841.89], letter: [612, 792] };
+
+/** A new document with Lato registered as "Lato" and "Lato-Bold". */
+export function newDocument(title: string, options: { paper?: Paper; margin?: number; author?: string } = {}): PDFKit.PDFDocument {
+  const doc = new PDFDocument({
+    size: options.paper === 'letter' ? 'LETTER' : 'A4',
+    margin: options.margin ?? 40,
+    info: { Title: title, Author: options.author ?? 'Keepstitch', Producer: 'Keepstitch', Creator: 'Keepstitch' },
+  });
+  const f = lato();
+  doc.registerFont('Lato', f.regular);
+  doc.registerFont('Lato-Bold', f.bold);
+  doc.font('Lato');
   return doc;
 }
 

@@ -17,18 +17,18 @@ const day = (d: Date | string | null) =>
 
 /** The quote as the client receives it: studio, client, lines, VAT, total, deposit, validity, terms and cautions. */
 export async function quotePdf(d: QuotePdfData): Promise<Buffer> {
-  const doc = newDocument({ title: `Quote ${d.commission.id}-v${d.quote.version} for ${d.commission.title}`, author: d.studio.name });
+  const doc = newDocument(`Quote ${d.commission.id}-v${d.quote.version} for ${d.commission.title}`, { margin: 56, author: d.studio.name });
   const left = doc.page.margins.left;
   const width = doc.page.width - left - doc.page.margins.right;
 
-  doc.font('bold').fontSize(20).text(d.studio.name);
-  doc.font('body').fontSize(9).fillColor('#444').text(d.studio.address);
+  doc.font('Lato-Bold').fontSize(20).text(d.studio.name);
+  doc.font('Lato').fontSize(9).fillColor('#444').text(d.studio.address);
   if (d.studio.email) doc.text(d.studio.email);
   if (d.studio.vatNumber) doc.text(`VAT number ${d.studio.vatNumber}`);
   doc.moveDown(1.2).fillColor('#000');
 
-  doc.font('bold').fontSize(15).text(`Quote for ${d.commission.title}`);
-  doc.font('body').fontSize(10).text(`Version ${d.quote.version}${d.quote.sentAt ? `, sent ${day(d.quote.sentAt)}` : ' (draft)'}`);
+  doc.font('Lato-Bold').fontSize(15).text(`Quote for ${d.commission.title}`);
+  doc.font('Lato').fontSize(10).text(`Version ${d.quote.version}${d.quote.sentAt ? `, sent ${day(d.quote.sentAt)}` : ' (draft)'}`);
   if (d.quote.validUntil) doc.text(`Valid until ${day(d.quote.validUntil)}`);
   doc.moveDown(0.6).text(`For: ${d.client.name}`);
   if (d.client.address) doc.fillColor('#444').text(d.client.address).fillColor('#000');
@@ -37,12 +37,12 @@ export async function quotePdf(d: QuotePdfData): Promise<Buffer> {
 
   const cols = [left, left + width * 0.52, left + width * 0.68, left + width * 0.84];
   const header = (y: number) => {
-    doc.font('bold').fontSize(9);
+    doc.font('Lato-Bold').fontSize(9);
     doc.text('Item', cols[0]!, y, { width: width * 0.5 });
     doc.text('Quantity', cols[1]!, y, { width: width * 0.15, align: 'right' });
     doc.text('Unit price', cols[2]!, y, { width: width * 0.15, align: 'right' });
     doc.text('Amount', cols[3]!, y, { width: width * 0.16, align: 'right' });
-    doc.font('body');
+    doc.font('Lato');
     doc.moveTo(left, y + 13).lineTo(left + width, y + 13).lineWidth(0.5).stroke();
     return y + 18;
   };
@@ -62,7 +62,7 @@ export async function quotePdf(d: QuotePdfData): Promise<Buffer> {
   doc.moveTo(left, y).lineTo(left + width, y).lineWidth(0.5).stroke();
   y += 6;
   const total = (label: string, pence: number, bold = false) => {
-    doc.font(bold ? 'bold' : 'body').fontSize(bold ? 11 : 10);
+    doc.font(bold ? 'Lato-Bold' : 'Lato').fontSize(bold ? 11 : 10);
     doc.text(label, cols[1]!, y, { width: width * 0.31, align: 'right' });
     doc.text(formatPounds(pence), cols[3]!, y, { width: width * 0.16, align: 'right' });
     y += bold ? 17 : 14;
@@ -73,17 +73,17 @@ export async function quotePdf(d: QuotePdfData): Promise<Buffer> {
   total(`Deposit due on acceptance (${Number(d.quote.depositPercent)}%)`, d.totals.depositPence);
   total('Balance due before delivery', d.totals.balancePence);
   if (d.quote.vatRate === null) {
-    doc.font('body').fontSize(8).text('The studio is not VAT registered; no VAT is charged.', left, y, { width });
+    doc.font('Lato').fontSize(8).text('The studio is not VAT registered; no VAT is charged.', left, y, { width });
     y += 12;
   }
 
-  doc.font('body').fontSize(9).fillColor('#000');
+  doc.font('Lato').fontSize(9).fillColor('#000');
   doc.text('', left, y + 10);
-  doc.font('bold').text('Terms');
-  doc.font('body').text(d.studio.paymentTerms, { width });
+  doc.font('Lato-Bold').text('Terms');
+  doc.font('Lato').text(d.studio.paymentTerms, { width });
   for (const c of d.cautions) {
-    doc.moveDown(0.8).font('bold').text(c.title);
-    doc.font('body').text(c.text, { width });
+    doc.moveDown(0.8).font('Lato-Bold').text(c.title);
+    doc.font('Lato').text(c.text, { width });
     doc.fillColor('#555').fontSize(8).text(c.source, { width }).fillColor('#000').fontSize(9);
   }
   return toBuffer(doc);

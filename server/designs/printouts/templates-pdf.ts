@@ -106,7 +106,7 @@ function crosses(doc: PDFKit.PDFDocument, xs: number[], ys: number[], width: num
 export async function templatesPdf(p: PrintableDesign, paper: Paper): Promise<Buffer> {
   const { commission, version } = p;
   const [pageW, pageH] = PAPER_SIZES[paper];
-  const doc = newDocument(`Templates: ${commission.title}`, paper);
+  const doc = newDocument(`Templates: ${commission.title}`, { paper });
   const areaW = pageW - 2 * MARGIN;
   const areaH = pageH - 2 * MARGIN - HEAD - FOOT;
   const templates = version.derived.templates;
