@@ -76,6 +76,7 @@ describe('quotes and payments, end to end', () => {
     await page.getByRole('heading', { name: 'Version 2: Sent' }).waitFor();
     await page.getByTestId('quote-version').filter({ hasText: 'v1' }).filter({ hasText: 'Replaced by a newer version' }).waitFor();
     await page.getByRole('link', { name: 'Download PDF' }).waitFor();
+    await page.getByTestId('quote-detail').scrollIntoViewIfNeeded();
     await screenshot(page, 'quote-sent');
 
     // The client record's own address, not the sign-in's.
@@ -134,7 +135,14 @@ describe('quotes and payments, end to end', () => {
     await page.getByTestId('quote-facts').filter({ hasText: `Accepted by ${DEMO_ACCOUNTS.clientB.name}` }).waitFor();
     await page.getByTestId('payment-row').filter({ hasText: 'Deposit' }).filter({ hasText: 'Paid' }).waitFor();
     await page.getByTestId('current-stage').filter({ hasText: 'Booked' }).waitFor();
+    await page.getByTestId('quote-detail').scrollIntoViewIfNeeded();
     await screenshot(page, 'quote-accepted-owner');
+
+    await page.getByRole('link', { name: 'Settings', exact: true }).click();
+    await page.waitForURL(/\/settings$/);
+    await page.getByLabel('Studio name').and(page.locator('input')).waitFor();
+    expect(await page.getByLabel('Studio name').and(page.locator('input')).inputValue()).toBe('Larkspur Bobbin Room');
+    await screenshot(page, 'settings');
     await page.context().close();
 
     const workroom = await openPage(browser);
