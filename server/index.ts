@@ -4,6 +4,7 @@ import { loadConfig } from './core/config';
 import { createKnex } from './core/database';
 import { createApp } from './app';
 import { startOutboxWorker } from './mail/mailer';
+import { removeOrphanFiles } from './photos/photos-service';
 
 /** Starts the server; SIGINT/SIGTERM close the listener and the database pools. */
 async function main(): Promise<void> {
@@ -19,6 +20,12 @@ async function main(): Promise<void> {
   sessionPool.on('error', (err) => console.error('Session pool:', err.message));
   const outbox = startOutboxWorker(knex, config);
   const app = createApp({ config, knex, sessionPool, kickMail: outbox.kick });
+  // An upload cut short by a crash leaves files without rows: clear them before serving.
+  const orphans = await removeOrphanFiles(config.uploadDir).catch((err: Error) => {
+    console.error(`Photo folder check failed: ${err.message}`);
+    return [];
+  });
+  if (orphans.length) console.log(`Keepstitch: removed ${orphans.length} unfinished upload file(s).`);
   const server = createServer(app);
 
   let stopping = false;

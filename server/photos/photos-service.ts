@@ -1,3 +1,4 @@
+import { readdir, unlink } from 'node:fs/promises';
 import path from 'node:path';
 import { AppError } from '../core/app-error';
 import { CommissionModel } from '../commissions/commission-model';
@@ -39,4 +40,19 @@ export async function photoFile(user: Express.User, id: number, which: 'image' |
   return which === 'image'
     ? { path: path.join(uploadDir, photo.fileName), mime: photo.mime }
     : { path: path.join(uploadDir, photo.thumbName), mime: 'image/webp' };
+}
+
+/**
+ * Removes what an interrupted upload can leave in the photo folder: half-written
+ * ".part" files, and stored files no photo row names (the row was never
+ * committed). Run at start-up, before any upload can be in flight.
+ */
+export async function removeOrphanFiles(uploadDir: string): Promise<string[]> {
+  const names = await readdir(uploadDir).catch(() => [] as string[]);
+  if (!names.length) return [];
+  const rows = await PhotoModel.query().select('fileName', 'thumbName');
+  const kept = new Set(rows.flatMap((r) => [r.fileName, r.thumbName]));
+  const orphans = names.filter((n) => n.endsWith('.part') || (/^[0-9a-f-]{36}(\.thumb)?\.(jpg|png|webp)$/.test(n) && !kept.has(n)));
+  await Promise.all(orphans.map((n) => unlink(path.join(uploadDir, n)).catch(() => undefined)));
+  return orphans;
 }

@@ -1,9 +1,10 @@
-import { readdirSync, readFileSync } from 'node:fs';
+import { readdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import sharp from 'sharp';
 import exifReader from 'exif-reader';
 import { ApiAgent, addUser, signedIn, startTestApp, type TestApp } from '../testing/test-app';
 import { addCommission } from '../testing/fixtures';
+import { removeOrphanFiles } from './photos-service';
 
 async function jpegWithGps(): Promise<Buffer> {
   return sharp({ create: { width: 320, height: 240, channels: 3, background: '#4a6fa5' } })
@@ -113,5 +114,28 @@ describe('photo uploads', () => {
     expect((await upload(clientA, [[png, 'p.png']], `/api/commissions/${commissionId}/photos`)).status).toBe(403);
     const detail = await clientA.get(`/api/commissions/${commissionId}`);
     expect(detail.body.progressPhotos.map((p: { id: number }) => p.id)).toContain(res.body.items[0].id);
+  });
+});
+
+describe('photo folder clean-up at start', () => {
+  it('removes half-written files and files no photo row names, and keeps the rest', async () => {
+    const t = await startTestApp();
+    try {
+      const owner = await signedIn(t.app, (await addUser(t.knex, 'owner')).email);
+      const c = await addUser(t.knex, 'client');
+      const commission = await addCommission(t.knex, c.clientId!);
+      const [g] = await t.knex('garments').insert({ commissionId: commission, description: 'Shirt' }).returning('id');
+      const res = await owner.agent.post(`/api/garments/${g.id}/photos`).set('X-XSRF-TOKEN', owner.csrf).attach('photos', await jpegWithGps(), 'a.jpg');
+      expect(res.status).toBe(201);
+      const kept = readdirSync(t.uploadDir).sort();
+      writeFileSync(path.join(t.uploadDir, '3f2504e0-4f89-11d3-9a0c-0305e82c3301.jpg.part'), 'half');
+      writeFileSync(path.join(t.uploadDir, '3f2504e0-4f89-11d3-9a0c-0305e82c3302.jpg'), 'no row');
+      writeFileSync(path.join(t.uploadDir, 'README.txt'), 'not ours');
+      const removed = await removeOrphanFiles(t.uploadDir);
+      expect(removed.sort()).toEqual(['3f2504e0-4f89-11d3-9a0c-0305e82c3301.jpg.part', '3f2504e0-4f89-11d3-9a0c-0305e82c3302.jpg']);
+      expect(readdirSync(t.uploadDir).sort()).toEqual([...kept, 'README.txt'].sort());
+    } finally {
+      await t.close();
+    }
   });
 });
