@@ -2,7 +2,7 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync, openSync } from 'node:fs';
 import path from 'node:path';
 import { Client } from 'pg';
-import { E2E_PORT, FAKE_MAIL_API, FAKE_MAIL_API_PORT, FAKE_PAYMENTS_PORT, FAKE_PAYMENTS_URL, FAKE_SMTP_PORT, ROOT } from './e2e-env';
+import { E2E_DB, E2E_PORT, FAKE_MAIL_API, FAKE_MAIL_API_PORT, FAKE_PAYMENTS_PORT, FAKE_PAYMENTS_URL, FAKE_SMTP_PORT, ROOT } from './e2e-env';
 
 declare global {
   // eslint-disable-next-line no-var
@@ -40,10 +40,10 @@ export default async function globalSetup(): Promise<void> {
   }
   const admin = new Client({ connectionString: databaseUrl('postgres') });
   await admin.connect();
-  await admin.query('DROP DATABASE IF EXISTS keepstitch_e2e WITH (FORCE)');
+  await admin.query(`DROP DATABASE IF EXISTS ${E2E_DB} WITH (FORCE)`);
   await admin.end();
 
-  const env = { ...process.env, DATABASE_URL: databaseUrl('keepstitch_e2e'), PORT: String(E2E_PORT), NODE_ENV: 'production', SESSION_SECRET: 'e2e-session-secret-'.padEnd(48, 'e'), UPLOAD_DIR: path.join(ROOT, 'test-output', 'e2e-uploads'),
+  const env = { ...process.env, DATABASE_URL: databaseUrl(E2E_DB), PORT: String(E2E_PORT), NODE_ENV: 'production', SESSION_SECRET: 'e2e-session-secret-'.padEnd(48, 'e'), UPLOAD_DIR: path.join(ROOT, 'test-output', 'e2e-uploads'),
     APP_URL: `http://127.0.0.1:${E2E_PORT}`,
     SMTP_HOST: '127.0.0.1', SMTP_PORT: String(FAKE_SMTP_PORT), FAKE_MAIL_API,
     FAKE_SMTP_PORT: String(FAKE_SMTP_PORT), FAKE_MAIL_API_PORT: String(FAKE_MAIL_API_PORT),

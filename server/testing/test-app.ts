@@ -14,6 +14,8 @@ import { createTestDatabase } from './test-database';
 export interface TestApp {
   app: Express;
   knex: Knex;
+  /** The test database's own address. */
+  url: string;
   uploadDir: string;
   close(): Promise<void>;
 }
@@ -38,6 +40,7 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
   return {
     app,
     knex: db.knex,
+    url: db.url,
     uploadDir,
     async close() {
       await sessionPool.end();

@@ -1,0 +1,34 @@
+#!/usr/bin/env bash
+# npm run backup: the database (pg_dump) and the uploaded photos in one
+# timestamped archive under .data/backups/ (git-ignored). DATABASE_URL and
+# UPLOAD_DIR say what to back up; by default the development cluster, which is
+# started for the dump and stopped again if it was not running.
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+ensure_postgres
+
+PG_PORT="${KEEPSTITCH_PG_PORT:-54330}"
+STARTED=0
+if [ -z "${DATABASE_URL:-}" ]; then
+  export DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/keepstitch"
+  if ! as_pg pg_ctl -D "$DATA_DIR/pg/data" status >/dev/null 2>&1; then
+    pg_up "$DATA_DIR/pg" "$PG_PORT" >/dev/null
+    STARTED=1
+  fi
+fi
+UPLOAD_DIR="${UPLOAD_DIR:-$DATA_DIR/uploads}"
+OUT_DIR="${BACKUP_DIR:-$DATA_DIR/backups}"
+WORK="$(mktemp -d)"
+cleanup() {
+  rm -rf "$WORK"
+  if [ "$STARTED" = 1 ]; then pg_down "$DATA_DIR/pg" >/dev/null; fi
+}
+trap cleanup EXIT
+
+mkdir -p "$OUT_DIR" "$WORK/uploads"
+pg_dump --format=custom --no-owner --no-privileges --file "$WORK/database.dump" "$DATABASE_URL"
+if [ -d "$UPLOAD_DIR" ]; then cp -a "$UPLOAD_DIR/." "$WORK/uploads/"; fi
+STAMP="$(date -u +%Y%m%dT%H%M%SZ)"
+FILE="$OUT_DIR/keepstitch-$STAMP.tar.gz"
+tar -C "$WORK" -czf "$FILE" database.dump uploads
+echo "$FILE"

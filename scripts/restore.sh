@@ -1,0 +1,42 @@
+#!/usr/bin/env bash
+# npm run restore FILE: replaces the database named by DATABASE_URL (by
+# default the development one) and the photo folder with a backup made by
+# `npm run backup`. Stop the app first: the database is dropped and recreated.
+set -euo pipefail
+source "$(dirname "$0")/lib.sh"
+ensure_postgres
+
+FILE="${1:-}"
+if [ -z "$FILE" ] || [ ! -f "$FILE" ]; then
+  echo "Usage: npm run restore -- .data/backups/keepstitch-<time>.tar.gz" >&2
+  exit 2
+fi
+FILE="$(cd "$(dirname "$FILE")" && pwd)/$(basename "$FILE")"
+PG_PORT="${KEEPSTITCH_PG_PORT:-54330}"
+STARTED=0
+if [ -z "${DATABASE_URL:-}" ]; then
+  export DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/keepstitch"
+  if ! as_pg pg_ctl -D "$DATA_DIR/pg/data" status >/dev/null 2>&1; then
+    pg_up "$DATA_DIR/pg" "$PG_PORT" >/dev/null
+    STARTED=1
+  fi
+fi
+UPLOAD_DIR="${UPLOAD_DIR:-$DATA_DIR/uploads}"
+WORK="$(mktemp -d)"
+cleanup() {
+  rm -rf "$WORK"
+  if [ "$STARTED" = 1 ]; then pg_down "$DATA_DIR/pg" >/dev/null; fi
+}
+trap cleanup EXIT
+
+tar -C "$WORK" -xzf "$FILE"
+[ -f "$WORK/database.dump" ] || { echo "restore: $FILE holds no database.dump" >&2; exit 1; }
+DB_NAME="${DATABASE_URL##*/}"
+DB_NAME="${DB_NAME%%\?*}"
+ADMIN_URL="${DATABASE_URL%/*}/postgres"
+psql -q -v ON_ERROR_STOP=1 "$ADMIN_URL" -c "DROP DATABASE IF EXISTS \"$DB_NAME\" WITH (FORCE)" -c "CREATE DATABASE \"$DB_NAME\""
+pg_restore --no-owner --no-privileges --exit-on-error --dbname "$DATABASE_URL" "$WORK/database.dump"
+mkdir -p "$UPLOAD_DIR"
+find "$UPLOAD_DIR" -mindepth 1 -delete
+cp -a "$WORK/uploads/." "$UPLOAD_DIR/"
+log "Restored $(basename "$FILE") into $DB_NAME and ${UPLOAD_DIR#$ROOT/}"
