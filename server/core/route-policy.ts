@@ -78,6 +78,7 @@ export const ROUTE_POLICY = {
   // Quotes: clients see their own once sent (drafts never).
   'GET /api/commissions/:id/quotes': CLIENT_OR_OWNER,
   'POST /api/commissions/:id/quotes': OWNER,
+  'GET /api/commissions/:id/quote-suggestion': OWNER,
   'GET /api/quotes/:id': CLIENT_OR_OWNER,
   'PUT /api/quotes/:id': OWNER,
   'GET /api/quotes/:id/pdf': CLIENT_OR_OWNER,

@@ -9,6 +9,9 @@ export function quotesRouter(config: AppConfig, kickMail: () => void) {
   commissionQuotes.get('/:id/quotes', async (req, res) => {
     res.json({ items: await quotes.listQuotes(req.user!, parseId(req.params['id'], 'That commission')) });
   });
+  commissionQuotes.get('/:id/quote-suggestion', async (req, res) => {
+    res.json(await quotes.suggestLines(req.user!, parseId(req.params['id'], 'That commission')));
+  });
   commissionQuotes.post('/:id/quotes', async (req, res) => {
     const id = parseId(req.params['id'], 'That commission');
     res.status(201).json(await quotes.createQuote(req.user!, id, parseInput(quoteSchema, req.body, 'quote')));

@@ -1,4 +1,4 @@
-import { cautionsFor, quoteTotals, type QuoteTotals } from '@keepstitch/shared';
+import { cautionsFor, quoteTotals, suggestQuoteLines, type QuoteTotals } from '@keepstitch/shared';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
 import type { AppConfig } from '../core/config';
@@ -9,6 +9,9 @@ import { enqueueMail } from '../mail/outbox-service';
 import { quoteMail } from '../mail/mail-templates';
 import { StudioSettingsModel } from '../settings/settings-model';
 import { QuoteLineModel, QuoteModel } from './quote-model';
+import { latestVersion } from '../designs/designs-service';
+import { GarmentModel } from '../garments/garment-model';
+import { StockFabricModel } from '../stock/stock-fabric-model';
 import { quotePdf } from './quote-pdf';
 import type { QuoteInput } from './quotes-schemas';
 
@@ -225,4 +228,31 @@ export async function declineQuote(user: Express.User, id: number, note: string 
     await QuoteModel.query(trx).patch({ status: 'declined', declinedAt: new Date(), declineNote: note ?? null }).findById(id);
     return quoteView((await QuoteModel.query(trx).findById(id).withGraphFetched('lines'))!);
   });
+}
+
+/**
+ * Lines for a new quote priced from the commission's current design: studio
+ * fabric to buy, stabiliser for knits, and labour by stage from the studio's
+ * minutes per block kind and the size. Null when there is no design yet.
+ */
+export async function suggestLines(user: Express.User, commissionId: number) {
+  await findVisibleCommission(user, commissionId);
+  const design = await latestVersion(commissionId);
+  if (!design) return { designVersion: null, lines: [] };
+  const [settings, stock, garments] = await Promise.all([
+    StudioSettingsModel.current(),
+    StockFabricModel.query().select('id', 'name', 'costPence', 'costUnit'),
+    GarmentModel.query().select('id', 'construction').where('commissionId', commissionId),
+  ]);
+  const lines = suggestQuoteLines({
+    body: design.body,
+    derived: design.derived,
+    plan: design.plan,
+    stock,
+    hourlyRatePence: settings.hourlyRatePence,
+    blockMinutes: settings.blockMinutes,
+    knitGarments: garments.filter((g) => g.construction === 'knit').length,
+    garments: garments.length,
+  });
+  return { designVersion: design.version, lines };
 }

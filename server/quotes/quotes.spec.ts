@@ -111,3 +111,48 @@ describe('quotes', () => {
     expect(res.body.error.message).toMatch(/expired/);
   });
 });
+
+describe('quote lines from the design', () => {
+  let t: TestApp;
+  let owner: ApiAgent;
+  beforeAll(async () => {
+    t = await startTestApp();
+    owner = await signedIn(t.app, (await addUser(t.knex, 'owner')).email);
+  });
+  afterAll(() => t.close());
+
+  it('has nothing to suggest before there is a design', async () => {
+    const c = await addUser(t.knex, 'client');
+    const commission = await addCommission(t.knex, c.clientId!);
+    const res = await owner.get(`/api/commissions/${commission}/quote-suggestion`);
+    expect(res.status).toBe(200);
+    expect(res.body).toEqual({ designVersion: null, lines: [] });
+  });
+
+  it('prices labour by stage at the hourly rate from a saved design, as lines the quote accepts', async () => {
+    const c = await addUser(t.knex, 'client');
+    const commission = await addCommission(t.knex, c.clientId!);
+    await owner.patch('/api/settings', { hourlyRatePence: 3200, blockMinutes: { square: 6 } });
+    const inch = (n: number) => String(n * 25.4);
+    const saved = await owner.post(`/api/commissions/${commission}/design`, {
+      body: {
+        units: 'imperial',
+        target: { preset: null, dropMm: null, widthMm: inch(40), lengthMm: inch(50) },
+        layout: { setting: 'straight', rows: 5, columns: 4, blockMm: inch(10), sashing: null, borders: [] },
+        blocks: [{ id: 'A', name: 'Square', kind: 'square' }],
+        pattern: ['A'],
+        assignments: [],
+        finishing: { bindingStockId: null, bindingStripMm: inch(2.5), backingStockId: null, waddingStockId: null, prewash: false, shrinkPercent: '0' },
+        rules: { minimumPerGarment: 0 },
+      },
+    });
+    expect(saved.status).toBe(201);
+    const res = await owner.get(`/api/commissions/${commission}/quote-suggestion`);
+    expect(res.body.designVersion).toBe(1);
+    const piecing = res.body.lines.find((l: { stage: string }) => l.stage === 'piecing');
+    // Hand-worked: 20 squares x 6 min = 120 min = 2 h at the studio's £32.00.
+    expect(piecing).toMatchObject({ kind: 'labour', quantity: '2.00', unitPricePence: 3200 });
+    const quote = await owner.post(`/api/commissions/${commission}/quotes`, { lines: res.body.lines });
+    expect(quote.status).toBe(201);
+  });
+});

@@ -41,3 +41,4 @@ export * from './money/quote-totals';
 
 // A commission's design: derivation, drawing and its cut plan.
 export * from './design/index';
+export * from './money/quote-suggestion';
