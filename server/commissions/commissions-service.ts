@@ -86,9 +86,13 @@ async function findVisible(user: Express.User, id: number, trx?: Knex.Transactio
 /** Counts for the stage rules: garments expected and received. */
 async function stageFacts(commissionId: number, trx?: Knex.Transaction): Promise<StageFacts> {
   const garments = await GarmentModel.query(trx).select('id').where('commissionId', commissionId);
+  // One connection in a transaction: one query at a time.
   const states = await custodyStates(garments.map((g) => g.id), trx);
+  return factsFrom(states, await paymentState(commissionId, trx));
+}
+
+function factsFrom(states: Awaited<ReturnType<typeof custodyStates>>, money: Awaited<ReturnType<typeof paymentState>>): StageFacts {
   const live = [...states.values()].filter((s) => s.state.status !== 'withdrawn');
-  const money = await paymentState(commissionId, trx);
   return { garmentCount: live.length, garmentsReceived: live.filter((s) => s.state.received).length, balanceDue: !!money && !money.balancePaid && money.balancePence > 0 };
 }
 
@@ -97,14 +101,15 @@ export async function getCommission(user: Express.User, id: number) {
   c.client = await ClientModel.query().select('id', 'name').findById(c.clientId);
   const garments = await GarmentModel.query().where('commissionId', id).orderBy('id');
   const ids = garments.map((g) => g.id);
-  const [states, panels, photos, moves] = await Promise.all([
+  const [states, panels, photos, moves, money] = await Promise.all([
     custodyStates(ids),
     PanelModel.query().whereIn('garmentId', ids).orderBy('id'),
     PhotoModel.query().where('commissionId', id).orderBy('id'),
     StageMoveModel.query().where('commissionId', id).orderBy('movedAt').orderBy('id'),
+    paymentState(id),
   ]);
   const staff = user.role !== 'client';
-  const facts = await stageFacts(id);
+  const facts = factsFrom(states, money);
   const garmentViews = garments.map((g) => {
     const custody = states.get(g.id)!;
     return {
