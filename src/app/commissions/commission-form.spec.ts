@@ -11,6 +11,7 @@ import { Router, provideRouter } from '@angular/router';
 
 import { signedInAs } from '../../testing/signed-in-as';
 import { Notices } from '../core/notices';
+import { CommissionDetail } from './commission';
 import { CommissionForm, toPence } from './commission-form';
 
 describe('CommissionForm', () => {
@@ -98,5 +99,140 @@ describe('CommissionForm', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Open commission' }))).click();
     expect((await width.getTextErrors())[0]).toContain('That is not a length.');
     httpMock.expectNone('/api/commissions');
+  });
+});
+
+describe('CommissionForm editing', () => {
+  let fixture: ComponentFixture<CommissionForm>;
+  let loader: HarnessLoader;
+  let httpMock: HttpTestingController;
+  let navigate: jasmine.Spy;
+
+  const stored: CommissionDetail = {
+    id: 3,
+    clientId: 4,
+    client: { id: 4, name: 'Imogen Tallis' },
+    title: 'Grandad’s shirts quilt',
+    kind: 'memory_quilt',
+    recipient: 'Rosa',
+    ageGroup: 'adult',
+    occasion: 'Ruby wedding',
+    sizePreset: 'UK double',
+    // 60 1/2 in and 80 in, as typed when the commission was opened.
+    widthMm: '1536.7',
+    lengthMm: '2032',
+    deadline: '2027-03-01',
+    stage: 'booked',
+    notes: 'Keep the breast pockets whole.',
+    budgetPence: 45050,
+    createdAt: '2026-10-01T09:00:00Z',
+    cautions: [],
+    garments: [],
+    progressPhotos: [],
+    stageHistory: [],
+    facts: { garmentCount: 0, garmentsReceived: 0 },
+  };
+
+  async function open(commission: CommissionDetail): Promise<void> {
+    TestBed.configureTestingModule({
+      imports: [CommissionForm],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        signedInAs('owner'),
+        { provide: Notices, useValue: jasmine.createSpyObj<Notices>('Notices', ['info', 'error']) },
+      ],
+    });
+    fixture = TestBed.createComponent(CommissionForm);
+    fixture.componentRef.setInput('id', '3');
+    loader = TestbedHarnessEnvironment.loader(fixture);
+    httpMock = TestBed.inject(HttpTestingController);
+    navigate = spyOn(TestBed.inject(Router), 'navigate').and.resolveTo(true);
+    await fixture.whenStable();
+    // No client list is fetched: the client cannot be changed.
+    httpMock.expectOne('/api/commissions/3').flush(commission);
+    await fixture.whenStable();
+  }
+
+  afterEach(() => httpMock.verify());
+
+  const input = async (label: string) =>
+    (await (await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }))).getControl(MatInputHarness))!;
+  const select = async (label: string) =>
+    (await (await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }))).getControl(MatSelectHarness))!;
+  const save = async () => (await loader.getHarness(MatButtonHarness.with({ text: 'Save changes' }))).click();
+
+  it('fills the form from the commission, sizes as typed lengths and the budget in pounds', async () => {
+    await open(stored);
+    expect(await (await input('Client')).getValue()).toBe('Imogen Tallis');
+    expect(await (await input('Client')).isReadonly()).toBeTrue();
+    expect(await (await input('Title')).getValue()).toBe('Grandad’s shirts quilt');
+    expect(await (await select('Kind')).getValueText()).toBe('Memory quilt');
+    expect(await (await input('Who it is for')).getValue()).toBe('Rosa');
+    expect(await (await input('Occasion')).getValue()).toBe('Ruby wedding');
+    expect(await (await input('Size preset')).getValue()).toBe('UK double');
+    expect(await (await input('Width')).getValue()).toBe('60 1/2');
+    expect(await (await input('Length')).getValue()).toBe('80');
+    expect(await (await select('Unit')).getValueText()).toBe('in');
+    expect(await (await input('Deadline')).getValue()).toBe('2027-03-01');
+    expect(await (await input('Budget')).getValue()).toBe('450.50');
+    expect(await (await input('Notes')).getValue()).toBe('Keep the breast pockets whole.');
+  });
+
+  it('shows a size that is not on an eighth-inch mark back in centimetres', async () => {
+    await open({ ...stored, widthMm: '1500', lengthMm: '2005' });
+    expect(await (await select('Unit')).getValueText()).toBe('cm');
+    expect(await (await input('Width')).getValue()).toBe('150');
+    expect(await (await input('Length')).getValue()).toBe('200.5');
+  });
+
+  it('sends only the fields that changed, then returns to the commission', async () => {
+    await open(stored);
+    await (await input('Title')).setValue('Grandad’s shirt quilt');
+    await (await input('Budget')).setValue('500');
+    await (await input('Occasion')).setValue('');
+    await save();
+    const request = httpMock.expectOne('/api/commissions/3');
+    expect(request.request.method).toBe('PATCH');
+    expect(request.request.body).toEqual({ title: 'Grandad’s shirt quilt', occasion: null, budgetPence: 50000 });
+    request.flush({ ...stored, title: 'Grandad’s shirt quilt', occasion: null, budgetPence: 50000 });
+    await fixture.whenStable();
+    expect(navigate).toHaveBeenCalledWith(['/commissions', 3]);
+  });
+
+  it('sends a changed width as typed with its unit, and both lengths when the unit changes', async () => {
+    await open(stored);
+    await (await input('Width')).setValue('62');
+    await save();
+    const widthOnly = httpMock.expectOne('/api/commissions/3');
+    expect(widthOnly.request.body).toEqual({ width: '62', unit: 'in' });
+    widthOnly.flush({ error: { code: 'validation', message: 'The commission has a field to correct.' } }, { status: 500, statusText: 'Server Error' });
+    await fixture.whenStable();
+
+    await (await select('Unit')).clickOptions({ text: 'cm' });
+    await save();
+    expect(httpMock.expectOne('/api/commissions/3').request.body).toEqual({ width: '62', length: '80', unit: 'cm' });
+  });
+
+  it('sends nothing when nothing changed', async () => {
+    await open(stored);
+    await save();
+    httpMock.expectNone('/api/commissions/3');
+    expect((fixture.nativeElement as HTMLElement).querySelector('[role="alert"]')?.textContent).toContain('Nothing has changed yet.');
+  });
+
+  it("puts the server's field messages under their fields", async () => {
+    await open(stored);
+    await (await input('Width')).setValue('3000 cm');
+    await save();
+    httpMock.expectOne('/api/commissions/3').flush(
+      { error: { code: 'validation', message: 'The commission has a field to correct.', fields: { width: 'Width must be at most 100 m.' } } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+    const width = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Width' }));
+    expect(await width.getTextErrors()).toEqual(['Width must be at most 100 m.']);
+    expect(navigate).not.toHaveBeenCalled();
   });
 });

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -12,12 +12,13 @@ import { Router, RouterLink } from '@angular/router';
 import { AGE_GROUP, AgeGroup, COMMISSION_KIND, CommissionKind, cautionsFor } from '@keepstitch/shared';
 import { catchError, map, of } from 'rxjs';
 
+import { ClientRow } from '../clients/client';
 import { ClientsApi } from '../clients/clients-api';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
-import { lengthText, readingText } from '../shared/length-text';
+import { lengthText, readingText, typedLength, unitForMillimetres } from '../shared/length-text';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
-import { CommissionDraft, orNull } from './commission';
+import { Commission, CommissionChanges, CommissionDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
 
 const POUNDS = /^\d{1,7}(\.\d{1,2})?$/;
@@ -28,7 +29,10 @@ export function toPence(pounds: string): number {
   return Number(whole) * 100 + Number((fraction + '00').slice(0, 2));
 }
 
-/** Opens a new commission for a client (owner only). */
+/**
+ * Opens a new commission for a client, or, at `/commissions/:id/edit`, changes
+ * one (owner only). An edit sends only the fields that changed; the client stays.
+ */
 @Component({
   selector: 'ks-commission-form',
   imports: [
@@ -48,34 +52,38 @@ export function toPence(pounds: string): number {
 })
 export class CommissionForm {
   private readonly api = inject(CommissionsApi);
+  private readonly clientsApi = inject(ClientsApi);
   private readonly router = inject(Router);
   private readonly notices = inject(Notices);
 
+  /** From the route when editing, `/commissions/:id/edit`; absent for a new commission. */
+  readonly id = input<string>();
+
   protected readonly kinds = COMMISSION_KIND.values.map((value) => ({ value, label: COMMISSION_KIND.labels[value] }));
   protected readonly ages = AGE_GROUP.values.map((value) => ({ value, label: AGE_GROUP.labels[value] }));
-  protected readonly clients = toSignal(
-    inject(ClientsApi)
-      .list({ page: 0, pageSize: 100, sort: 'name', dir: 'asc' })
-      .pipe(
-        map((page) => page.items),
-        catchError(() => of(null)),
-      ),
-  );
+  /** Undefined while loading, null when they could not be loaded. */
+  protected readonly clients = signal<ClientRow[] | null | undefined>(undefined);
+  /** The commission being changed, as the server last sent it. */
+  protected readonly original = signal<Commission | null>(null);
+  protected readonly editLoad = signal<'loading' | 'ready' | 'failed'>('loading');
+  protected readonly isEdit = computed(() => this.id() !== undefined);
+  protected readonly backLink = computed(() => (this.isEdit() ? ['/commissions', this.id()] : ['/commissions']));
 
   private readonly unitOf = () => this.form.controls.unit.value;
   protected readonly form = new FormGroup({
     clientId: new FormControl<number | null>(null, [Validators.required]),
-    title: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(120)] }),
+    title: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),
     kind: new FormControl<CommissionKind>('memory_quilt', { nonNullable: true }),
-    recipient: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(120)] }),
+    recipient: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(200)] }),
     ageGroup: new FormControl<AgeGroup>('adult', { nonNullable: true }),
-    occasion: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(120)] }),
+    occasion: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(200)] }),
+    sizePreset: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(60)] }),
     width: new FormControl('', { nonNullable: true, validators: [lengthText(this.unitOf)] }),
     length: new FormControl('', { nonNullable: true, validators: [lengthText(this.unitOf)] }),
     unit: new FormControl<'in' | 'cm'>('in', { nonNullable: true }),
     deadline: new FormControl('', { nonNullable: true }),
     budget: new FormControl('', { nonNullable: true, validators: [Validators.pattern(POUNDS)] }),
-    notes: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(4000)] }),
+    notes: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(5000)] }),
   });
 
   private readonly value = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
@@ -84,13 +92,68 @@ export class CommissionForm {
   protected readonly lengthReading = computed(() => readingText(this.value().length ?? '', this.value().unit ?? 'in'));
   protected readonly saving = signal(false);
   protected readonly formError = signal<string | null>(null);
+  /** The form as first filled in for an edit, to tell what changed. */
+  private prefilled: ReturnType<typeof sentValues> | null = null;
 
   constructor() {
     this.form.controls.unit.valueChanges.subscribe(() => {
       this.form.controls.width.updateValueAndValidity();
       this.form.controls.length.updateValueAndValidity();
     });
+    effect(() => {
+      const id = this.id();
+      untracked(() => (id === undefined ? this.loadClients() : this.loadCommission(Number(id))));
+    });
   }
+
+  private loadClients(): void {
+    this.clientsApi
+      .list({ page: 0, pageSize: 100, sort: 'name', dir: 'asc' })
+      .pipe(
+        map((page) => page.items),
+        catchError(() => of(null)),
+      )
+      .subscribe((items) => this.clients.set(items));
+  }
+
+  protected loadCommission(id = Number(this.id())): void {
+    this.editLoad.set('loading');
+    this.api.get(id).subscribe({
+      next: (c) => {
+        this.prefill(c);
+        this.editLoad.set('ready');
+      },
+      error: () => this.editLoad.set('failed'),
+    });
+  }
+
+  /** Fills the form from the commission, sizes written back as lengths in the unit they read best in. */
+  private prefill(c: Commission): void {
+    const unit = unitForMillimetres([c.widthMm, c.lengthMm]);
+    this.original.set(c);
+    this.form.controls.clientId.disable();
+    this.form.reset({
+      clientId: c.clientId,
+      title: c.title,
+      kind: c.kind,
+      recipient: c.recipient ?? '',
+      ageGroup: c.ageGroup,
+      occasion: c.occasion ?? '',
+      sizePreset: c.sizePreset ?? '',
+      width: typedLength(c.widthMm, unit),
+      length: typedLength(c.lengthMm, unit),
+      unit,
+      deadline: c.deadline ?? '',
+      budget: c.budgetPence === null || c.budgetPence === undefined ? '' : toPounds(c.budgetPence),
+      notes: c.notes ?? '',
+    });
+    this.prefilled = this.readForm();
+  }
+
+  private readForm() {
+    return sentValues(this.form.getRawValue());
+  }
+
 
   protected saveCommission(): void {
     this.formError.set(null);
@@ -98,20 +161,26 @@ export class CommissionForm {
       this.form.markAllAsTouched();
       return;
     }
-    const v = this.form.getRawValue();
+    const original = this.original();
+    if (this.isEdit()) {
+      if (original) this.saveChanges(original);
+      return;
+    }
+    const v = this.readForm();
     const draft: CommissionDraft = {
-      clientId: v.clientId!,
-      title: v.title.trim(),
+      clientId: this.form.controls.clientId.value!,
+      title: v.title,
       kind: v.kind,
-      recipient: orNull(v.recipient),
+      recipient: v.recipient,
       ageGroup: v.ageGroup,
-      occasion: orNull(v.occasion),
-      deadline: v.deadline || null,
-      budgetPence: v.budget.trim() ? toPence(v.budget) : null,
-      notes: orNull(v.notes),
+      occasion: v.occasion,
+      deadline: v.deadline,
+      budgetPence: v.budgetPence,
+      notes: v.notes,
     };
-    if (v.width.trim()) draft.width = v.width.trim();
-    if (v.length.trim()) draft.length = v.length.trim();
+    if (v.sizePreset) draft.sizePreset = v.sizePreset;
+    if (v.width) draft.width = v.width;
+    if (v.length) draft.length = v.length;
     if (draft.width || draft.length) draft.unit = v.unit;
 
     this.saving.set(true);
@@ -120,16 +189,72 @@ export class CommissionForm {
         this.notices.info(`Commission “${commission.title}” opened.`);
         void this.router.navigate(['/commissions', commission.id]);
       },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        const fields = { ...apiErrorOf(error)?.fields };
-        if (fields['budgetPence']) {
-          fields['budget'] = fields['budgetPence'];
-          delete fields['budgetPence'];
-        }
-        const unmatched = applyServerFieldErrors(this.form, fields);
-        this.formError.set(unmatched.length || !apiErrorOf(error)?.fields ? [messageFor(error), ...unmatched].join(' ') : null);
-      },
+      error: (error: unknown) => this.showRefusal(error),
     });
   }
+
+  /** Sends only what differs from the prefilled form; a changed unit re-sends both lengths. */
+  private saveChanges(original: Commission): void {
+    const before = this.prefilled!;
+    const now = this.readForm();
+    const changes: CommissionChanges = {};
+    for (const key of ['title', 'kind', 'recipient', 'ageGroup', 'occasion', 'sizePreset', 'deadline', 'budgetPence', 'notes'] as const) {
+      if (now[key] !== before[key]) (changes as Record<string, unknown>)[key] = now[key];
+    }
+    const unitChanged = now.unit !== before.unit;
+    if (unitChanged || now.width !== before.width) changes.width = now.width;
+    if (unitChanged || now.length !== before.length) changes.length = now.length;
+    if (changes.width !== undefined || changes.length !== undefined) changes.unit = now.unit;
+    if (Object.keys(changes).length === 0) {
+      this.formError.set('Nothing has changed yet.');
+      return;
+    }
+    this.saving.set(true);
+    this.api.update(original.id, changes).subscribe({
+      next: (commission) => {
+        this.notices.info(`Changes to “${commission.title}” saved.`);
+        void this.router.navigate(['/commissions', commission.id]);
+      },
+      error: (error: unknown) => this.showRefusal(error),
+    });
+  }
+
+  private showRefusal(error: unknown): void {
+    this.saving.set(false);
+    const fields = { ...apiErrorOf(error)?.fields };
+    if (fields['budgetPence']) {
+      fields['budget'] = fields['budgetPence'];
+      delete fields['budgetPence'];
+    }
+    const unmatched = applyServerFieldErrors(this.form, fields);
+    this.formError.set(unmatched.length || !apiErrorOf(error)?.fields ? [messageFor(error), ...unmatched].join(' ') : null);
+  }
+}
+
+/** The form's values as they would be sent: trimmed, empty text as null, pounds as pence. */
+function sentValues(v: {
+  title: string; kind: CommissionKind; recipient: string; ageGroup: AgeGroup; occasion: string; sizePreset: string;
+  width: string; length: string; unit: 'in' | 'cm'; deadline: string; budget: string; notes: string;
+}) {
+  return {
+    title: v.title.trim(),
+    kind: v.kind,
+    recipient: orNull(v.recipient),
+    ageGroup: v.ageGroup,
+    occasion: orNull(v.occasion),
+    sizePreset: orNull(v.sizePreset),
+    width: orNull(v.width),
+    length: orNull(v.length),
+    unit: v.unit,
+    deadline: v.deadline || null,
+    budgetPence: v.budget.trim() ? toPence(v.budget) : null,
+    notes: orNull(v.notes),
+  };
+}
+
+/** Pence shown back as pounds the way a person types them: "450" or "450.50". */
+export function toPounds(pence: number): string {
+  const pounds = Math.floor(pence / 100);
+  const rest = pence % 100;
+  return rest === 0 ? `${pounds}` : `${pounds}.${String(rest).padStart(2, '0')}`;
 }

@@ -156,6 +156,7 @@ export interface CommissionDraft {
   recipient: string | null;
   ageGroup: AgeGroup;
   occasion: string | null;
+  sizePreset?: string | null;
   width?: string;
   length?: string;
   unit?: LengthUnit;
@@ -163,6 +164,11 @@ export interface CommissionDraft {
   budgetPence: number | null;
   notes: string | null;
 }
+
+/** What an edit may change: never the client; a size goes as typed, with its unit. */
+export type CommissionChanges = Partial<
+  Omit<CommissionDraft, 'clientId' | 'width' | 'length'> & { width: string | null; length: string | null }
+>;
 
 export interface GarmentDraft {
   description: string;

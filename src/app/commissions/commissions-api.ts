@@ -6,6 +6,7 @@ import { Observable, map } from 'rxjs';
 import { REPORT_API_ERRORS } from '../core/api-error';
 import {
   Commission,
+  CommissionChanges,
   CommissionDetail,
   CommissionDraft,
   CommissionPage,
@@ -61,6 +62,13 @@ export class CommissionsApi {
   create(draft: CommissionDraft): Observable<Commission> {
     return this.http
       .post<unknown>('/api/commissions', withoutNulls(draft), quiet)
+      .pipe(map((body) => commissionSchema.parse(body)));
+  }
+
+  /** Only the fields given are changed; a width or length goes as typed with its `unit`. */
+  update(id: number, changes: CommissionChanges): Observable<Commission> {
+    return this.http
+      .patch<unknown>(`/api/commissions/${id}`, changes, quiet)
       .pipe(map((body) => commissionSchema.parse(body)));
   }
 

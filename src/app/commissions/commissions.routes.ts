@@ -12,5 +12,6 @@ export const commissionsRoutes: Routes = [
   { path: 'board', title: 'Commissions board', component: CommissionBoard },
   { path: 'new', title: 'New commission', canActivate: [roleGuard('owner')], component: CommissionForm },
   { path: ':id', title: 'Commission', component: CommissionPage },
+  { path: ':id/edit', title: 'Edit commission', canActivate: [roleGuard('owner')], component: CommissionForm },
   { path: ':id/garments/:garmentId', title: 'Garment', component: GarmentPage },
 ];

@@ -1,5 +1,5 @@
 import { AbstractControl, ValidationErrors, ValidatorFn } from '@angular/forms';
-import { Length, LengthUnit, formatLength, tryParseLength } from '@keepstitch/shared';
+import { Length, LengthUnit, formatFinishedSize, formatLength, tryParseLength } from '@keepstitch/shared';
 
 /** The units a maker may type a length in, with their labels. */
 export const LENGTH_UNITS: readonly { value: LengthUnit; label: string }[] = [
@@ -53,4 +53,20 @@ export function lengthText(unit: () => LengthUnit, required = false): ValidatorF
 export function readingText(text: string, unit: LengthUnit): string | null {
   const reading = readLength(text, unit);
   return reading && reading.ok ? `${reading.imperial} · ${reading.metric}` : null;
+}
+
+/**
+ * The unit stored sizes read back in for editing: inches when every length
+ * falls on a 1/8 in mark (as typed fractions do), otherwise centimetres.
+ */
+export function unitForMillimetres(mms: readonly (string | null | undefined)[]): 'in' | 'cm' {
+  const eighth = Length.inches('0.125');
+  return mms.every((mm) => !mm || Length.millimetres(mm).ratio(eighth).isInteger()) ? 'in' : 'cm';
+}
+
+/** A stored length written back as a maker types it in `unit`, without the unit: "60 1/2" or "153.7". */
+export function typedLength(mm: string | null | undefined, unit: 'in' | 'cm'): string {
+  if (mm === null || mm === undefined || mm === '') return '';
+  const shown = formatFinishedSize(Length.millimetres(mm), unit === 'in' ? 'imperial' : 'metric', 'cm');
+  return shown.replace(/ (in|cm)$/, '');
 }
