@@ -38,7 +38,15 @@ const detail: CommissionDetail = {
   ],
   progressPhotos: [],
   stageHistory: [{ id: 1, fromStage: null, toStage: 'enquiry', note: 'Opened', movedAt: '2026-10-01T09:00:00Z' }],
-  hours: { entries: [], byStage: { booked: '1.50' }, total: '1.50' },
+  hours: {
+    entries: [
+      { id: 7, stage: 'enquiry', hours: '0.50', workedOn: '2026-10-02', note: 'First call', userName: 'Ottilie Marsh' },
+      { id: 9, stage: 'booked', hours: '0.25', workedOn: '2026-11-20', note: null, userName: 'Wren Ashby' },
+      { id: 8, stage: 'booked', hours: '1.25', workedOn: '2026-11-20', note: 'Sorted the shirts', userName: 'Ottilie Marsh' },
+    ],
+    byStage: { enquiry: '0.50', booked: '1.50' },
+    total: '2.00',
+  },
   nextStages: ['enquiry', 'quoted', 'garments_in', 'cancelled'],
   facts: { garmentCount: 1, garmentsReceived: 1 },
 };
@@ -153,5 +161,48 @@ describe('CommissionPage', () => {
     expect(request.request.body).toEqual({ stage: 'booked', hours: 1.75, workedOn: '2026-11-30' });
     request.flush({}, { status: 201, statusText: 'Created' });
     httpMock.expectOne('/api/commissions/3').flush(detail);
+  });
+
+  it('lists every hours entry under the totals, newest first, with stage, hours, who and note', () => {
+    const rows = Array.from(page.querySelectorAll('[data-testid="hours-entry"]')).map((row) =>
+      Array.from(row.querySelectorAll('td')).map((td) => td.textContent?.trim()),
+    );
+    expect(rows).toEqual([
+      ['20 Nov 2026', 'Booked', '0.25', 'Wren Ashby', ''],
+      ['20 Nov 2026', 'Booked', '1.25', 'Ottilie Marsh', 'Sorted the shirts'],
+      ['2 Oct 2026', 'Enquiry', '0.50', 'Ottilie Marsh', 'First call'],
+    ]);
+    const totals = page.querySelector('table.totals')!;
+    expect(totals.compareDocumentPosition(page.querySelector('table.entries')!) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+  });
+
+  it('offers the owner an Edit button to the edit page', async () => {
+    const edit = await loader.getHarness(MatButtonHarness.with({ selector: '[href="/commissions/3/edit"]' }));
+    expect(await edit.getText()).toMatch(/Edit$/);
+  });
+});
+
+describe('CommissionPage for the workroom', () => {
+  it('has no Edit button: only the owner changes a commission', async () => {
+    TestBed.configureTestingModule({
+      imports: [CommissionPage],
+      providers: [
+        provideRouter([]),
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        signedInAs('workroom'),
+        { provide: Notices, useValue: jasmine.createSpyObj<Notices>('Notices', ['info', 'error']) },
+      ],
+    });
+    const fixture = TestBed.createComponent(CommissionPage);
+    fixture.componentRef.setInput('id', '3');
+    const httpMock = TestBed.inject(HttpTestingController);
+    await fixture.whenStable();
+    httpMock.expectOne('/api/commissions/3').flush(detail);
+    await fixture.whenStable();
+    const page = fixture.nativeElement as HTMLElement;
+    expect(page.querySelector('[data-testid="current-stage"]')).not.toBeNull();
+    expect(page.querySelector('a[href="/commissions/3/edit"]')).toBeNull();
+    httpMock.verify();
   });
 });

@@ -109,6 +109,13 @@ export class CommissionPage {
     return ALL_STAGES.filter((s) => byStage[s] !== undefined).map((s) => ({ stage: s, hours: byStage[s] }));
   });
 
+  /** Each logged entry, the latest work first. */
+  protected readonly hoursEntries = computed(() =>
+    [...(this.commission()?.hours?.entries ?? [])].sort((a, b) =>
+      a.workedOn === b.workedOn ? b.id - a.id : a.workedOn < b.workedOn ? 1 : -1,
+    ),
+  );
+
   constructor() {
     effect(() => {
       const id = this.commissionId();
