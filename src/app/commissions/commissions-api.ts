@@ -94,6 +94,13 @@ export class CommissionsApi {
     return this.http.get<unknown>(`/api/garments/${id}`).pipe(map((body) => garmentDetailSchema.parse(body)));
   }
 
+  /** Only the fields given are changed. */
+  updateGarment(id: number, changes: Partial<GarmentDraft>): Observable<GarmentDetail> {
+    return this.http
+      .patch<unknown>(`/api/garments/${id}`, changes, quiet)
+      .pipe(map((body) => garmentSchema.parse(body)));
+  }
+
   recordEvent(garmentId: number, event: CustodyEventDraft) {
     return this.http
       .post<unknown>(`/api/garments/${garmentId}/events`, withoutNulls(event), quiet)

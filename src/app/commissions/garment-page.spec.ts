@@ -130,4 +130,27 @@ describe('GarmentPage custody', () => {
       'That entry has already been corrected.',
     );
   });
+
+  it('edits the details in place and shows the saved garment afterwards', async () => {
+    const page = fixture.nativeElement as HTMLElement;
+    expect(page.querySelector('[data-testid="garment-fibre"]')?.textContent).toContain('Cotton');
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Edit details/ }))).click();
+    await fixture.whenStable();
+    const fibre = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Fibre' }));
+    await (await fibre.getControl(MatSelectHarness))!.clickOptions({ text: 'Linen' });
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save details' }))).click();
+    const request = httpMock.expectOne('/api/garments/21');
+    expect(request.request.method).toBe('PATCH');
+    expect(request.request.body).toEqual({ fibre: 'linen' });
+    const { events: _events, status: _status, place: _place, ...ownFields } = garment;
+    request.flush({ ...ownFields, fibre: 'linen' });
+    await fixture.whenStable();
+    expect(page.querySelector('ks-garment-details-form')).toBeNull();
+    expect(page.querySelector('[data-testid="garment-fibre"]')?.textContent).toContain('Linen');
+    // The place stays shown while the full garment loads again.
+    expect(page.querySelector('[data-testid="garment-place"]')?.textContent).toContain('Box 3');
+    const reload = httpMock.expectOne('/api/garments/21');
+    expect(reload.request.method).toBe('GET');
+    reload.flush({ ...garment, fibre: 'linen' });
+  });
 });

@@ -30,6 +30,7 @@ import { PhotoUpload } from '../shared/photo-upload';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { CustodyEventDraft, CustodyEventRow, GarmentDetail } from './commission';
 import { CommissionsApi } from './commissions-api';
+import { GarmentDetailsForm } from './garment-details-form';
 import { PanelsEditor } from './panels-editor';
 
 type RecordableKind = 'received' | 'washed' | 'stored' | 'moved' | 'cut' | 'returned' | 'withdrawn' | 'correction';
@@ -50,6 +51,7 @@ const RECORDABLE: readonly RecordableKind[] = ['received', 'washed', 'stored', '
     MatIconModule,
     MatProgressBarModule,
     PanelsEditor,
+    GarmentDetailsForm,
     PhotoGallery,
     PhotoUpload,
   ],
@@ -79,6 +81,7 @@ export class GarmentPage {
   protected readonly isStaff = computed(() => this.auth.role() === 'owner' || this.auth.role() === 'workroom');
   protected readonly garment = signal<GarmentDetail | null>(null);
   protected readonly state = signal<'loading' | 'ready' | 'failed'>('loading');
+  protected readonly editingDetails = signal(false);
   protected readonly photoUrl = computed(() => `/api/garments/${this.garmentId()}/photos`);
 
   protected readonly eventForm = new FormGroup({
@@ -189,6 +192,17 @@ export class GarmentPage {
   private missing(control: FormControl<unknown>): void {
     control.setErrors({ required: true });
     control.markAsTouched();
+  }
+
+  /**
+   * The reply carries the garment's own fields; status, place, log and what to
+   * take off for safety come with the next load, which follows at once.
+   */
+  protected detailsSaved(changed: GarmentDetail): void {
+    this.garment.update((g) => (g ? { ...g, ...changed } : changed));
+    this.editingDetails.set(false);
+    this.notices.info(`Details of “${changed.description}” saved.`);
+    this.load();
   }
 
   protected photosUploaded(photos: Photo[]): void {
