@@ -27,7 +27,7 @@ export const routes: Routes = [
   },
   {
     path: 'stock',
-    canActivate: [roleGuard('owner')],
+    canActivate: [roleGuard('owner', 'workroom')],
     loadChildren: () => import('./stock/stock.routes').then((m) => m.stockRoutes),
   },
   {

@@ -23,7 +23,7 @@ interface NavItem {
 const navItems: readonly NavItem[] = [
   { path: '/commissions', label: 'Commissions', icon: 'assignment', roles: ['owner', 'workroom'] },
   { path: '/clients', label: 'Clients', icon: 'group', roles: ['owner', 'workroom'] },
-  { path: '/stock', label: 'Studio fabric', icon: 'inventory_2', roles: ['owner'] },
+  { path: '/stock', label: 'Studio fabric', icon: 'inventory_2', roles: ['owner', 'workroom'] },
   { path: '/users', label: 'Users', icon: 'manage_accounts', roles: ['owner'] },
   { path: '/mail', label: 'Mail', icon: 'mail', roles: ['owner'] },
   { path: '/settings', label: 'Settings', icon: 'settings', roles: ['owner'] },

@@ -10,6 +10,7 @@ import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 
+import { signedInAs } from '../../testing/signed-in-as';
 import { Notices } from '../core/notices';
 import { StockItem } from './stock-item';
 import { StockList } from './stock-list';
@@ -39,6 +40,7 @@ describe('StockList', () => {
       providers: [
         provideHttpClient(),
         provideHttpClientTesting(),
+        signedInAs('owner'),
         { provide: Notices, useValue: jasmine.createSpyObj<Notices>('Notices', ['info', 'error']) },
         { provide: MATERIAL_ANIMATIONS, useValue: { animationsDisabled: true } },
       ],
@@ -111,5 +113,54 @@ describe('StockList', () => {
     expect(removal.request.method).toBe('DELETE');
     removal.flush(null, { status: 204, statusText: 'No Content' });
     httpMock.expectOne('/api/stock').flush({ items: [] });
+  });
+});
+
+describe('StockList for the workroom', () => {
+  let fixture: ComponentFixture<StockList>;
+  let loader: HarnessLoader;
+  let httpMock: HttpTestingController;
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      imports: [StockList],
+      providers: [
+        provideHttpClient(),
+        provideHttpClientTesting(),
+        signedInAs('workroom'),
+        { provide: Notices, useValue: jasmine.createSpyObj<Notices>('Notices', ['info', 'error']) },
+      ],
+    });
+    fixture = TestBed.createComponent(StockList);
+    loader = TestbedHarnessEnvironment.loader(fixture);
+    httpMock = TestBed.inject(HttpTestingController);
+    await fixture.whenStable();
+  });
+
+  afterEach(() => httpMock.verify());
+
+  it('lists the fabric to read, without cost, supplier or any way to change it', async () => {
+    // The server leaves the cost fields out for the workroom.
+    const { costPence: _c, costUnit: _u, supplier: _s, ...withoutCost } = calico;
+    httpMock.expectOne('/api/stock').flush({ items: [{ ...withoutCost, notes: 'Backing only' }] });
+    await fixture.whenStable();
+    const page = fixture.nativeElement as HTMLElement;
+    const row = page.querySelector('[data-testid="stock-row"]')!;
+    expect(row.textContent).toContain('Unbleached calico');
+    expect(row.textContent).toContain('108 in (274.3 cm)');
+    expect(row.textContent).toContain('Backing only');
+    const headers = Array.from(page.querySelectorAll('th')).map((th) => th.textContent?.trim());
+    expect(headers).not.toContain('Cost');
+    expect(headers).not.toContain('Supplier');
+    expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Add fabric/ }))).toEqual([]);
+    expect(await loader.getAllHarnesses(MatButtonHarness.with({ selector: '[aria-label^="Change"], [aria-label^="Remove"]' }))).toEqual([]);
+  });
+
+  it('says plainly when there is nothing on the list, without asking them to add any', async () => {
+    httpMock.expectOne('/api/stock').flush({ items: [] });
+    await fixture.whenStable();
+    const empty = (fixture.nativeElement as HTMLElement).querySelector('[data-testid="stock-empty"]');
+    expect(empty?.textContent).toContain('No studio fabric on the list yet.');
+    expect(empty?.textContent).not.toContain('Add the backing');
   });
 });

@@ -12,6 +12,7 @@ import { MatTableModule } from '@angular/material/table';
 import { FIBRE, Fibre, Length, formatFabricLength } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
+import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
 import { lengthText, readingText, showMillimetres } from '../shared/length-text';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
@@ -30,7 +31,10 @@ function orNull(value: string): string | null {
   return value.trim() === '' ? null : value.trim();
 }
 
-/** The studio's fabrics for backing, binding, sashing and borders, with a form to add or change one. */
+/**
+ * The studio's fabrics for backing, binding, sashing and borders. The owner
+ * adds, changes and removes them; the workroom reads the list (without costs).
+ */
 @Component({
   selector: 'ks-stock-list',
   imports: [
@@ -51,10 +55,15 @@ export class StockList {
   private readonly api = inject(StockApi);
   private readonly notices = inject(Notices);
   private readonly dialog = inject(MatDialog);
+  private readonly auth = inject(Auth);
 
   protected readonly fibres = FIBRE.values.map((value) => ({ value, label: FIBRE.labels[value] }));
   protected readonly fibreLabels: Readonly<Record<string, string>> = FIBRE.labels;
-  protected readonly columns = ['name', 'fibre', 'width', 'length', 'cost', 'supplier', 'actions'];
+  /** Only the owner changes the shelves or sees what the fabric cost. */
+  protected readonly isOwner = computed(() => this.auth.role() === 'owner');
+  protected readonly columns = computed(() =>
+    this.isOwner() ? ['name', 'fibre', 'width', 'length', 'cost', 'supplier', 'actions'] : ['name', 'fibre', 'width', 'length', 'notes'],
+  );
   protected readonly showMillimetres = showMillimetres;
 
   protected readonly items = signal<StockItem[]>([]);
