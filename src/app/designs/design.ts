@@ -82,6 +82,18 @@ export const sharedDesignSchema = z.object({
 });
 export type SharedDesign = z.infer<typeof sharedDesignSchema>;
 
+/** The care card that goes with the finished piece (the client may read their own). */
+export const careCardSchema = z.object({
+  commission: z.object({ id: z.number(), title: z.string(), kind: z.string(), ageGroup: z.string() }),
+  maker: z.string(),
+  washing: z.array(z.string()),
+  fibres: z.array(z.object({ fibre: z.string(), garments: z.array(z.string()) })),
+  studioFabrics: z.array(z.object({ name: z.string(), fibre: z.string() })),
+  cautions: z.array(z.object({ code: z.string(), title: z.string(), text: z.string(), source: z.string() })),
+  deferNote: z.string(),
+});
+export type CareCard = z.infer<typeof careCardSchema>;
+
 /** Words for a fabric reference, from the legend. */
 export function fabricName(ref: FabricRef | null, fabrics: readonly { key: string; name: string }[]): string {
   if (!ref) return 'Planner chooses (any garment)';

@@ -4,7 +4,7 @@ import type { DesignBody } from '@keepstitch/shared';
 import { Observable, map } from 'rxjs';
 
 import { REPORT_API_ERRORS } from '../core/api-error';
-import { DesignPreview, DesignScreen, DesignVersion, SharedDesign, designScreenSchema, previewSchema, sharedDesignSchema, versionSchema } from './design';
+import { CareCard, DesignPreview, DesignScreen, DesignVersion, SharedDesign, careCardSchema, designScreenSchema, previewSchema, sharedDesignSchema, versionSchema } from './design';
 
 /** Errors of these calls are shown by the page beside what sent them. */
 const quiet = { context: new HttpContext().set(REPORT_API_ERRORS, false) };
@@ -16,6 +16,15 @@ export class DesignsApi {
 
   screen(commissionId: number): Observable<DesignScreen> {
     return this.http.get<unknown>(`/api/commissions/${commissionId}/design`).pipe(map((b) => designScreenSchema.parse(b)));
+  }
+
+  /** One saved version as it was stored, for reading. */
+  version(commissionId: number, version: number): Observable<DesignVersion> {
+    return this.http.get<unknown>(`/api/commissions/${commissionId}/design/versions/${version}`, quiet).pipe(map((b) => versionSchema.parse(b)));
+  }
+
+  careCard(commissionId: number): Observable<CareCard> {
+    return this.http.get<unknown>(`/api/commissions/${commissionId}/care-card`).pipe(map((b) => careCardSchema.parse(b)));
   }
 
   preview(commissionId: number, body: DesignBody): Observable<DesignPreview> {

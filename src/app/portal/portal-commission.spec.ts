@@ -81,6 +81,12 @@ describe('PortalCommission', () => {
     expect(steps[0].textContent).toContain('(done)');
   });
 
+  it('leads the client to their design and their care card', async () => {
+    const href = async (text: string) => (await (await loader.getHarness(MatButtonHarness.with({ text }))).host()).getAttribute('href');
+    expect(await href('See the design')).toBe('/designs/5/review');
+    expect(await href('Care card')).toBe('/designs/5/care-card');
+  });
+
   it('adds a garment with only the fields a client may send, then sends its chosen photos', async () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: /Add a garment/ }))).click();
     await fixture.whenStable();
