@@ -91,4 +91,89 @@ describe('DesignForm', () => {
     expect(emitted[emitted.length - 1]!.assignments).toEqual(body.assignments);
     expect(emitted[emitted.length - 1]!.layout.rows).toBe(3);
   });
+
+  describe('bed size', () => {
+    const bed = () => loader.getHarness(MatSelectHarness.with({ selector: '[formControlName="preset"]' }));
+    const units = () => loader.getHarness(MatSelectHarness.with({ selector: '[formControlName="units"]' }));
+    const last = () => emitted[emitted.length - 1]!;
+
+    it('fills the target from a UK double with a 30 cm drop, through the shared bed maths', async () => {
+      await create();
+      await (await units()).open();
+      await (await units()).clickOptions({ text: /Centimetres/ });
+      await (await bed()).open();
+      await (await bed()).clickOptions({ text: 'UK double' });
+      await (await input('Drop each side')).setValue('30');
+      await settle();
+      // Published: a UK double mattress is 135 x 190 cm; derived: 135 + 2 x 30 = 195 cm wide, 190 + 30 = 220 cm long.
+      expect(last().target).toEqual({ preset: 'uk-double', dropMm: '300', widthMm: '1950', lengthMm: '2200' });
+      expect(await (await input('Target width')).getValue()).toBe('195');
+      expect(await (await input('Target length')).getValue()).toBe('220');
+      expect(await (await input('Target width')).isDisabled()).toBeTrue();
+      expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="bed-hint"]')!.textContent).toContain('Mattress 135 cm × 190 cm');
+    });
+
+    it('adds a pillow tuck to the length only', async () => {
+      await create();
+      await (await bed()).open();
+      await (await bed()).clickOptions({ text: 'US queen' });
+      await (await input('Drop each side')).setValue('12');
+      await (await input('Pillow tuck')).setValue('10');
+      await settle();
+      // Published: US queen 60 x 80 in; derived: 60 + 2 x 12 = 84 in = 2133.6 mm; 80 + 12 + 10 = 102 in = 2590.8 mm.
+      expect(last().target).toEqual({ preset: 'us-queen', dropMm: '304.8', widthMm: '2133.6', lengthMm: '2590.8' });
+      expect(await (await input('Target length')).getValue()).toBe('102');
+    });
+
+    it('starts a bed at a 10 in drop, the low end of the usual range', async () => {
+      await create();
+      await (await bed()).open();
+      await (await bed()).clickOptions({ text: 'US twin' });
+      await settle();
+      // Published: US twin 38 x 75 in; 38 + 20 = 58 in, 75 + 10 = 85 in.
+      expect(await (await input('Drop each side')).getValue()).toBe('10');
+      expect(last().target).toEqual({ preset: 'us-twin', dropMm: '254', widthMm: '1473.2', lengthMm: '2159' });
+    });
+
+    it('shows a stored bed size with its drop, and the tuck the length holds beyond them', async () => {
+      const body = starterDesign('1828.8', '2235.2');
+      // US full 54 x 75 in with a 12 in drop and a 10 in tuck: 78 x 97 in.
+      await create({ ...body, target: { preset: 'us-full', dropMm: '304.8', widthMm: '1981.2', lengthMm: '2463.8' } });
+      expect(await (await bed()).getValueText()).toBe('US full');
+      expect(await (await input('Drop each side')).getValue()).toBe('12');
+      expect(await (await input('Pillow tuck')).getValue()).toBe('10');
+      expect(await (await input('Target width')).getValue()).toBe('78');
+    });
+
+    it('refuses a drop over 100 cm and sends nothing', async () => {
+      await create();
+      await (await bed()).open();
+      await (await bed()).clickOptions({ text: 'UK single' });
+      await settle();
+      const before = emitted.length;
+      const drop = await input('Drop each side');
+      await drop.setValue('50');
+      await drop.blur();
+      await settle();
+      expect(emitted.length).toBe(before);
+      const field = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Drop each side' }));
+      expect((await field.getTextErrors()).join(' ')).toContain('at most 100 cm');
+    });
+
+    it('goes back to a typed size, keeping the bed size to edit from', async () => {
+      await create();
+      await (await bed()).open();
+      await (await bed()).clickOptions({ text: 'US queen' });
+      await settle();
+      await (await bed()).open();
+      await (await bed()).clickOptions({ text: /Custom size/ });
+      const width = await input('Target width');
+      expect(await width.isDisabled()).toBeFalse();
+      expect(await width.getValue()).toBe('80');
+      await width.setValue('81 1/2');
+      await settle();
+      // Published: 1 in = 25.4 mm; 81 1/2 in = 2070.1 mm; 80 + 10 in = 90 in = 2286 mm.
+      expect(last().target).toEqual({ preset: null, dropMm: null, widthMm: '2070.1', lengthMm: '2286' });
+    });
+  });
 });

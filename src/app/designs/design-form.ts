@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { BLOCK_KINDS, BLOCK_KIND_LABELS, BlockKind, DesignBody, Length, LengthUnit, tryParseLength } from '@keepstitch/shared';
+import { BLOCK_KINDS, BLOCK_KIND_LABELS, BedRegion, BlockKind, DesignBody, DomainError, Length, LengthUnit, MATTRESS_PRESETS, MattressPreset, Size, TYPICAL_DROP, formatLength, quiltSizeForBed, tryParseLength } from '@keepstitch/shared';
 import { debounceTime } from 'rxjs';
 
 import { StockSource } from './design';
@@ -57,6 +57,28 @@ function lengthsValidator(form: () => 'imperial' | 'metric') {
   };
 }
 
+/** The bed presets by region, for the size menu. */
+const PRESET_GROUPS: readonly { region: BedRegion; presets: readonly MattressPreset[] }[] = (['UK', 'EU', 'US'] as const).map((region) => ({
+  region,
+  presets: MATTRESS_PRESETS.filter((p) => p.region === region),
+}));
+
+const presetOf = (id: string | null): MattressPreset | undefined => (id ? MATTRESS_PRESETS.find((p) => p.id === id) : undefined);
+
+/** A drop or tuck as typed (0 allowed), or null when it cannot be read. */
+function lengthOrZero(text: string, units: 'imperial' | 'metric'): Length | null {
+  if (text.trim() === '') return Length.zero;
+  const parsed = tryParseLength(text, unitOf(units), { allowZero: true });
+  return parsed.ok ? parsed.length : null;
+}
+
+/** The quilt size for a bed preset, drop and pillow tuck, through the shared bed maths. */
+export function bedQuiltSize(presetId: string, drop: Length, pillowTuck: Length): Size {
+  const preset = presetOf(presetId);
+  if (!preset) throw new DomainError('unknown-preset', `There is no bed size "${presetId}".`, 'bed');
+  return quiltSizeForBed({ mattress: preset.size, drop, pillowTuck }).size;
+}
+
 /** The design's size, layout, blocks and finishing, as a typed form; emits a design body while valid. */
 @Component({
   selector: 'ks-design-form',
@@ -74,10 +96,15 @@ export class DesignForm {
   readonly designChange = output<DesignBody>();
 
   protected readonly kinds = BLOCK_KINDS;
+  protected readonly presetGroups = PRESET_GROUPS;
   protected readonly kindLabels = BLOCK_KIND_LABELS;
 
   protected readonly form = new FormGroup({
     units: new FormControl<'imperial' | 'metric'>('imperial', { nonNullable: true }),
+    /** A bed preset (the size comes from the mattress, drop and tuck), or null for a typed size. */
+    preset: new FormControl<string | null>(null),
+    drop: new FormControl('', { nonNullable: true, validators: [(c) => this.bedProblem(c, 'drop')] }),
+    pillowTuck: new FormControl('', { nonNullable: true, validators: [(c) => this.bedProblem(c, 'pillow tuck')] }),
     targetWidth: new FormControl('', { nonNullable: true, validators: [lengthValidator(() => this.units())] }),
     targetLength: new FormControl('', { nonNullable: true, validators: [lengthValidator(() => this.units())] }),
     setting: new FormControl<'straight' | 'on-point'>('straight', { nonNullable: true }),
@@ -113,7 +140,80 @@ export class DesignForm {
         if (d !== this.loadedFrom && !this.isOwnEmission(d)) this.load(d);
       });
     });
+    const c = this.form.controls;
+    for (const ctrl of [c.preset, c.drop, c.pillowTuck, c.units] as AbstractControl[]) {
+      ctrl.valueChanges.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => this.applyBed());
+    }
     this.form.valueChanges.pipe(debounceTime(150), takeUntilDestroyed(this.destroyRef)).subscribe(() => this.emit());
+  }
+
+  /** Errors of the drop and pillow tuck, read against the chosen bed. */
+  private bedProblem(c: AbstractControl<string>, field: 'drop' | 'pillow tuck'): ValidationErrors | null {
+    const form = this.form as typeof this.form | undefined;
+    if (!form?.controls.preset.value) return null;
+    const text = c.value ?? '';
+    if (field === 'drop' && text.trim() === '') return { required: true };
+    const parsed = text.trim() === '' ? null : tryParseLength(text, unitOf(this.units()), { allowZero: true });
+    if (parsed && !parsed.ok) return { length: parsed.error.message };
+    try {
+      const length = parsed?.ok ? parsed.length : Length.zero;
+      bedQuiltSize(form.controls.preset.value, field === 'drop' ? length : Length.zero, field === 'pillow tuck' ? length : Length.zero);
+      return null;
+    } catch (err) {
+      if (err instanceof DomainError) return { length: err.message };
+      throw err;
+    }
+  }
+
+  /** The chosen bed's size, or null when there is no bed or its drop or tuck cannot be read. */
+  private bedSize(): Size | null {
+    const v = this.form.getRawValue();
+    if (!v.preset) return null;
+    const drop = v.drop.trim() === '' ? null : lengthOrZero(v.drop, v.units);
+    const tuck = lengthOrZero(v.pillowTuck, v.units);
+    if (!drop || !tuck) return null;
+    try {
+      return bedQuiltSize(v.preset, drop, tuck);
+    } catch {
+      return null;
+    }
+  }
+
+  /** With a bed chosen, the target follows it and cannot be typed; without one, it is typed. */
+  private applyBed(): void {
+    const c = this.form.controls;
+    const quiet = { emitEvent: false };
+    c.drop.updateValueAndValidity(quiet);
+    c.pillowTuck.updateValueAndValidity(quiet);
+    if (!c.preset.value) {
+      c.targetWidth.enable(quiet);
+      c.targetLength.enable(quiet);
+      return;
+    }
+    const size = this.bedSize();
+    if (size) {
+      const u = c.units.value;
+      c.targetWidth.setValue(lengthForEditing(size.width.mm.toString(), u), quiet);
+      c.targetLength.setValue(lengthForEditing(size.height.mm.toString(), u), quiet);
+    }
+    c.targetWidth.disable(quiet);
+    c.targetLength.disable(quiet);
+  }
+
+  /** A first drop for a newly chosen bed: the low end of the usual range for beds, none for cots. */
+  protected presetChosen(id: string | null): void {
+    const preset = presetOf(id);
+    if (!preset || this.form.controls.drop.value.trim() !== '') return;
+    const drop = preset.kind === 'bed' ? TYPICAL_DROP.min : Length.zero;
+    this.form.controls.drop.setValue(lengthForEditing(drop.mm.toString(), this.units()) || '0');
+  }
+
+  /** "Mattress 135 x 190 cm, plus the drop on both sides and the foot, plus the tuck." */
+  protected bedHint(): string | null {
+    const preset = presetOf(this.form.controls.preset.value);
+    if (!preset) return null;
+    const u = this.form.controls.units.value;
+    return `Mattress ${formatLength(preset.size.width, u)} × ${formatLength(preset.size.height, u)}, plus the drop on both sides and the foot, plus any pillow tuck at the head.`;
   }
 
   private lastEmitted: DesignBody | null = null;
@@ -140,11 +240,18 @@ export class DesignForm {
   private load(d: DesignBody): void {
     this.loadedFrom = d;
     const u = d.units;
+    const preset = presetOf(d.target.preset);
+    // The tuck is not stored: it is what the length has beyond the mattress and the drop at the foot.
+    const dropMm = preset ? Length.millimetres(d.target.dropMm ?? '0') : Length.zero;
+    const tuck = preset ? Length.millimetres(d.target.lengthMm).minus(preset.size.height).minus(dropMm) : Length.zero;
     this.blocks.clear({ emitEvent: false });
     for (const b of d.blocks) this.blocks.push(this.blockGroup(b, u), { emitEvent: false });
     this.form.patchValue(
       {
         units: u,
+        preset: preset?.id ?? null,
+        drop: preset ? lengthForEditing(dropMm.mm.toString(), u) || '0' : '',
+        pillowTuck: preset && tuck.gt(Length.zero) ? lengthForEditing(tuck.mm.toString(), u) : '',
         targetWidth: lengthForEditing(d.target.widthMm, u),
         targetLength: lengthForEditing(d.target.lengthMm, u),
         setting: d.layout.setting,
@@ -165,6 +272,7 @@ export class DesignForm {
       },
       { emitEvent: false },
     );
+    this.applyBed();
   }
 
   protected addBlock(): void {
@@ -188,9 +296,11 @@ export class DesignForm {
     const ids = v.blocks.map((b) => b.id);
     const pattern = v.pattern.split(/[\s,]+/).map((s) => s.trim().toUpperCase()).filter(Boolean);
     if (pattern.some((p) => !ids.includes(p))) return null;
+    const target = this.target(v.preset, v.drop, v.targetWidth, v.targetLength, u);
+    if (!target) return null;
     return {
       units: u,
-      target: { preset: base.target.preset, dropMm: base.target.dropMm, widthMm: mm(v.targetWidth)!, lengthMm: mm(v.targetLength)! },
+      target,
       layout: {
         setting: v.setting,
         rows: v.rows,
@@ -211,6 +321,15 @@ export class DesignForm {
       finishing: { bindingStockId: v.bindingStockId, bindingStripMm: mm(v.bindingStrip)!, backingStockId: v.backingStockId, waddingStockId: v.waddingStockId, prewash: v.prewash, shrinkPercent: String(v.shrinkPercent) },
       rules: { minimumPerGarment: v.minimumPerGarment },
     };
+  }
+
+  private target(preset: string | null, drop: string, width: string, length: string, u: 'imperial' | 'metric'): DesignBody['target'] | null {
+    if (preset) {
+      const bed = this.bedSize();
+      if (!bed) return null;
+      return { preset, dropMm: lengthOrZero(drop, u)!.mm.toString(), widthMm: bed.width.mm.toString(), lengthMm: bed.height.mm.toString() };
+    }
+    return { preset: null, dropMm: null, widthMm: millimetresOf(width, u)!, lengthMm: millimetresOf(length, u)! };
   }
 
   protected patternProblem(): string | null {
