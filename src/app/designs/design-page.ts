@@ -14,8 +14,9 @@ import { Subject, debounceTime, switchMap, catchError, of } from 'rxjs';
 import { messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
-import { DesignScreen, Fabric, starterDesign } from './design';
+import { DesignScreen, DesignVersion, Fabric, starterDesign } from './design';
 import { DesignForm } from './design-form';
+import { DesignVersionView } from './design-version-view';
 import { DesignsApi } from './designs-api';
 import { FabricBoard } from './fabric-board';
 import { QuiltDrawing } from './quilt-drawing';
@@ -25,7 +26,7 @@ type LoadState = 'loading' | 'ready' | 'missing' | 'failed';
 /** A commission's design: the form, the live drawing, who gives which fabric, and what the plan says. */
 @Component({
   selector: 'ks-design-page',
-  imports: [DatePipe, PercentPipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, DesignForm, QuiltDrawing, FabricBoard],
+  imports: [DatePipe, PercentPipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, DesignForm, QuiltDrawing, FabricBoard, DesignVersionView],
   templateUrl: './design-page.html',
   styleUrl: './design-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -50,6 +51,9 @@ export class DesignPage {
   protected readonly planError = signal<string | null>(null);
   protected readonly saving = signal(false);
   protected readonly note = new FormControl('', { nonNullable: true });
+  /** An earlier version opened for reading. */
+  protected readonly viewing = signal<DesignVersion | null>(null);
+  protected readonly versionError = signal<string | null>(null);
 
   /** Derived in the browser with the same maths as the server, so the drawing follows every keystroke. */
   protected readonly derivation = computed<{ derived: DesignDerivation | null; error: string | null }>(() => {
@@ -158,6 +162,17 @@ export class DesignPage {
         this.load();
       },
       error: (err: unknown) => this.planError.set(messageFor(err)),
+    });
+  }
+
+  protected viewVersion(version: number): void {
+    this.versionError.set(null);
+    this.api.version(this.commissionId(), version).subscribe({
+      next: (v) => this.viewing.set(v),
+      error: (err: unknown) => {
+        this.viewing.set(null);
+        this.versionError.set(messageFor(err));
+      },
     });
   }
 
