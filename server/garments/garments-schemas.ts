@@ -16,7 +16,7 @@ const garmentFields = {
   description: z.string({ message: 'Describe the garment.' }).trim().min(1, 'Describe the garment.').max(300, 'A description can be at most 300 characters.'),
   whose: optionalText(200, 'Whose it was'),
   story: optionalText(5000, 'Story'),
-  fibre: oneOf(FIBRE.values, 'Choose the fibre.').optional(),
+  fibre: oneOf(FIBRE.values, 'Choose the fibre.').nullable().optional(),
   construction: oneOf(CONSTRUCTION.values, 'Choose woven or knit.').optional(),
   colour: optionalText(100, 'Colour'),
   print: oneOf(PRINT.values, 'Choose the kind of print.').optional(),

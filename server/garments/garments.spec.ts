@@ -68,6 +68,13 @@ describe('garments, custody and panels', () => {
     expect((await event({ kind: 'returned', returnMethod: 'post', trackingRef: 'TT123' })).body.state.status).toBe('returned');
   });
 
+  it('lets the studio mark a fibre as not known', async () => {
+    const g = (await owner.post(`/api/commissions/${commissionA}/garments`, { description: 'Mystery blouse', fibre: 'silk' })).body;
+    const res = await workroom.patch(`/api/garments/${g.id}`, { fibre: null });
+    expect(res.status).toBe(200);
+    expect(res.body.fibre).toBeNull();
+  });
+
   it('keeps custody events append-only in the database itself', async () => {
     const [g] = await t.knex('garments').insert({ commissionId: commissionA, description: 'Scarf' }).returning('id');
     const [e] = await t.knex('custodyEvents').insert({ garmentId: g.id, kind: 'received' }).returning('id');

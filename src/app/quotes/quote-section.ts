@@ -90,21 +90,42 @@ export class QuoteSection {
     this.selectedId.set(quote.id);
   }
 
-  /** A new draft version, starting from the newest version's lines, or from one labour line at the hourly rate. */
-  protected newQuote(): void {
+  /**
+   * A new draft version. It starts from the newest version's lines; the first
+   * one, or one asked for "from the design", is priced from the current design
+   * (falling back to one labour line at the hourly rate when there is none).
+   */
+  protected newQuote(fromDesign = false): void {
     const latest = this.quotes()[0];
-    const draft: QuoteDraft = latest
-      ? {
-          intro: latest.intro ?? '',
-          lines: latest.lines.map((l) => ({ kind: l.kind, description: l.description, quantity: l.quantity, unit: l.unit, unitPricePence: l.unitPricePence, ...(l.stage ? { stage: l.stage } : {}) })),
-          depositPercent: latest.depositPercent,
-        }
-      : {
-          lines: [{ kind: 'labour', description: 'Making: piecing, quilting and binding', quantity: '1', unit: 'hours', unitPricePence: this.hourlyRatePence() ?? 0 }],
-          ...(this.defaultDeposit() !== null ? { depositPercent: this.defaultDeposit()! } : {}),
-        };
+    const deposit = latest ? { depositPercent: latest.depositPercent } : this.defaultDeposit() !== null ? { depositPercent: this.defaultDeposit()! } : {};
+    const blank: QuoteDraft = {
+      lines: [{ kind: 'labour', description: 'Making: piecing, quilting and binding', quantity: '1', unit: 'hours', unitPricePence: this.hourlyRatePence() ?? 0 }],
+      ...deposit,
+    };
     this.creating.set(true);
     this.actionError.set(null);
+    if (latest && !fromDesign) {
+      this.createDraft({
+        intro: latest.intro ?? '',
+        lines: latest.lines.map((l) => ({ kind: l.kind, description: l.description, quantity: l.quantity, unit: l.unit, unitPricePence: l.unitPricePence, ...(l.stage ? { stage: l.stage } : {}) })),
+        ...deposit,
+      });
+      return;
+    }
+    this.api.suggestion(this.commissionId()).subscribe({
+      next: (suggestion) => {
+        if (fromDesign && suggestion.lines.length === 0) {
+          this.creating.set(false);
+          this.actionError.set('There is no design to price from yet: save a design for this commission first.');
+          return;
+        }
+        this.createDraft(suggestion.lines.length ? { lines: suggestion.lines, ...deposit } : blank);
+      },
+      error: () => (fromDesign ? (this.creating.set(false), this.actionError.set('The design could not be priced just now; try again.')) : this.createDraft(blank)),
+    });
+  }
+
+  private createDraft(draft: QuoteDraft): void {
     this.api.create(this.commissionId(), draft).subscribe({
       next: (quote) => {
         this.creating.set(false);

@@ -108,6 +108,22 @@ export type Payments = z.infer<typeof paymentsSchema>;
 
 export const checkoutSchema = z.object({ url: z.string() });
 
+/** Lines the server suggests from the commission's current design (none before there is a design). */
+export const suggestionSchema = z.object({
+  designVersion: z.nullable(z.number()),
+  lines: z.array(
+    z.object({
+      kind: z.enum(LINE_KINDS),
+      description: z.string(),
+      quantity: z.string(),
+      unit: z.string(),
+      unitPricePence: z.number(),
+      stage: z.optional(z.string()),
+    }),
+  ),
+});
+export type QuoteSuggestion = z.infer<typeof suggestionSchema>;
+
 /** "Sent 3 Jun 2026, 14:05" style date and time from an ISO timestamp, in the browser's time zone. */
 export function showDateTime(iso: string | null | undefined): string {
   if (!iso) return '';

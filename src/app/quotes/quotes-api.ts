@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
 import { REPORT_API_ERRORS } from '../core/api-error';
-import { Payment, Payments, Quote, QuoteDraft, checkoutSchema, paymentSchema, paymentsSchema, quoteListSchema, quoteSchema } from './quote';
+import { Payment, Payments, Quote, QuoteDraft, QuoteSuggestion, checkoutSchema, paymentSchema, paymentsSchema, quoteListSchema, quoteSchema, suggestionSchema } from './quote';
 
 /** Errors of these calls are shown by the page beside the button or form that made them. */
 const quiet = { context: new HttpContext().set(REPORT_API_ERRORS, false) };
@@ -18,6 +18,13 @@ export class QuotesApi {
     return this.http
       .get<unknown>(`/api/commissions/${commissionId}/quotes`)
       .pipe(map((body) => quoteListSchema.parse(body).items));
+  }
+
+  /** Lines priced from the commission's current design (owner). */
+  suggestion(commissionId: number): Observable<QuoteSuggestion> {
+    return this.http
+      .get<unknown>(`/api/commissions/${commissionId}/quote-suggestion`, quiet)
+      .pipe(map((body) => suggestionSchema.parse(body)));
   }
 
   create(commissionId: number, draft: QuoteDraft): Observable<Quote> {
