@@ -70,8 +70,11 @@ describe('quote lines suggested from a design', () => {
     expect(new Decimal(navy.quantity).times('914.4').gte(navyShop.buyMm)).toBe(true);
   });
 
-  it('asks for stabiliser for knit garments, priced by the maker', () => {
+  it('asks for stabiliser for knit garments, wadding, thread and a label, priced by the maker', () => {
     expect(lines.find((l) => l.description.startsWith('Fusible stabiliser'))).toMatchObject({ quantity: '1', unitPricePence: 0 });
+    // Wadding 4 in larger than the 48 x 60 in top on every side (common practice): 56 x 68 in = 142.24 x 172.72 cm, up to whole cm.
+    expect(lines.find((l) => l.description.startsWith('Wadding'))).toMatchObject({ description: 'Wadding, 143 x 173 cm', unitPricePence: 0 });
+    expect(lines.map((l) => l.description)).toEqual(expect.arrayContaining(['Thread for piecing and quilting', 'Sewn-in label']));
   });
 
   it('rounds hours up to the quarter, never below a quarter', () => {

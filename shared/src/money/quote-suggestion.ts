@@ -6,7 +6,8 @@ import type { DesignPlanSummary } from '../design/plan-design';
 /**
  * Lines for a first quote, drawn from a commission's design: the studio fabric
  * still to buy (from the shopping list, at the studio's price per metre or
- * yard), fusible stabiliser for knit garments, and labour by stage estimated
+ * yard), wadding when it is not from stock, thread, a label, fusible
+ * stabiliser for knit garments (these at a price the maker fills in), and labour by stage estimated
  * from the studio's minutes per block kind and from the size of the piece.
  * Every line is a suggestion the maker edits before sending.
  */
@@ -81,6 +82,13 @@ export function suggestQuoteLines(input: SuggestionInput): SuggestedLine[] {
       unitPricePence: stock?.costPence ?? 0,
     });
   }
+
+  if (input.plan.wadding.stockId === null) {
+    const cm = (mm: string) => new Decimal(mm).dividedBy(10).toDecimalPlaces(0, Decimal.ROUND_UP).toString();
+    lines.push({ kind: 'material', description: `Wadding, ${cm(input.plan.wadding.widthMm)} x ${cm(input.plan.wadding.lengthMm)} cm`, quantity: '1', unit: 'piece', unitPricePence: 0 });
+  }
+  lines.push({ kind: 'material', description: 'Thread for piecing and quilting', quantity: '1', unit: 'lot', unitPricePence: 0 });
+  lines.push({ kind: 'extra', description: 'Sewn-in label', quantity: '1', unit: 'item', unitPricePence: 0 });
 
   if (input.knitGarments > 0) {
     lines.push({
