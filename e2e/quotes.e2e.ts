@@ -54,7 +54,7 @@ describe('quotes and payments, end to end', () => {
     await page.getByTestId('quote-version').filter({ hasText: 'v1' }).filter({ hasText: 'Sent' }).waitFor();
     await page.getByTestId('quote-detail').getByText('Waiting for the client’s answer').waitFor();
 
-    await page.getByRole('button', { name: 'New quote' }).click();
+    await page.getByRole('button', { name: 'New quote', exact: true }).click();
     await page.getByRole('heading', { name: 'Version 2: Draft' }).waitFor();
     const before = await page.getByTestId('total-total').innerText();
     await page.getByRole('button', { name: 'Add discount' }).click();
