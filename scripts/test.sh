@@ -58,6 +58,13 @@ log "jest: shared maths and server (real PostgreSQL)"
 npx jest --ci --json --outputFile="$OUT/jest.json" 2>&1 | grep -v '^\s*$' | tail -n 60
 read -r p f < <(counts "$OUT/jest.json" jest); record "jest" "$p" "$f"
 
+log "Faults: PostgreSQL stopped and started again under writes"
+if bash scripts/fault-db.sh >"$OUT/fault-db.log" 2>&1; then
+  grep -v '^\s*at ' "$OUT/fault-db.log" | tail -n 7; record "fault: db restart" 1 0
+else
+  tail -n 40 "$OUT/fault-db.log"; record "fault: db restart" 0 1
+fi
+
 log "karma: Angular components in headless Chromium"
 npx ng test --watch=false --progress=false 2>&1 | tail -n 40
 read -r p f < <(counts "$OUT/karma.json" karma); record "karma" "$p" "$f"

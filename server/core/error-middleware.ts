@@ -29,7 +29,8 @@ function toAppError(err: unknown): AppError {
     return AppError.conflict('This record is still linked to other records, so the change was not made.');
   }
   if (isDatabaseDown(err)) {
-    return new AppError(503, 'unavailable', 'The workroom database is not answering. Nothing was changed; please try again in a moment.');
+    // A write may have reached the database just before it stopped answering: say so rather than promise nothing changed.
+    return new AppError(503, 'unavailable', 'The workroom database is not answering just now. Please try again in a moment; if you were saving, check whether the change was kept before saving again.');
   }
   const e = err as { code?: string; type?: string; status?: number; name?: string; field?: string };
   if (e.name === 'MulterError') {
@@ -60,7 +61,8 @@ export function errorMiddleware(log: (err: unknown) => void = (err) => console.e
   return (err, _req, res, next) => {
     if (res.headersSent) return next(err);
     const appError = toAppError(err);
-    if (appError.status >= 500) log(err);
+    if (appError.status === 503) log(`Database not answering: ${(err as Error).message}`);
+    else if (appError.status >= 500) log(err);
     const body: { code: string; message: string; fields?: Record<string, string> } = {
       code: appError.code,
       message: appError.message,
