@@ -21,11 +21,12 @@ async function main(): Promise<void> {
   const outbox = startOutboxWorker(knex, config);
   const app = createApp({ config, knex, sessionPool, kickMail: outbox.kick });
   // An upload cut short by a crash leaves files without rows: clear them before serving.
-  const orphans = await removeOrphanFiles(config.uploadDir).catch((err: Error) => {
+  const tidy = await removeOrphanFiles(config.uploadDir).catch((err: Error) => {
     console.error(`Photo folder check failed: ${err.message}`);
-    return [];
+    return { removed: [], unclaimed: [] };
   });
-  if (orphans.length) console.log(`Keepstitch: removed ${orphans.length} unfinished upload file(s).`);
+  if (tidy.removed.length) console.log(`Keepstitch: removed ${tidy.removed.length} half-written upload file(s).`);
+  if (tidy.unclaimed.length) console.log(`Keepstitch: moved ${tidy.unclaimed.length} photo file(s) no record names to ${config.uploadDir}/unclaimed.`);
   const server = createServer(app);
 
   let stopping = false;

@@ -1,4 +1,4 @@
-import { readdir, unlink } from 'node:fs/promises';
+import { mkdir, readdir, rename, unlink } from 'node:fs/promises';
 import path from 'node:path';
 import { AppError } from '../core/app-error';
 import { CommissionModel } from '../commissions/commission-model';
@@ -42,17 +42,27 @@ export async function photoFile(user: Express.User, id: number, which: 'image' |
     : { path: path.join(uploadDir, photo.thumbName), mime: 'image/webp' };
 }
 
+/** Where stored photo files without a row are moved at start-up, to be looked at rather than lost. */
+export const UNCLAIMED_DIR = 'unclaimed';
+
 /**
- * Removes what an interrupted upload can leave in the photo folder: half-written
- * ".part" files, and stored files no photo row names (the row was never
- * committed). Run at start-up, before any upload can be in flight.
+ * Tidies what an interrupted upload can leave in the photo folder, at start-up
+ * before any upload can be in flight: half-written ".part" files are removed;
+ * stored files that no photo row names (their row was never committed) are
+ * moved into an "unclaimed" folder beside them, never deleted, since a folder
+ * shared with another database must not lose a client's photos.
  */
-export async function removeOrphanFiles(uploadDir: string): Promise<string[]> {
+export async function removeOrphanFiles(uploadDir: string): Promise<{ removed: string[]; unclaimed: string[] }> {
   const names = await readdir(uploadDir).catch(() => [] as string[]);
-  if (!names.length) return [];
+  if (!names.length) return { removed: [], unclaimed: [] };
   const rows = await PhotoModel.query().select('fileName', 'thumbName');
   const kept = new Set(rows.flatMap((r) => [r.fileName, r.thumbName]));
-  const orphans = names.filter((n) => n.endsWith('.part') || (/^[0-9a-f-]{36}(\.thumb)?\.(jpg|png|webp)$/.test(n) && !kept.has(n)));
-  await Promise.all(orphans.map((n) => unlink(path.join(uploadDir, n)).catch(() => undefined)));
-  return orphans;
+  const removed = names.filter((n) => n.endsWith('.part'));
+  const unclaimed = names.filter((n) => /^[0-9a-f-]{36}(\.thumb)?\.(jpg|png|webp)$/.test(n) && !kept.has(n));
+  await Promise.all(removed.map((n) => unlink(path.join(uploadDir, n)).catch(() => undefined)));
+  if (unclaimed.length) {
+    await mkdir(path.join(uploadDir, UNCLAIMED_DIR), { recursive: true });
+    await Promise.all(unclaimed.map((n) => rename(path.join(uploadDir, n), path.join(uploadDir, UNCLAIMED_DIR, n)).catch(() => undefined)));
+  }
+  return { removed, unclaimed };
 }

@@ -118,7 +118,7 @@ describe('photo uploads', () => {
 });
 
 describe('photo folder clean-up at start', () => {
-  it('removes half-written files and files no photo row names, and keeps the rest', async () => {
+  it('removes half-written files, moves files no photo row names aside, and keeps the rest', async () => {
     const t = await startTestApp();
     try {
       const owner = await signedIn(t.app, (await addUser(t.knex, 'owner')).email);
@@ -131,9 +131,10 @@ describe('photo folder clean-up at start', () => {
       writeFileSync(path.join(t.uploadDir, '3f2504e0-4f89-11d3-9a0c-0305e82c3301.jpg.part'), 'half');
       writeFileSync(path.join(t.uploadDir, '3f2504e0-4f89-11d3-9a0c-0305e82c3302.jpg'), 'no row');
       writeFileSync(path.join(t.uploadDir, 'README.txt'), 'not ours');
-      const removed = await removeOrphanFiles(t.uploadDir);
-      expect(removed.sort()).toEqual(['3f2504e0-4f89-11d3-9a0c-0305e82c3301.jpg.part', '3f2504e0-4f89-11d3-9a0c-0305e82c3302.jpg']);
-      expect(readdirSync(t.uploadDir).sort()).toEqual([...kept, 'README.txt'].sort());
+      const tidy = await removeOrphanFiles(t.uploadDir);
+      expect(tidy).toEqual({ removed: ['3f2504e0-4f89-11d3-9a0c-0305e82c3301.jpg.part'], unclaimed: ['3f2504e0-4f89-11d3-9a0c-0305e82c3302.jpg'] });
+      expect(readdirSync(t.uploadDir).sort()).toEqual([...kept, 'README.txt', 'unclaimed'].sort());
+      expect(readFileSync(path.join(t.uploadDir, 'unclaimed', '3f2504e0-4f89-11d3-9a0c-0305e82c3302.jpg'), 'utf8')).toBe('no row');
     } finally {
       await t.close();
     }
