@@ -92,6 +92,22 @@ describe('DesignForm', () => {
     expect(emitted[emitted.length - 1]!.layout.rows).toBe(3);
   });
 
+  it('keeps what is being typed when only the assignments change, and sends the group given since', async () => {
+    const body = starterDesign('1828.8', '2235.2');
+    await create(body);
+    const rows = await input('Rows');
+    await rows.setValue('');
+    // The fabric board gives a group of garments to block 1 while the rows field is empty.
+    const blues = { kind: 'group' as const, name: 'The blues', garmentIds: [8, 9] };
+    fixture.componentRef.setInput('design', { ...body, assignments: [{ target: { kind: 'position', index: 0 }, fabric: blues }] });
+    await fixture.whenStable();
+    expect(await rows.getValue()).toBe('');
+    await rows.setValue('3');
+    await settle();
+    expect(emitted[emitted.length - 1]!.layout.rows).toBe(3);
+    expect(emitted[emitted.length - 1]!.assignments).toEqual([{ target: { kind: 'position', index: 0 }, fabric: blues }]);
+  });
+
   describe('bed size', () => {
     const bed = () => loader.getHarness(MatSelectHarness.with({ selector: '[formControlName="preset"]' }));
     const units = () => loader.getHarness(MatSelectHarness.with({ selector: '[formControlName="units"]' }));

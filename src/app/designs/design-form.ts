@@ -57,6 +57,8 @@ function lengthsValidator(form: () => 'imperial' | 'metric') {
   };
 }
 
+const sameButAssignments = (a: DesignBody, b: DesignBody) => JSON.stringify({ ...a, assignments: [] }) === JSON.stringify({ ...b, assignments: [] });
+
 /** The bed presets by region, for the size menu. */
 const PRESET_GROUPS: readonly { region: BedRegion; presets: readonly MattressPreset[] }[] = (['UK', 'EU', 'US'] as const).map((region) => ({
   region,
@@ -137,7 +139,10 @@ export class DesignForm {
     effect(() => {
       const d = this.design();
       untracked(() => {
-        if (d !== this.loadedFrom && !this.isOwnEmission(d)) this.load(d);
+        if (d === this.loadedFrom || this.isOwnEmission(d)) return;
+        // Only the fabrics moved (the fabric board): keep what is being typed, send the new assignments with it.
+        if (this.loadedFrom && sameButAssignments(d, this.loadedFrom)) this.loadedFrom = d;
+        else this.load(d);
       });
     });
     const c = this.form.controls;
