@@ -1,6 +1,6 @@
 import { DesignBody, DesignPlanSummary, deriveDesign } from '@keepstitch/shared';
 
-import { DesignScreen, DesignVersion } from '../app/designs/design';
+import { DesignScreen, DesignVersion, GarmentSource } from '../app/designs/design';
 
 const inch = (n: number) => String((n * 254) / 10);
 
@@ -55,7 +55,7 @@ export function version(n: number, body: DesignBody = plateDesign(), over: Parti
 }
 
 /** The design screen of commission 5, "Work-shirt memory quilt", with the given current version. */
-export function designScreen(current: DesignVersion | null = version(1), earlier: DesignVersion[] = []): DesignScreen {
+export function designScreen(current: DesignVersion | null = version(1), earlier: DesignVersion[] = [], over: Partial<DesignScreen> = {}): DesignScreen {
   const all = current ? [current, ...earlier] : earlier;
   return {
     commission: { id: 5, title: 'Work-shirt memory quilt', kind: 'memory_quilt', ageGroup: 'adult', sizePreset: null, widthMm: null, lengthMm: null, stage: 'design' },
@@ -64,5 +64,20 @@ export function designScreen(current: DesignVersion | null = version(1), earlier
     fabrics: [{ key: 'garment:8', kind: 'garment', id: 8, name: 'Blue oxford work shirt', colour: 'blue', hex: '#3b5b92' }],
     garments: [],
     stock: [],
+    ...over,
   };
+}
+
+const panel = (id: number, name: string, w: number, h: number) => ({ id, name, widthMm: inch(w), heightMm: inch(h), grain: 'vertical' });
+
+/** Three shirts of commission 5 with their measured panels: 8 blue, 9 navy, 10 green. */
+export function threeShirts(): { garments: GarmentSource[]; fabrics: DesignScreen['fabrics'] } {
+  const garments: GarmentSource[] = [
+    { id: 8, description: 'Blue oxford work shirt', colour: 'Pale blue', fibre: 'cotton', print: 'plain', construction: 'woven', panels: [panel(81, 'back', 22, 27)] },
+    { id: 9, description: 'Navy knit polo', colour: 'Navy', fibre: 'knit_jersey', print: 'plain', construction: 'knit', panels: [panel(91, 'back', 19.5, 25)] },
+    { id: 10, description: 'Green checked flannel shirt', colour: 'Green and cream check', fibre: 'flannel', print: 'non_directional', construction: 'woven', panels: [panel(101, 'back', 21, 26.5)] },
+  ];
+  const hex: Record<number, string> = { 8: '#9db7d5', 9: '#26355d', 10: '#4f7a52' };
+  const fabrics = garments.map((g) => ({ key: `garment:${g.id}`, kind: 'garment' as const, id: g.id, name: g.description, colour: g.colour, hex: hex[g.id]!, detail: '1 panel' }));
+  return { garments, fabrics };
 }

@@ -4,11 +4,18 @@ import { HarnessLoader } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { MatCheckboxHarness } from '@angular/material/checkbox/testing';
+import { MatFormFieldHarness } from '@angular/material/form-field/testing';
+import { MatInputHarness } from '@angular/material/input/testing';
+import { MatMenuHarness } from '@angular/material/menu/testing';
+import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
+import { DesignBody, deriveDesign } from '@keepstitch/shared';
 
-import { designScreen, plateDesign, version } from '../../testing/design-screen';
+import { designScreen, emptyPlan, plateDesign, threeShirts, version } from '../../testing/design-screen';
 import { signedInAs } from '../../testing/signed-in-as';
 import { Notices } from '../core/notices';
+import { GarmentGroup } from './design';
 import { DesignPage } from './design-page';
 
 describe('DesignPage', () => {
@@ -90,5 +97,157 @@ describe('DesignPage', () => {
     await fixture.whenStable();
     expect(page.querySelector('[data-testid="version-view"]')).toBeNull();
     expect([...page.querySelectorAll('[role="alert"]')].map((a) => a.textContent).join(' ')).toContain('That design version was not found.');
+  });
+});
+
+describe('DesignPage, groups of garments (owner)', () => {
+  let fixture: ComponentFixture<DesignPage>;
+  let loader: HarnessLoader;
+  let httpMock: HttpTestingController;
+  let page: HTMLElement;
+  const blues: GarmentGroup = { kind: 'group', name: 'The blues', garmentIds: [8, 9] };
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({
+      imports: [DesignPage],
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), signedInAs('owner'), { provide: Notices, useValue: jasmine.createSpyObj<Notices>('Notices', ['info', 'error']) }],
+    });
+    fixture = TestBed.createComponent(DesignPage);
+    fixture.componentRef.setInput('id', '5');
+    loader = TestbedHarnessEnvironment.loader(fixture);
+    httpMock = TestBed.inject(HttpTestingController);
+    page = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+    httpMock.expectOne('/api/commissions/5/design').flush(designScreen(version(1), [], threeShirts()));
+    await fixture.whenStable();
+  });
+
+  afterEach(() => httpMock.verify());
+
+  const button = (text: string | RegExp) => loader.getHarness(MatButtonHarness.with({ text }));
+  /** The previews sent after the page's 400 ms pause, answered with a legend that knows the group. */
+  async function previews(): Promise<DesignBody[]> {
+    await new Promise((r) => setTimeout(r, 500));
+    await fixture.whenStable();
+    const sent = httpMock.match('/api/commissions/5/design/preview');
+    for (const req of sent) {
+      const body = req.request.body as DesignBody;
+      req.flush({ derived: deriveDesign(body), plan: emptyPlan(12, 12), fabrics: [...threeShirts().fabrics, { key: 'group:8,9', kind: 'group', id: null, name: 'The blues', hex: '#5a78a8', detail: 'any of 2 garments' }] });
+    }
+    await fixture.whenStable();
+    return sent.map((r) => r.request.body as DesignBody);
+  }
+
+  async function makeTheBlues(): Promise<void> {
+    await (await button(/New group/)).click();
+    await (await (await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Group name' }))).getControl(MatInputHarness))!.setValue('The blues');
+    await (await loader.getHarness(MatCheckboxHarness.with({ label: 'Blue oxford work shirt' }))).check();
+    await (await loader.getHarness(MatCheckboxHarness.with({ label: 'Navy knit polo' }))).check();
+    await (await button('Add group')).click();
+    await fixture.whenStable();
+  }
+
+  it('makes a named group of garments, which the legend shows with its colour', async () => {
+    await makeTheBlues();
+    const row = page.querySelector<HTMLElement>('[data-testid="group-row"]')!;
+    expect(row.textContent).toContain('The blues');
+    expect(row.textContent).toContain('Blue oxford work shirt, Navy knit polo');
+    expect(row.textContent).toContain('not given to anything yet');
+    const chip = page.querySelector<HTMLElement>('[data-testid="fabric-chip"][data-fabric="group:8,9"]')!;
+    expect(chip.textContent).toContain('The blues');
+    expect(chip.textContent).toContain('any of 2 garments');
+    // Its swatch is striped with its garments' colours, blue (157, 183, 213) and navy (38, 53, 93).
+    const swatch = chip.querySelector<HTMLElement>('.swatch')!.style.background;
+    expect(swatch).toContain('repeating-linear-gradient');
+    expect(swatch).toContain('rgb(157, 183, 213)');
+    expect(swatch).toContain('rgb(38, 53, 93)');
+    // Nothing was assigned, so nothing was sent.
+    expect(await previews()).toEqual([]);
+  });
+
+  it('refuses a group of one garment, a second group of the same garments and a name taken', async () => {
+    await makeTheBlues();
+    await (await button(/New group/)).click();
+    const name = (await (await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Group name' }))).getControl(MatInputHarness))!;
+    await name.setValue('Shirts');
+    await (await loader.getHarness(MatCheckboxHarness.with({ label: 'Blue oxford work shirt' }))).check();
+    await (await button('Add group')).click();
+    expect(page.textContent).toContain('Tick two garments at least');
+    await (await loader.getHarness(MatCheckboxHarness.with({ label: 'Navy knit polo' }))).check();
+    await (await button('Add group')).click();
+    expect(page.textContent).toContain('The group “The blues” has these garments already.');
+    await name.setValue('the Blues');
+    await (await loader.getHarness(MatCheckboxHarness.with({ label: 'Green checked flannel shirt' }))).check();
+    await (await button('Add group')).click();
+    const field = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Group name' }));
+    expect(await field.getTextErrors()).toEqual(['Another group has that name.']);
+    expect(page.querySelectorAll('[data-testid="group-row"]').length).toBe(1);
+  });
+
+  it('assigns the group to a kind of piece by the table and to a block by its menu, and sends it in the preview and the saved body', async () => {
+    await makeTheBlues();
+    const select = await loader.getHarness(MatSelectHarness.with({ selector: '[aria-label="Fabric for Block A (Plain square): square"]' }));
+    await select.open();
+    await select.clickOptions({ text: 'The blues' });
+    // Keyboard users: a block tile is a button opening a menu of the fabrics.
+    const menu = await loader.getHarness(MatMenuHarness.with({ selector: '[data-testid="position-tile"][data-position="1"]' }));
+    await menu.open();
+    await menu.clickItem({ text: /The blues/ });
+    await fixture.whenStable();
+
+    const sent = await previews();
+    expect(sent.length).toBeGreaterThan(0);
+    const last = sent[sent.length - 1]!;
+    expect(last.assignments).toContain({ target: { kind: 'piece', key: 'block:A:square' }, fabric: blues });
+    expect(last.assignments).toContain({ target: { kind: 'position', index: 1 }, fabric: blues });
+
+    // The drawing fills the group's places with stripes of its garments' colours (blue and navy).
+    const tile = page.querySelector<HTMLElement>('[data-testid="position-tile"][data-position="1"]')!;
+    expect(tile.getAttribute('data-fabric')).toBe('group:8,9');
+    expect(tile.getAttribute('aria-label')).toBe('Block 2 (B): The blues');
+    const drawing = page.querySelector('[data-testid="quilt-drawing"]')!;
+    const filled = [...drawing.querySelectorAll('polygon[data-fill="group:8,9"]')];
+    expect(filled.length).toBeGreaterThan(1);
+    expect(filled.every((p) => p.getAttribute('fill') === 'url(#ks-group-8-9)')).toBeTrue();
+    const stripes = [...drawing.querySelectorAll('pattern#ks-group-8-9 rect')].map((r) => r.getAttribute('fill'));
+    expect(stripes).toEqual(['#9db7d5', '#26355d']);
+    expect(page.querySelector('[data-testid="group-row"]')!.textContent).toContain('given to 2 places');
+
+    await (await button('Save as new version')).click();
+    const save = httpMock.expectOne({ method: 'POST', url: '/api/commissions/5/design' });
+    const saved = (save.request.body as { body: DesignBody }).body;
+    expect(saved.assignments).toContain({ target: { kind: 'piece', key: 'block:A:square' }, fabric: blues });
+    expect(saved.assignments).toContain({ target: { kind: 'position', index: 1 }, fabric: blues });
+    save.flush(version(2, saved));
+    await fixture.whenStable();
+    httpMock.expectOne('/api/commissions/5/design').flush(designScreen(version(2, saved), [version(1)], threeShirts()));
+    await fixture.whenStable();
+    // Read back from the stored design, the group is still there.
+    expect(page.querySelector('[data-testid="group-row"]')!.textContent).toContain('The blues');
+  });
+
+  it('renames a group and changes its garments everywhere it is given, and removing it gives its places back to the planner', async () => {
+    await makeTheBlues();
+    const menu = await loader.getHarness(MatMenuHarness.with({ selector: '[data-testid="position-tile"][data-position="0"]' }));
+    await menu.open();
+    await menu.clickItem({ text: /The blues/ });
+    await fixture.whenStable();
+
+    await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Change the group The blues"]' }))).click();
+    await (await (await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Group name' }))).getControl(MatInputHarness))!.setValue('Cool colours');
+    await (await loader.getHarness(MatCheckboxHarness.with({ label: 'Green checked flannel shirt' }))).check();
+    await (await button('Save group')).click();
+    await fixture.whenStable();
+    expect(page.querySelectorAll('[data-testid="group-row"]').length).toBe(1);
+    expect(page.querySelector('[data-testid="group-row"]')!.textContent).toContain('Cool colours');
+    let sent = await previews();
+    expect(sent[sent.length - 1]!.assignments).toEqual([{ target: { kind: 'position', index: 0 }, fabric: { kind: 'group', name: 'Cool colours', garmentIds: [8, 9, 10] } }]);
+
+    await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Remove the group Cool colours"]' }))).click();
+    await fixture.whenStable();
+    expect(page.querySelectorAll('[data-testid="group-row"]').length).toBe(0);
+    expect([...page.querySelectorAll('[data-testid="fabric-chip"]')].map((c) => c.textContent).join(' ')).not.toContain('Cool colours');
+    sent = await previews();
+    expect(sent[sent.length - 1]!.assignments).toEqual([]);
   });
 });

@@ -1,4 +1,4 @@
-import type { DesignBody, DesignDerivation, DesignPlanSummary, FabricRef } from '@keepstitch/shared';
+import { fabricColour, fabricKey, type Assignment, type DesignBody, type DesignDerivation, type DesignPlanSummary, type FabricRef } from '@keepstitch/shared';
 import * as z from 'zod/mini';
 
 const object = <T>() => z.custom<T>((v) => typeof v === 'object' && v !== null);
@@ -93,6 +93,44 @@ export const careCardSchema = z.object({
   deferNote: z.string(),
 });
 export type CareCard = z.infer<typeof careCardSchema>;
+
+/** A named group of the commission's garments; the planner picks among them. */
+export type GarmentGroup = Extract<FabricRef, { kind: 'group' }>;
+
+/** The groups the assignments name, once each, in the order first used. */
+export function groupsOf(assignments: readonly Assignment[]): GarmentGroup[] {
+  const seen = new Map<string, GarmentGroup>();
+  for (const a of assignments) if (a.fabric.kind === 'group' && !seen.has(fabricKey(a.fabric))) seen.set(fabricKey(a.fabric), a.fabric);
+  return [...seen.values()];
+}
+
+/**
+ * A group as a fabric of the legend: the server's colour once it has seen the
+ * group, before that the colour it gives (that of the group's first garment).
+ */
+export function groupFabric(group: GarmentGroup, garments: readonly GarmentSource[], legend: readonly Fabric[]): Fabric {
+  const key = fabricKey(group);
+  const known = legend.find((f) => f.key === key && f.kind === 'group');
+  const first = garments.find((g) => g.id === group.garmentIds[0]);
+  const n = group.garmentIds.length;
+  return { key, kind: 'group', id: null, name: group.name, colour: null, hex: known?.hex ?? fabricColour(`${first?.colour ?? ''} ${first?.description ?? group.name}`), detail: `any of ${n} garment${n === 1 ? '' : 's'}` };
+}
+
+/** The colours of a group's garments, from its key ("group:8,9") and the drawing colours by fabric key. */
+export function groupColours(key: string, colours: Readonly<Record<string, string | undefined>>): string[] {
+  return key
+    .replace(/^group:/, '')
+    .split(',')
+    .filter(Boolean)
+    .map((id) => colours[`garment:${id}`] ?? '#b9a98a');
+}
+
+/** A CSS background for a swatch: one colour, or diagonal stripes of a group's garments. */
+export function swatchBackground(colours: readonly string[]): string {
+  if (colours.length <= 1) return colours[0] ?? '#b9a98a';
+  const stops = colours.map((c, i) => `${c} ${i * 6}px ${(i + 1) * 6}px`).join(', ');
+  return `repeating-linear-gradient(45deg, ${stops})`;
+}
 
 /** Words for a fabric reference, from the legend. */
 export function fabricName(ref: FabricRef | null, fabrics: readonly { key: string; name: string }[]): string {

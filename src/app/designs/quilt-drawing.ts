@@ -1,7 +1,9 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { DesignBody, DesignDerivation, designDrawing } from '@keepstitch/shared';
 
-/** The quilt top drawn to scale as SVG, each shape in the colour of its fabric. */
+import { groupColours } from './design';
+
+/** The quilt top drawn to scale as SVG, each shape in the colour of its fabric; a group of garments in stripes of theirs. */
 @Component({
   selector: 'ks-quilt-drawing',
   template: `
@@ -18,6 +20,13 @@ import { DesignBody, DesignDerivation, designDrawing } from '@keepstitch/shared'
             <rect width="40" height="40" fill="#f1efe8" />
             <rect width="14" height="40" fill="#d8d3c4" />
           </pattern>
+          @for (g of groupPatterns(); track g.id) {
+            <pattern [attr.id]="g.id" [attr.width]="g.stripes.length * 30" height="30" patternUnits="userSpaceOnUse" patternTransform="rotate(45)" [attr.data-group]="g.key">
+              @for (c of g.stripes; track $index) {
+                <rect [attr.x]="$index * 30" width="30" height="30" [attr.fill]="c" />
+              }
+            </pattern>
+          }
         </defs>
         @for (s of d.shapes; track $index) {
           <polygon
@@ -56,7 +65,14 @@ export class QuiltDrawing {
   protected readonly stroke = computed(() => Math.max(1, this.drawing().width / 600));
   protected readonly label = computed(() => `Drawing of the quilt top, ${this.derived().positions.length} blocks`);
 
+  /** One stripe pattern for each group of garments the drawing fills with. */
+  protected readonly groupPatterns = computed(() => {
+    const keys = new Set(this.drawing().shapes.map((s) => s.fill).filter((f) => f.startsWith('group:')));
+    return [...keys].map((key) => ({ key, id: `ks-${key.replace(/[^0-9a-z]+/g, '-')}`, stripes: groupColours(key, this.colours()) }));
+  });
+
   protected colourOf(key: string): string {
+    if (key.startsWith('group:')) return `url(#ks-${key.replace(/[^0-9a-z]+/g, '-')})`;
     return this.colours()[key] ?? 'url(#ks-any-fabric)';
   }
 }
