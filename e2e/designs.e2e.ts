@@ -92,6 +92,69 @@ describe('design, cut plan and printouts, end to end', () => {
     await page.context().close();
   });
 
+  it('lets the owner make a group of garments and give it to blocks, then open the sewing order and templates to print', async () => {
+    const { page, problems } = await openPage(browser);
+    await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    const list = await (await page.request.get('/api/commissions?q=Work-shirt')).json();
+    const commissionId = Number(list.items[0].id);
+    await page.goto(`/designs/${commissionId}`);
+    const version = page.getByTestId('design-version');
+    await version.waitFor();
+    const before = Number(/Version (\d+)/.exec(await version.innerText())![1]);
+
+    // "The blues": two of the shirts, ticked by name.
+    await page.getByRole('button', { name: 'New group' }).click();
+    await page.getByLabel('Group name').fill('The blues');
+    await page.getByRole('checkbox', { name: 'Blue oxford work shirt' }).check();
+    await page.getByRole('checkbox', { name: 'Navy knit polo' }).check();
+    await page.getByRole('button', { name: 'Add group' }).click();
+    await page.getByTestId('group-row').filter({ hasText: 'The blues' }).filter({ hasText: 'not given to anything yet' }).waitFor();
+
+    // Given to block 2 by dragging the group's chip, and to block 3 from the block's menu with the keyboard alone.
+    await drag(page, '[data-testid="fabric-chip"]:has-text("The blues")', '[data-testid="position-tile"][data-position="1"]');
+    await page.waitForFunction(() => document.querySelector('svg[data-testid="quilt-drawing"] polygon[data-position="1"][data-fill^="group:"]') !== null);
+    await page.locator('[data-testid="position-tile"][data-position="2"]').focus();
+    await page.keyboard.press('Enter');
+    await page.getByRole('menuitem', { name: 'The blues' }).press('Enter');
+    await page.locator('[data-testid="position-tile"][data-position="2"][data-fabric^="group:"]').waitFor();
+    await page.getByTestId('group-row').filter({ hasText: 'given to 2 places' }).waitFor();
+    // The drawing paints the group's blocks in stripes of its two garments' colours.
+    const groupKey = (await page.locator('[data-testid="position-tile"][data-position="1"]').getAttribute('data-fabric'))!;
+    const fill = await page.locator(`svg[data-testid="quilt-drawing"] polygon[data-fill="${groupKey}"]`).first().getAttribute('fill');
+    expect(fill).toMatch(/^url\(#ks-group-/);
+    expect(await page.locator(`svg[data-testid="quilt-drawing"] pattern[data-group="${groupKey}"] rect`).count()).toBe(2);
+    await screenshot(page, 'design-group');
+
+    // Saved with the design, and there again when the page is opened afresh.
+    await page.getByLabel('Note for this version').fill('The blues in blocks 2 and 3');
+    await page.getByRole('button', { name: 'Save as new version' }).click();
+    await version.filter({ hasText: `Version ${before + 1}` }).waitFor();
+    await page.reload();
+    await page.getByTestId('group-row').filter({ hasText: 'The blues' }).filter({ hasText: 'Blue oxford work shirt, Navy knit polo' }).waitFor();
+    expect(await page.locator('svg[data-testid="quilt-drawing"] polygon[data-position="2"][data-fill^="group:"]').count()).toBeGreaterThan(0);
+
+    // The sewing order and the full-size templates, as they print.
+    await page.getByRole('link', { name: 'Sewing order to print' }).click();
+    await page.waitForURL(/\/designs\/\d+\/sewing-order$/);
+    await page.getByRole('heading', { level: 1, name: 'Sewing order' }).waitFor();
+    await page.getByTestId('sewing-order-meta').filter({ hasText: `design version ${before + 1}` }).waitFor();
+    await page.getByTestId('sewing-section').first().waitFor();
+    await page.goto(`/designs/${commissionId}/templates`);
+    await page.getByRole('heading', { level: 1, name: 'Full-size templates' }).waitFor();
+    const inch = page.getByTestId('check-inch');
+    await inch.waitFor();
+    // 1 in is 96 CSS pixels.
+    const box = (await inch.boundingBox())!;
+    expect(Math.abs(box.width - 96)).toBeLessThan(0.5);
+    expect(Math.abs(box.height - 96)).toBeLessThan(0.5);
+    await page.getByTestId('template').first().waitFor();
+    await page.emulateMedia({ media: 'print' });
+    await screenshot(page, 'templates-print');
+    await page.emulateMedia({ media: 'screen' });
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+
   it('shows the client the shared drawing and takes their answer', async () => {
     const { page, problems } = await openPage(browser);
     await signIn(page, DEMO_ACCOUNTS.clientA.email, DEMO_ACCOUNTS.clientA.password);
