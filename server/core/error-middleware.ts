@@ -33,6 +33,10 @@ function toAppError(err: unknown): AppError {
     return new AppError(503, 'unavailable', 'The workroom database is not answering just now. Please try again in a moment; if you were saving, check whether the change was kept before saving again.');
   }
   const e = err as { code?: string; type?: string; status?: number; name?: string; field?: string };
+  // The caller went away mid-request (a closed tab, a dropped upload): nothing to answer, nothing to log.
+  if ((err as Error).message === 'aborted' || e.code === 'ECONNABORTED' || e.code === 'ECONNRESET') {
+    return new AppError(400, 'aborted', 'The request was cut off before it arrived whole.');
+  }
   if (e.name === 'MulterError') {
     const messages: Record<string, [number, string]> = {
       LIMIT_FILE_SIZE: [413, 'Each photo can be at most 15 MB. Make it smaller and try again.'],
