@@ -1,5 +1,5 @@
 import { Model } from 'objection';
-import type { ColourRun, Construction, CustodyKind, Fibre, Grain, KeptFeature, Prewash, Print, ReturnMethod } from '@keepstitch/shared';
+import type { ColourRun, Construction, CustodyKind, Fibre, Grain, KeptFeature, PanelFeature, Prewash, Print, ReturnMethod } from '@keepstitch/shared';
 
 export class GarmentModel extends Model {
   static override tableName = 'garments';
@@ -53,5 +53,11 @@ export class PanelModel extends Model {
   widthMm!: string;
   heightMm!: string;
   grain!: Grain;
+  /** Kept features measured on the panel, in exact millimetres. */
+  features!: PanelFeature[];
   createdAt!: Date;
+
+  static override get jsonAttributes() {
+    return ['features'];
+  }
 }

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { COLOUR_RUN, CONSTRUCTION, FEATURE, FIBRE, GRAIN, PREWASH, PRINT } from '@keepstitch/shared';
+import Decimal from 'decimal.js';
+import { COLOUR_RUN, CONSTRUCTION, FEATURE, FIBRE, GRAIN, Length, PREWASH, PRINT, formatLength, type PanelFeature } from '@keepstitch/shared';
 import { optionalText } from '../core/validate';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 
@@ -68,30 +69,93 @@ export const custodyEventSchema = z
     { message: 'Choose what happened: received, washed, stored, moved, cut, returned, withdrawn or correction.' },
   );
 
+/** A kept feature as typed: its name, the top-left corner from the panel's top-left, and its size. */
+const panelFeatureSchema = z
+  .object({
+    name: z.string({ message: 'Name the kept feature (for example "breast pocket").' }).trim().min(1, 'Name the kept feature (for example "breast pocket").').max(60, 'A feature name can be at most 60 characters.'),
+    x: lengthField('From the left', { allowZero: true }),
+    y: lengthField('From the top', { allowZero: true }),
+    width: lengthField('Width'),
+    height: lengthField('Height'),
+  })
+  .strict();
+
 const panelFields = {
   name: z.string({ message: 'Name the panel (for example "back").' }).trim().min(1, 'Name the panel (for example "back").').max(60),
   width: lengthField('Width'),
   height: lengthField('Height'),
   unit: lengthUnitSchema.default('in'),
   grain: oneOf(GRAIN.values, 'Choose which way the grain runs.').default('vertical'),
+  features: z.array(panelFeatureSchema, { message: 'Kept features must be a list.' }).max(20, 'At most 20 kept features on a panel.'),
 };
 
-export const panelSchema = z
-  .object(panelFields)
-  .strict()
-  .transform(({ width, height, unit, ...rest }, ctx) => ({
-    ...rest,
-    widthMm: toMillimetres(width, unit, ctx, 'width'),
-    heightMm: toMillimetres(height, unit, ctx, 'height'),
+type TypedFeature = z.infer<typeof panelFeatureSchema>;
+
+function featuresToMillimetres(features: TypedFeature[], unit: z.infer<typeof lengthUnitSchema>, ctx: z.RefinementCtx): PanelFeature[] {
+  return features.map((f, i) => ({
+    name: f.name,
+    xMm: toMillimetres(f.x, unit, ctx, ['features', i, 'x'], { allowZero: true }),
+    yMm: toMillimetres(f.y, unit, ctx, ['features', i, 'y'], { allowZero: true }),
+    widthMm: toMillimetres(f.width, unit, ctx, ['features', i, 'width']),
+    heightMm: toMillimetres(f.height, unit, ctx, ['features', i, 'height']),
   }));
+}
+
+const both = (mm: Decimal.Value) => {
+  const length = Length.millimetres(new Decimal(mm));
+  return `${formatLength(length, 'imperial')} (${formatLength(length, 'metric')})`;
+};
+
+/**
+ * Where kept features do not lie inside a panel of this size: a message for
+ * the field to correct, keyed `features.<i>.width` or `features.<i>.height`.
+ */
+export function featuresOutside(panel: { widthMm: string; heightMm: string }, features: readonly PanelFeature[]): Record<string, string> {
+  const fields: Record<string, string> = {};
+  features.forEach((f, i) => {
+    const right = new Decimal(f.xMm).plus(f.widthMm);
+    const bottom = new Decimal(f.yMm).plus(f.heightMm);
+    if (right.gt(panel.widthMm)) {
+      fields[`features.${i}.width`] = `The ${f.name} runs past the panel's right edge: it ends ${both(right)} from the left, and the panel is ${both(panel.widthMm)} wide.`;
+    }
+    if (bottom.gt(panel.heightMm)) {
+      fields[`features.${i}.height`] = `The ${f.name} runs past the panel's bottom edge: it ends ${both(bottom)} from the top, and the panel is ${both(panel.heightMm)} high.`;
+    }
+  });
+  return fields;
+}
+
+/** Adds a field issue for each kept feature outside the panel (only when every length was read). */
+function checkFeaturesInside(panel: { widthMm: string; heightMm: string; features: PanelFeature[] }, ctx: z.RefinementCtx): void {
+  const read = [panel.widthMm, panel.heightMm, ...panel.features.flatMap((f) => [f.xMm, f.yMm, f.widthMm, f.heightMm])];
+  if (!read.every((v) => typeof v === 'string')) return;
+  for (const [path, message] of Object.entries(featuresOutside(panel, panel.features))) {
+    ctx.addIssue({ code: 'custom', path: path.split('.').map((k) => (/^\d+$/.test(k) ? Number(k) : k)), message });
+  }
+}
+
+export const panelSchema = z
+  .object({ ...panelFields, features: panelFields.features.default([]) })
+  .strict()
+  .transform(({ width, height, unit, features, ...rest }, ctx) => {
+    const panel = {
+      ...rest,
+      widthMm: toMillimetres(width, unit, ctx, 'width'),
+      heightMm: toMillimetres(height, unit, ctx, 'height'),
+      features: featuresToMillimetres(features, unit, ctx),
+    };
+    checkFeaturesInside(panel, ctx);
+    return panel;
+  });
 
 export const updatePanelSchema = z
   .object(panelFields)
   .partial()
   .extend({ unit: lengthUnitSchema.default('in') })
   .strict()
-  .transform(({ width, height, unit, ...rest }, ctx) => ({
+  .transform(({ width, height, unit, features, ...rest }, ctx) => ({
     ...rest,
     ...(width !== undefined ? { widthMm: toMillimetres(width, unit, ctx, 'width') } : {}),
     ...(height !== undefined ? { heightMm: toMillimetres(height, unit, ctx, 'height') } : {}),
+    ...(features !== undefined ? { features: featuresToMillimetres(features, unit, ctx) } : {}),
   }));

@@ -8,7 +8,7 @@ import { findVisibleCommission, garmentView } from '../commissions/commissions-s
 import { PhotoModel } from '../photos/photo-model';
 import { custodyStates } from './custody';
 import { CustodyEventModel, GarmentModel, PanelModel } from './garment-model';
-import { clientGarmentSchema, createGarmentSchema, type custodyEventSchema, type panelSchema, type updateGarmentSchema, type updatePanelSchema } from './garments-schemas';
+import { clientGarmentSchema, createGarmentSchema, featuresOutside, type custodyEventSchema, type panelSchema, type updateGarmentSchema, type updatePanelSchema } from './garments-schemas';
 
 const NOT_FOUND = 'That garment';
 
@@ -104,8 +104,18 @@ async function findPanel(user: Express.User, id: number) {
 }
 
 export async function updatePanel(user: Express.User, id: number, input: z.output<typeof updatePanelSchema>) {
-  await findPanel(user, id);
+  const panel = await findPanel(user, id);
   if (Object.keys(input).length === 0) throw new AppError(400, 'validation', 'Send at least one field to change.');
+  // The kept features must still lie inside the panel as it will be.
+  const size = { widthMm: input.widthMm ?? panel.widthMm, heightMm: input.heightMm ?? panel.heightMm };
+  const outside = featuresOutside(size, input.features ?? panel.features ?? []);
+  if (Object.keys(outside).length > 0) {
+    // A resize alone is reported on the size that no longer holds the features.
+    const fields = input.features
+      ? outside
+      : Object.fromEntries(Object.entries(outside).map(([key, message]) => [key.endsWith('.width') ? 'width' : 'height', message]));
+    throw new AppError(400, 'validation', 'A kept feature would lie outside the panel.', fields);
+  }
   return PanelModel.query().patchAndFetchById(id, input as Partial<PanelModel>);
 }
 

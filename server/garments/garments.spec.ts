@@ -113,6 +113,74 @@ describe('garments, custody and panels', () => {
     expect((await clientA.get(`/api/garments/${g.id}`)).body.panels).toBeUndefined();
   });
 
+  it('keeps a panel\'s kept features exactly, typed as lengths in the panel\'s unit', async () => {
+    const g = (await owner.post(`/api/commissions/${commissionA}/garments`, { description: 'Green flannel shirt', fibre: 'flannel' })).body;
+    const front = await workroom.post(`/api/garments/${g.id}/panels`, {
+      name: 'left front',
+      width: '10',
+      height: '23 1/2',
+      unit: 'in',
+      features: [{ name: 'breast pocket', x: '2', y: '4', width: '5', height: '5½' }],
+    });
+    expect(front.status).toBe(201);
+    // 2 in, 4 in, 5 in and 5 1/2 in at 25.4 mm to the inch (NIST SP 811 appendix B): 50.8, 101.6, 127, 139.7.
+    const pocket = { name: 'breast pocket', xMm: '50.8', yMm: '101.6', widthMm: '127', heightMm: '139.7' };
+    expect(front.body.features).toEqual([pocket]);
+    const detail = await owner.get(`/api/garments/${g.id}`);
+    expect(detail.body.panels.find((p: { id: number }) => p.id === front.body.id).features).toEqual([pocket]);
+    const commission = await owner.get(`/api/commissions/${commissionA}`);
+    const listed = commission.body.garments.find((x: { id: number }) => x.id === g.id);
+    expect(listed.panels[0].features).toEqual([pocket]);
+
+    // Metric, with a feature on the panel's edge (x 0) and a second one added by PATCH.
+    const label = { name: 'maker\'s label', x: '0', y: '1.5 cm', width: '45mm', height: '2' };
+    const patched = await workroom.patch(`/api/panels/${front.body.id}`, { features: [{ name: 'breast pocket', x: '5.08', y: '10.16', width: '12.7', height: '13.97' }, label], unit: 'cm' });
+    expect(patched.status).toBe(200);
+    expect(patched.body.features).toEqual([pocket, { name: 'maker\'s label', xMm: '0', yMm: '15', widthMm: '45', heightMm: '20' }]);
+    expect(patched.body.widthMm).toBe('254');
+
+    // A panel without features lists none.
+    const back = await workroom.post(`/api/garments/${g.id}/panels`, { name: 'back', width: '21', height: '26 1/2' });
+    expect(back.body.features).toEqual([]);
+  });
+
+  it('refuses a kept feature outside its panel with a message on the field to correct', async () => {
+    const g = (await owner.post(`/api/commissions/${commissionA}/garments`, { description: 'Corduroy jacket', fibre: 'cotton' })).body;
+    const wide = await workroom.post(`/api/garments/${g.id}/panels`, {
+      name: 'left front',
+      width: '10',
+      height: '20',
+      features: [{ name: 'breast pocket', x: '6', y: '4', width: '5', height: '5' }],
+    });
+    expect(wide.status).toBe(400);
+    expect(Object.keys(wide.body.error.fields)).toEqual(['features.0.width']);
+    expect(wide.body.error.fields['features.0.width']).toBe(
+      "The breast pocket runs past the panel's right edge: it ends 11 in (27.9 cm) from the left, and the panel is 10 in (25.4 cm) wide.",
+    );
+    const bad = await workroom.post(`/api/garments/${g.id}/panels`, {
+      name: 'left front',
+      width: '10',
+      height: '20',
+      features: [{ name: '', x: '-1', y: 'abc', width: '0', height: '3', colour: 'red' }],
+    });
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['features.0.colour', 'features.0.name', 'features.0.width', 'features.0.x', 'features.0.y']);
+    expect(await t.knex('panels').where('garmentId', g.id)).toHaveLength(0);
+
+    const panel = (await workroom.post(`/api/garments/${g.id}/panels`, { name: 'left front', width: '10', height: '20', features: [{ name: 'pocket', x: '2', y: '4', width: '5', height: '5' }] })).body;
+    const tall = await workroom.patch(`/api/panels/${panel.id}`, { features: [{ name: 'pocket', x: '2', y: '16', width: '5', height: '5' }] });
+    expect(tall.status).toBe(400);
+    expect(tall.body.error.fields['features.0.height']).toMatch(/runs past the panel's bottom edge: it ends 21 in .* from the top, and the panel is 20 in .* high\./);
+    // Making the panel too narrow for the feature it holds is refused on the width.
+    const narrow = await workroom.patch(`/api/panels/${panel.id}`, { width: '6' });
+    expect(narrow.status).toBe(400);
+    expect(narrow.body.error.fields.width).toMatch(/^The pocket runs past the panel's right edge/);
+    const stored = await t.knex('panels').where('id', panel.id).first();
+    expect(stored.widthMm).toBe('254');
+    expect(stored.features).toEqual([{ name: 'pocket', xMm: '50.8', yMm: '101.6', widthMm: '127', heightMm: '127' }]);
+    // Removing every feature is a change like any other.
+    expect((await workroom.patch(`/api/panels/${panel.id}`, { features: [] })).body.features).toEqual([]);
+  });
+
   it('lists garments with their state on the commission page and counts them for the stage rules', async () => {
     const detail = await owner.get(`/api/commissions/${commissionA}`);
     expect(detail.body.garments.length).toBeGreaterThanOrEqual(4);

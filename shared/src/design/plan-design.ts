@@ -16,6 +16,18 @@ import { DEFAULT_USABLE_WIDTH } from '../fabric-width';
 import type { DesignBody, FabricRef } from './design-body';
 import type { DerivedPiece, DesignDerivation } from './derive-design';
 
+/**
+ * A kept feature measured on a panel (a pocket, a label, embroidery): its top-left
+ * corner from the panel's top-left corner and its size, exact millimetres.
+ */
+export interface PanelFeature {
+  name: string;
+  xMm: string;
+  yMm: string;
+  widthMm: string;
+  heightMm: string;
+}
+
 export interface SourceGarment {
   id: number;
   description: string;
@@ -23,7 +35,7 @@ export interface SourceGarment {
   fibre: string;
   construction: string;
   print: string;
-  panels: { id: number; name: string; widthMm: string; heightMm: string; grain: 'vertical' | 'horizontal' }[];
+  panels: { id: number; name: string; widthMm: string; heightMm: string; grain: 'vertical' | 'horizontal'; features?: PanelFeature[] }[];
 }
 
 export interface SourceStock {
