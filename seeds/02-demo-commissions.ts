@@ -87,7 +87,7 @@ export async function seed(knex: Knex): Promise<void> {
 
   const shirts = [
     { description: 'Blue oxford work shirt', whose: 'Edmund', story: 'The shirt he wore every Monday to the depot.', fibre: 'cotton', colour: 'Pale blue', print: 'plain', colours: ['#9db7d5', '#b8cde3'], kind: 'stripe' as const, panels: [['back', 22, 27], ['left front', 10.5, 24], ['right front', 10.5, 24], ['left sleeve', 9, 22]] },
-    { description: 'Green checked flannel shirt', whose: 'Edmund', story: 'Sunday walks on the ridge.', fibre: 'flannel', colour: 'Green and cream check', print: 'non_directional', colours: ['#4f7a52', '#e9e2c9', '#2f4a33'], kind: 'check' as const, features: [{ kind: 'pocket', position: 'left chest' }], panels: [['back', 21, 26.5], ['left front', 10, 23.5]] },
+    { description: 'Green checked flannel shirt', whose: 'Edmund', story: 'Sunday walks on the ridge.', fibre: 'flannel', colour: 'Green and cream check', print: 'non_directional', colours: ['#4f7a52', '#e9e2c9', '#2f4a33'], kind: 'check' as const, features: [{ kind: 'pocket', position: 'left chest' }], panels: [['back', 21, 26.5], ['left front', 10, 23.5, [{ name: 'breast pocket', x: 2, y: 4, width: 5, height: 5.5 }]]] },
     { description: 'Navy knit polo', whose: 'Edmund', story: 'Bowls club summers.', fibre: 'knit_jersey', construction: 'knit', colour: 'Navy', print: 'plain', colours: ['#23335a', '#2c3f6b'], kind: 'stripe' as const, panels: [['back', 19.5, 25]] },
     { description: 'Red and grey striped shirt', whose: 'Edmund', story: 'His wedding-anniversary shirt.', fibre: 'cotton', colour: 'Red and grey stripe', print: 'directional', colours: ['#a33b3b', '#c8c8c8', '#a33b3b', '#ffffff'], kind: 'stripe' as const, panels: [['back', 22.5, 28]] },
   ];
@@ -105,7 +105,14 @@ export async function seed(knex: Knex): Promise<void> {
       { garmentId: g.id, kind: 'washed', userId: owner.id, at: new Date(Date.now() - 19 * 86_400_000) },
       { garmentId: g.id, kind: 'stored', place: `Box A${i + 1}`, userId: owner.id, at: new Date(Date.now() - 19 * 86_400_000 + 3_600_000) },
     ]);
-    await knex('panels').insert(s.panels.map(([name, w, h]) => ({ garmentId: g.id, name, widthMm: inches(w as number), heightMm: inches(h as number), grain: 'vertical' })));
+    // A panel may list its kept features in inches from its top-left corner.
+    const panels = s.panels as [string, number, number, { name: string; x: number; y: number; width: number; height: number }[]?][];
+    await knex('panels').insert(
+      panels.map(([name, w, h, features = []]) => ({
+        garmentId: g.id, name, widthMm: inches(w), heightMm: inches(h), grain: 'vertical',
+        features: JSON.stringify(features.map((f) => ({ name: f.name, xMm: inches(f.x), yMm: inches(f.y), widthMm: inches(f.width), heightMm: inches(f.height) }))),
+      })),
+    );
     const [image] = await storeImages(uploadDir, [{ originalname: `${s.description.toLowerCase().replace(/\W+/g, '-')}.jpg`, buffer: await fabricPicture(s.colours, s.kind) }]);
     await knex('photos').insert({ ...image, commissionId: quilt.id, garmentId: g.id, kind: 'garment', uploadedBy: rosalind.id, caption: s.story });
   }

@@ -20,7 +20,7 @@ export async function seed(knex: Knex): Promise<void> {
   const sources: DesignSources = {
     garments: garments.map((g) => ({
       id: g.id, description: g.description, colour: g.colour, fibre: g.fibre, construction: g.construction, print: g.print,
-      panels: panels.filter((p) => p.garmentId === g.id).map((p) => ({ id: p.id, name: p.name, widthMm: p.widthMm, heightMm: p.heightMm, grain: p.grain })),
+      panels: panels.filter((p) => p.garmentId === g.id).map((p) => ({ id: p.id, name: p.name, widthMm: p.widthMm, heightMm: p.heightMm, grain: p.grain, features: p.features })),
     })),
     stock: stock.map((s) => ({ id: s.id, name: s.name, colour: s.colour, fibre: s.fibre, widthMm: s.widthMm, lengthMm: s.lengthMm, costUnit: s.costUnit })),
   };

@@ -34,7 +34,7 @@ export async function designSources(commissionId: number): Promise<DesignSources
       fibre: g.fibre ?? 'other',
       construction: g.construction,
       print: g.print,
-      panels: panels.filter((p) => p.garmentId === g.id).map((p) => ({ id: p.id, name: p.name, widthMm: p.widthMm, heightMm: p.heightMm, grain: p.grain })),
+      panels: panels.filter((p) => p.garmentId === g.id).map((p) => ({ id: p.id, name: p.name, widthMm: p.widthMm, heightMm: p.heightMm, grain: p.grain, features: p.features ?? [] })),
     })),
     stock: stockRows.map((s) => ({ id: s.id, name: s.name, colour: s.colour, fibre: s.fibre, widthMm: s.widthMm, lengthMm: s.lengthMm, costUnit: s.costUnit })),
   };

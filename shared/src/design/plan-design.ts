@@ -1,19 +1,21 @@
 // Runs the cut planner for a derived design against the commission's garment
-// panels and the studio stock, and turns the plan into what the maker reads:
+// panels and the studio stock (each kept feature measured on a panel held
+// whole, centred in one block piece), and turns the plan into what the maker reads:
 // each garment's yield and use, what is short and what to do about it, and
 // the studio fabric to buy (shop increments, shrinkage) with the wadding size.
 
 import Decimal from 'decimal.js';
 import { Length } from '../measure';
 import { planCuts } from '../cut-plan/cut-plan';
-import type { CutPlan, CutPlanInput, PieceInput, PieceSource } from '../cut-plan/cut-plan';
+import type { CutPlan, CutPlanInput, KeptFeatureInput, PieceInput, PieceSource } from '../cut-plan/cut-plan';
+import { formatLength } from '../format-length';
 import { straightBinding } from '../binding';
 import { backing } from '../backing';
 import { wadding } from '../wadding';
 import { lengthBeforeShrinking } from '../shrinkage';
 import { EIGHTH_YARD, roundUpToIncrement, TEN_CENTIMETRES } from '../shop-increment';
 import { DEFAULT_USABLE_WIDTH } from '../fabric-width';
-import type { DesignBody, FabricRef } from './design-body';
+import type { BlockKind, DesignBody, FabricRef } from './design-body';
 import type { DerivedPiece, DesignDerivation } from './derive-design';
 
 /**
@@ -64,6 +66,10 @@ export interface GarmentUse {
 }
 
 export interface ShortLine {
+  /**
+   * The derived piece's id; for the block piece kept around a feature, that id,
+   * "@" and the feature's id; for a feature no block piece can hold, "@" and its id.
+   */
   pieceId: string;
   label: string;
   count: number;
@@ -117,8 +123,124 @@ function sourceOf(fabric: FabricRef | null): PieceSource {
   }
 }
 
-/** The planner's input for a derived design (every length in millimetres). */
-export function cutPlanInput(body: DesignBody, derivation: DesignDerivation, sources: DesignSources): CutPlanInput {
+/** The planner's id of the i-th kept feature (0-based) of a panel. */
+export const keptFeatureId = (panel: number, index: number) => `${panelId(panel)}-feature-${index + 1}`;
+
+/** Block kinds whose piece shows whole in the finished top, with that piece's role: only these can hold a kept feature. */
+const WHOLE_PIECE_ROLE: Partial<Record<BlockKind, string>> = { square: 'square', rectangles: 'rail' };
+
+interface FeaturePin {
+  /** The derived piece one copy is taken from. */
+  from: DerivedPiece;
+  piece: PieceInput;
+}
+
+interface UnheldFeature {
+  featureId: string;
+  label: string;
+  detail: string;
+}
+
+/** How near a piece's fabric is to the garment: its own (0), a group holding it (1), any garment (2); null when it may not come from it. */
+function nearness(fabric: FabricRef | null, garmentId: number): number | null {
+  if (!fabric) return 2;
+  if (fabric.kind === 'garment') return fabric.garmentId === garmentId ? 0 : null;
+  if (fabric.kind === 'group') return fabric.garmentIds.includes(garmentId) ? 1 : null;
+  return null;
+}
+
+/**
+ * For each kept feature of the panels, one copy of a block piece to cut
+ * centred on it: a whole block piece (a plain square at the block's cut size
+ * first, then a rail) that may come from the feature's garment and holds the
+ * feature inside its seam allowances, nearest fabric first, then the smallest.
+ * A feature no such piece can hold is listed with why.
+ */
+function keptFeaturePins(body: DesignBody, derivation: DesignDerivation, sources: DesignSources): { pins: FeaturePin[]; unheld: UnheldFeature[] } {
+  const kinds = new Map(body.blocks.map((b) => [b.id, b.kind]));
+  const allowance = new Decimal(derivation.allowanceMm).times(2);
+  const system = body.units;
+  const show = (mm: Decimal.Value) => formatLength(Length.millimetres(new Decimal(mm)), system);
+  const whole = derivation.pieces.filter((d) => d.group === 'block' && d.diagonalCuts === 0 && d.blockId !== undefined && WHOLE_PIECE_ROLE[kinds.get(d.blockId)!] === d.role);
+  const left = new Map(whole.map((d) => [d.id, d.count]));
+  const pins: FeaturePin[] = [];
+  const unheld: UnheldFeature[] = [];
+  for (const g of sources.garments) {
+    for (const p of g.panels) {
+      (p.features ?? []).forEach((f, i) => {
+        const featureId = keptFeatureId(p.id, i);
+        const where = `${g.description}, ${p.name}`;
+        const fw = new Decimal(f.widthMm);
+        const fh = new Decimal(f.heightMm);
+        const inside = (d: DerivedPiece) => ({ w: new Decimal(d.widthMm).minus(allowance), h: new Decimal(d.heightMm).minus(allowance) });
+        const holds = (d: DerivedPiece) => {
+          const { w, h } = inside(d);
+          return (fw.lte(w) && fh.lte(h)) || (fw.lte(h) && fh.lte(w));
+        };
+        const mayCome = whole.filter((d) => nearness(d.fabric, g.id) !== null);
+        const fitting = mayCome.filter(holds);
+        const candidates = fitting
+          .filter((d) => left.get(d.id)! > 0)
+          .sort(
+            (a, b) =>
+              nearness(a.fabric, g.id)! - nearness(b.fabric, g.id)! ||
+              Number(a.role !== 'square') - Number(b.role !== 'square') ||
+              new Decimal(a.widthMm).times(a.heightMm).comparedTo(new Decimal(b.widthMm).times(b.heightMm)),
+          );
+        const from = candidates[0];
+        if (!from) {
+          const size = `${show(fw)} x ${show(fh)}`;
+          let detail: string;
+          if (mayCome.length === 0) {
+            detail = `the ${f.name} (${size}) needs a block piece shown whole, and the design has no plain-square or rail block that may be cut from this garment`;
+          } else if (fitting.length === 0) {
+            const largest = [...mayCome].sort((a, b) => new Decimal(b.widthMm).times(b.heightMm).comparedTo(new Decimal(a.widthMm).times(a.heightMm)))[0]!;
+            const { w, h } = inside(largest);
+            detail = `the ${f.name} is ${size}, larger than every block piece that may come from this garment: the largest, ${largest.label}, is ${show(w)} x ${show(h)} inside its seam allowances`;
+          } else {
+            detail = `every block piece that could hold the ${f.name} is already kept around another feature`;
+          }
+          unheld.push({ featureId, label: `Kept feature: the ${f.name} (${where})`, detail });
+          return;
+        }
+        left.set(from.id, left.get(from.id)! - 1);
+        pins.push({
+          from,
+          piece: {
+            id: `${from.id}@${featureId}`,
+            width: Number(from.widthMm),
+            height: Number(from.heightMm),
+            count: 1,
+            source: sourceOf(from.fabric),
+            keptFeature: { featureId, placement: 'centred' },
+            label: `${from.label}, kept around the ${f.name} (${where})`,
+          },
+        });
+      });
+    }
+  }
+  return { pins, unheld };
+}
+
+/** A kept feature in the planner's numbers (mm), held inside its panel against float rounding. */
+function featureInput(panel: SourceGarment['panels'][number], index: number): KeptFeatureInput {
+  const f = panel.features![index]!;
+  const x = Number(f.xMm);
+  const y = Number(f.yMm);
+  // The server keeps x + width within the panel exactly; a float sum may land a hair over.
+  const within = (start: number, size: number, limit: number) => (start + size > limit ? limit - start : size);
+  return {
+    id: keptFeatureId(panel.id, index),
+    x,
+    y,
+    width: within(x, Number(f.widthMm), Number(panel.widthMm)),
+    height: within(y, Number(f.heightMm), Number(panel.heightMm)),
+    label: f.name,
+  };
+}
+
+function planInput(body: DesignBody, derivation: DesignDerivation, sources: DesignSources): { input: CutPlanInput; pins: FeaturePin[]; unheld: UnheldFeature[] } {
+  const { pins, unheld } = keptFeaturePins(body, derivation, sources);
   const panels = sources.garments.flatMap((g) =>
     g.panels.map((p) => ({
       garmentId: String(g.id),
@@ -127,6 +249,7 @@ export function cutPlanInput(body: DesignBody, derivation: DesignDerivation, sou
       height: Number(p.heightMm),
       grain: p.grain === 'horizontal' ? ('along-width' as const) : ('along-height' as const),
       directional: g.print === 'directional',
+      features: (p.features ?? []).map((_, i) => featureInput(p, i)),
       label: `${g.description}, ${p.name}`,
     })),
   );
@@ -134,23 +257,75 @@ export function cutPlanInput(body: DesignBody, derivation: DesignDerivation, sou
   const studioFabrics = sources.stock
     .filter((s) => usedStock.has(s.id))
     .map((s) => ({ fabricId: stockFabricId(s.id), width: Number(s.widthMm), length: 'unlimited' as const, label: s.name }));
+  const pinnedFrom = (id: string) => pins.filter((pin) => pin.from.id === id).length;
   const pieces: PieceInput[] = derivation.pieces.map((p: DerivedPiece) => ({
     id: p.id,
     width: Number(p.widthMm),
     height: Number(p.heightMm),
-    count: p.count,
+    count: p.count - pinnedFrom(p.id),
     source: sourceOf(p.fabric),
     label: p.label,
   }));
+  pieces.push(...pins.map((pin) => pin.piece));
   const withPanels = sources.garments.filter((g) => g.panels.length > 0);
   const minimum = body.rules.minimumPerGarment;
   return {
-    unit: 'mm',
-    panels,
-    studioFabrics,
-    pieces,
-    rules: minimum > 0 ? { garmentMinimums: withPanels.map((g) => ({ garmentId: String(g.id), count: minimum })) } : {},
+    input: {
+      unit: 'mm',
+      panels,
+      studioFabrics,
+      pieces,
+      rules: minimum > 0 ? { garmentMinimums: withPanels.map((g) => ({ garmentId: String(g.id), count: minimum })) } : {},
+    },
+    pins,
+    unheld,
   };
+}
+
+/**
+ * The planner's input for a derived design (every length in millimetres).
+ * Each kept feature takes one copy of a block piece, pinned centred on it
+ * (id: the piece's id, "@", the feature's id).
+ */
+export function cutPlanInput(body: DesignBody, derivation: DesignDerivation, sources: DesignSources): CutPlanInput {
+  return planInput(body, derivation, sources).input;
+}
+
+/**
+ * The plan in the design's own pieces: a copy cut around a kept feature is
+ * the last copy of the piece it was taken from (its placement keeps the featureId).
+ */
+function inDesignPieces(plan: CutPlan, pins: FeaturePin[]): CutPlan {
+  if (pins.length === 0) return plan;
+  const taken = new Map<string, number>();
+  for (const pin of pins) taken.set(pin.from.id, (taken.get(pin.from.id) ?? 0) + 1);
+  const seen = new Map<string, number>();
+  const as = new Map<string, { id: string; copy: number }>();
+  for (const pin of pins) {
+    const n = (seen.get(pin.from.id) ?? 0) + 1;
+    seen.set(pin.from.id, n);
+    as.set(pin.piece.id, { id: pin.from.id, copy: pin.from.count - taken.get(pin.from.id)! + n });
+  }
+  const region = <T extends { pieceId?: string; copy?: number }>(r: T): T => {
+    const to = r.pieceId !== undefined ? as.get(r.pieceId) : undefined;
+    return to ? { ...r, pieceId: to.id, copy: to.copy } : r;
+  };
+  return {
+    ...plan,
+    placements: plan.placements.map(region),
+    panels: plan.panels.map((pp) => ({ ...pp, cuts: pp.cuts.map((c) => ({ ...c, cutsOff: region(c.cutsOff), remaining: region(c.remaining) })) })),
+    shortfall: { ...plan.shortfall, pieces: plan.shortfall.pieces.map((s) => ({ ...s, pieceId: as.get(s.pieceId)?.id ?? s.pieceId })) },
+  };
+}
+
+/** What the maker can do about a block piece that could not be cut around its kept feature. */
+function keptRemedies(reason: string): string[] {
+  return [
+    reason === 'no-piece-large-enough'
+      ? 'Choose a larger block size, or a plain-square block cut from this garment, so one block holds the feature whole.'
+      : 'Choose a smaller block size, so a block centred on the feature fits inside its panel.',
+    'Or take the kept feature off the panel, and the block is cut like any other.',
+  ];
 }
 
 function remediesFor(reason: string, piece: DerivedPiece | undefined, count: number): string[] {
@@ -171,9 +346,13 @@ function remediesFor(reason: string, piece: DerivedPiece | undefined, count: num
 
 /** Plans a derived design's cuts and reads the plan for the maker. */
 export function planDesign(body: DesignBody, derivation: DesignDerivation, sources: DesignSources): DesignPlanSummary {
-  const plan = planCuts(cutPlanInput(body, derivation, sources));
+  const { input, pins, unheld } = planInput(body, derivation, sources);
+  const planned = planCuts(input);
+  const plan = inDesignPieces(planned, pins);
   const pieceById = new Map(derivation.pieces.map((p) => [p.id, p]));
+  const pinById = new Map(pins.map((pin) => [pin.piece.id, pin]));
   const garmentById = new Map(sources.garments.map((g) => [String(g.id), g]));
+  const panelLabels = new Map(input.panels.map((p) => [p.panelId, p.label ?? p.panelId]));
 
   const garments: GarmentUse[] = plan.garments.map((s) => {
     const uses = new Map<string, number>();
@@ -188,14 +367,30 @@ export function planDesign(body: DesignBody, derivation: DesignDerivation, sourc
       uses: [...uses].map(([pieceId, count]) => ({ pieceId, label: pieceById.get(pieceId)?.label ?? pieceId, count })),
     };
   });
-  const shortfall: ShortLine[] = plan.shortfall.pieces.map((s) => ({
-    pieceId: s.pieceId,
-    label: pieceById.get(s.pieceId)?.label ?? s.pieceId,
-    count: s.count,
-    reason: s.reason,
-    detail: s.detail,
-    remedies: remediesFor(s.reason, pieceById.get(s.pieceId), s.count),
-  }));
+  const shortfall: ShortLine[] = planned.shortfall.pieces.map((s) => {
+    const pin = pinById.get(s.pieceId);
+    if (!pin) {
+      return {
+        pieceId: s.pieceId,
+        label: pieceById.get(s.pieceId)?.label ?? s.pieceId,
+        count: s.count,
+        reason: s.reason,
+        detail: s.detail,
+        remedies: remediesFor(s.reason, pieceById.get(s.pieceId), s.count),
+      };
+    }
+    return {
+      pieceId: s.pieceId,
+      label: pin.piece.label!,
+      count: s.count,
+      reason: s.reason,
+      detail: s.detail.replace(/panel "([^"]+)"/g, (_, id: string) => `panel "${panelLabels.get(id) ?? id}"`),
+      remedies: keptRemedies(s.reason),
+    };
+  });
+  for (const u of unheld) {
+    shortfall.push({ pieceId: `@${u.featureId}`, label: u.label, count: 1, reason: 'no-piece-large-enough', detail: u.detail, remedies: keptRemedies('no-piece-large-enough') });
+  }
   const minimumsShort = plan.shortfall.garmentMinimums.map((m) => ({
     garmentId: Number(m.garmentId),
     description: garmentById.get(m.garmentId)?.description ?? m.garmentId,
