@@ -52,12 +52,23 @@ export type CommissionPage = z.infer<typeof commissionPageSchema>;
 const featureSchema = z.object({ kind: z.custom<FeatureKind>((v) => typeof v === 'string'), position: z.string() });
 export type Feature = z.infer<typeof featureSchema>;
 
+/** A kept feature on a panel: its top-left corner from the panel's top-left, and its size, exact mm. */
+export const panelFeatureSchema = z.object({
+  name: z.string(),
+  xMm: z.string(),
+  yMm: z.string(),
+  widthMm: z.string(),
+  heightMm: z.string(),
+});
+export type PanelFeature = z.infer<typeof panelFeatureSchema>;
+
 export const panelSchema = z.object({
   id: z.number(),
   name: z.string(),
   widthMm: z.string(),
   heightMm: z.string(),
   grain: z.optional(z.nullable(z.custom<Grain>((v) => typeof v === 'string'))),
+  features: z.optional(z.array(panelFeatureSchema)),
 });
 export type Panel = z.infer<typeof panelSchema>;
 
@@ -195,12 +206,23 @@ export type CustodyEventDraft =
   | { kind: 'withdrawn'; note?: string }
   | { kind: 'correction'; correctsEventId: number; note: string };
 
+/** A kept feature as typed: lengths as text, read in the panel draft's unit. */
+export interface PanelFeatureDraft {
+  name: string;
+  x: string;
+  y: string;
+  width: string;
+  height: string;
+}
+
 export interface PanelDraft {
   name: string;
   width: string;
   height: string;
   unit: LengthUnit;
   grain: Grain | null;
+  /** The whole list: an edit replaces the panel's kept features with these. */
+  features?: PanelFeatureDraft[];
 }
 
 /** Empty text becomes null, so the server stores "not given" rather than "". */

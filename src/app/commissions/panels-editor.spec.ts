@@ -141,4 +141,107 @@ describe('PanelsEditor', () => {
     await fixture.whenStable();
     expect(await (await field('Width')).getTextErrors()).toEqual(['Wider than any garment panel.']);
   });
+
+  describe('kept features', () => {
+    const pocket = { name: 'breast pocket', xMm: '50.8', yMm: '101.6', widthMm: '127', heightMm: '139.7' };
+    const front: Panel = { id: 8, name: 'left front', widthMm: '254', heightMm: '596.9', grain: 'vertical', features: [pocket] };
+    const text = () => (fixture.nativeElement as HTMLElement).textContent ?? '';
+    const featureRows = () => (fixture.nativeElement as HTMLElement).querySelectorAll('[data-testid="feature-row"]');
+    const inputValue = async (label: string) => (await (await field(label)).getControl(MatInputHarness))!.getValue();
+
+    it("lists a panel's kept features with their lengths in both units", async () => {
+      await create([front]);
+      expect(featureRows().length).toBe(1);
+      expect(await inputValue('Feature')).toBe('breast pocket');
+      expect(await inputValue('From left')).toBe('2 in');
+      expect(await (await field('From top')).getTextHints()).toEqual(['4 in · 10.2 cm']);
+      expect(await (await field('Feature height')).getTextHints()).toEqual(['5 1/2 in · 14 cm']);
+      expect(text()).toContain('Kept whole: breast pocket, 5 in (12.7 cm) × 5 1/2 in (14 cm), 2 in (5.1 cm) from the left, 4 in (10.2 cm) from the top');
+    });
+
+    it('adds a kept feature to a new panel and saves it with the panel, lengths as typed', async () => {
+      await create();
+      await addRow();
+      expect(text()).toContain('None. A pocket, label or embroidery to keep whole');
+      await typeInto('Name', 'left front');
+      await typeInto('Width', '10');
+      await typeInto('Height', '23 1/2');
+      await (await loader.getHarness(MatButtonHarness.with({ text: /Add kept feature/ }))).click();
+      await fixture.whenStable();
+      await typeInto('Feature', 'breast pocket');
+      await typeInto('From left', '0');
+      await typeInto('From top', '10 cm');
+      await typeInto('Feature width', '5');
+      await typeInto('Feature height', '5½');
+      // Zero is a distance from the edge; the reading shows both units.
+      expect(await (await field('From left')).isControlValid()).toBeTrue();
+      expect(await (await field('From top')).getTextHints()).toEqual(['3 7/8 in · 10 cm']);
+      expect(await (await field('Feature height')).getTextHints()).toEqual(['5 1/2 in · 14 cm']);
+
+      await (await loader.getHarness(MatButtonHarness.with({ text: 'Save panel' }))).click();
+      const request = httpMock.expectOne('/api/garments/12/panels');
+      expect(request.request.body).toEqual({
+        name: 'left front',
+        width: '10',
+        height: '23 1/2',
+        unit: 'in',
+        grain: 'vertical',
+        features: [{ name: 'breast pocket', x: '0', y: '10 cm', width: '5', height: '5½' }],
+      });
+      request.flush({ ...front, features: [{ ...pocket, xMm: '0', yMm: '100' }] }, { status: 201, statusText: 'Created' });
+      await fixture.whenStable();
+      expect(text()).toContain('Kept whole: breast pocket, 5 in (12.7 cm) × 5 1/2 in (14 cm), 0 in (0 cm) from the left, 3 7/8 in (10 cm) from the top');
+    });
+
+    it('does not save a feature with a length it cannot read', async () => {
+      await create([front]);
+      await typeInto('Feature width', '0');
+      const [message] = await (await field('Feature width')).getTextErrors();
+      expect(message).toContain('A length must be greater than 0.');
+      await (await loader.getHarness(MatButtonHarness.with({ text: 'Save panel' }))).click();
+      httpMock.expectNone('/api/panels/8');
+    });
+
+    it('sends the whole list on an edit, untouched lengths as their exact millimetres', async () => {
+      await create([front]);
+      await typeInto('From top', '4 1/2');
+      await (await loader.getHarness(MatButtonHarness.with({ text: 'Save panel' }))).click();
+      const edit = httpMock.expectOne('/api/panels/8');
+      expect(edit.request.method).toBe('PATCH');
+      expect(edit.request.body).toEqual({
+        features: [{ name: 'breast pocket', x: '50.8mm', y: '4 1/2', width: '127mm', height: '139.7mm' }],
+        unit: 'in',
+      });
+      edit.flush({ ...front, features: [{ ...pocket, yMm: '114.3' }] });
+      await fixture.whenStable();
+      expect(text()).toContain('4 1/2 in (11.4 cm) from the top');
+    });
+
+    it('removes a kept feature when the panel is saved', async () => {
+      await create([front]);
+      await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Remove kept feature breast pocket"]' }))).click();
+      await fixture.whenStable();
+      expect(featureRows().length).toBe(0);
+      expect(text()).toContain('Changed, not saved yet');
+      await (await loader.getHarness(MatButtonHarness.with({ text: 'Save panel' }))).click();
+      const edit = httpMock.expectOne('/api/panels/8');
+      expect(edit.request.body).toEqual({ features: [], unit: 'in' });
+      edit.flush({ ...front, features: [] });
+      await fixture.whenStable();
+      expect(text()).not.toContain('Kept whole');
+    });
+
+    it("puts the server's message for a feature outside the panel under that feature's field", async () => {
+      await create([front]);
+      await typeInto('From left', '6');
+      await (await loader.getHarness(MatButtonHarness.with({ text: 'Save panel' }))).click();
+      const message = "The breast pocket runs past the panel's right edge: it ends 11 in (27.9 cm) from the left, and the panel is 10 in (25.4 cm) wide.";
+      httpMock.expectOne('/api/panels/8').flush(
+        { error: { code: 'validation', message: 'A kept feature would lie outside the panel.', fields: { 'features.0.width': message } } },
+        { status: 400, statusText: 'Bad Request' },
+      );
+      await fixture.whenStable();
+      expect(await (await field('Feature width')).getTextErrors()).toEqual([message]);
+    });
+  });
 });

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, inject, input, linkedSignal, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { FormControl, FormGroup, FormGroupDirective, NgForm, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormArray, FormControl, FormGroup, FormGroupDirective, NgForm, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { ErrorStateMatcher } from '@angular/material/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -13,7 +13,7 @@ import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { lengthText, readingText, showMillimetres } from '../shared/length-text';
-import { Panel, PanelDraft } from './commission';
+import { Panel, PanelDraft, PanelFeature, PanelFeatureDraft } from './commission';
 import { CommissionsApi } from './commissions-api';
 
 /** Shows a measurement's problem while it is typed, not only after leaving the field. */
@@ -23,11 +23,22 @@ class WhileTyping implements ErrorStateMatcher {
   }
 }
 
+type FeatureForm = FormGroup<{
+  name: FormControl<string>;
+  x: FormControl<string>;
+  y: FormControl<string>;
+  width: FormControl<string>;
+  height: FormControl<string>;
+}>;
+
+type FeatureLength = 'x' | 'y' | 'width' | 'height';
+
 type PanelForm = FormGroup<{
   name: FormControl<string>;
   width: FormControl<string>;
   height: FormControl<string>;
   grain: FormControl<Grain>;
+  features: FormArray<FeatureForm>;
 }>;
 
 interface PanelRow {
@@ -39,8 +50,9 @@ interface PanelRow {
 }
 
 /**
- * The usable flat pieces measured off one garment after unpicking. Each row is
- * saved on its own; lengths go to the server as typed, with the chosen unit.
+ * The usable flat pieces measured off one garment after unpicking, each with
+ * the kept features (a pocket, a label) measured on it. Each row is saved on
+ * its own; lengths go to the server as typed, with the chosen unit.
  */
 @Component({
   selector: 'ks-panels-editor',
@@ -71,7 +83,15 @@ export class PanelsEditor {
     { value: 'cm', label: 'centimetres' },
     { value: 'mm', label: 'millimetres' },
   ];
+  protected readonly featureLengths: readonly { key: FeatureLength; label: string; required: string }[] = [
+    { key: 'x', label: 'From left', required: 'Enter the distance from the left edge' },
+    { key: 'y', label: 'From top', required: 'Enter the distance from the top edge' },
+    { key: 'width', label: 'Feature width', required: 'Enter the width' },
+    { key: 'height', label: 'Feature height', required: 'Enter the height' },
+  ];
   protected readonly unit = new FormControl<LengthUnit>('in', { nonNullable: true });
+  /** The stored feature behind each feature form, so an untouched length is sent back exactly. */
+  private readonly savedFeatures = new WeakMap<FeatureForm, PanelFeature>();
   private readonly unitValue = toSignal(this.unit.valueChanges, { initialValue: this.unit.value });
 
   protected readonly rows = linkedSignal<readonly Panel[], PanelRow[]>({
@@ -86,6 +106,9 @@ export class PanelsEditor {
       for (const row of this.rows()) {
         row.form.controls.width.updateValueAndValidity();
         row.form.controls.height.updateValueAndValidity();
+        for (const f of row.form.controls.features.controls) {
+          for (const { key } of this.featureLengths) f.controls[key].updateValueAndValidity();
+        }
       }
     });
   }
@@ -98,17 +121,54 @@ export class PanelsEditor {
       width: new FormControl(panel ? asTyped(panel.widthMm) : '', { nonNullable: true, validators: [lengthText(unit, true)] }),
       height: new FormControl(panel ? asTyped(panel.heightMm) : '', { nonNullable: true, validators: [lengthText(unit, true)] }),
       grain: new FormControl<Grain>(panel?.grain ?? 'vertical', { nonNullable: true }),
+      features: new FormArray<FeatureForm>((panel?.features ?? []).map((f) => this.featureFor(f))),
     });
     return { key: this.nextKey++, form, saved: panel, saving: false, error: null };
   }
 
+  private featureFor(feature: PanelFeature | null): FeatureForm {
+    const unit = () => this.unit.value;
+    const asTyped = (mm: string) => formatInches(Length.millimetres(mm), 'nearest', ' in');
+    const length = (mm: string | undefined, allowZero: boolean) =>
+      new FormControl(mm !== undefined ? asTyped(mm) : '', { nonNullable: true, validators: [lengthText(unit, true, { allowZero })] });
+    const form: FeatureForm = new FormGroup({
+      name: new FormControl(feature?.name ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(60)] }),
+      x: length(feature?.xMm, true),
+      y: length(feature?.yMm, true),
+      width: length(feature?.widthMm, false),
+      height: length(feature?.heightMm, false),
+    });
+    if (feature) this.savedFeatures.set(form, feature);
+    return form;
+  }
+
   /** What the typed text reads as, in inches and centimetres. */
-  protected reading(text: string) {
-    return readingText(text, this.unitValue());
+  protected reading(text: string, allowZero = false) {
+    return readingText(text, this.unitValue(), { allowZero });
   }
 
   protected savedSize(row: PanelRow): string {
     return row.saved ? `${showMillimetres(row.saved.widthMm)} × ${showMillimetres(row.saved.heightMm)}` : '';
+  }
+
+  /** "breast pocket, 5 in (12.7 cm) × 5 1/2 in (14 cm), 2 in (5.1 cm) from the left, 4 in (10.2 cm) from the top". */
+  protected savedFeature(f: PanelFeature): string {
+    return `${f.name}, ${showMillimetres(f.widthMm)} × ${showMillimetres(f.heightMm)}, ${showMillimetres(f.xMm)} from the left, ${showMillimetres(f.yMm)} from the top`;
+  }
+
+  protected addFeature(row: PanelRow): void {
+    const features = row.form.controls.features;
+    features.push(this.featureFor(null));
+    features.markAsDirty();
+    this.status.set(`A kept feature row was added to panel ${row.form.controls.name.value || 'being added'}.`);
+  }
+
+  protected removeFeature(row: PanelRow, index: number): void {
+    const features = row.form.controls.features;
+    const name = features.at(index).controls.name.value;
+    features.removeAt(index);
+    features.markAsDirty();
+    this.status.set(`Kept feature ${name || index + 1} removed; save the panel to keep the change.`);
   }
 
   protected addPanel(): void {
@@ -130,10 +190,21 @@ export class PanelsEditor {
     const unit = this.unit.value;
     const request = row.saved
       ? this.api.updatePanel(row.saved.id, this.changesOf(form, unit))
-      : this.api.addPanel(this.garmentId(), { name: value.name.trim(), width: value.width, height: value.height, unit, grain: value.grain });
+      : this.api.addPanel(this.garmentId(), {
+          name: value.name.trim(),
+          width: value.width,
+          height: value.height,
+          unit,
+          grain: value.grain,
+          ...(value.features.length > 0 ? { features: this.featureDrafts(form) } : {}),
+        });
     this.patchRow(row.key, { saving: true, error: null });
     request.subscribe({
       next: (panel) => {
+        form.controls.features.controls.forEach((f, i) => {
+          const saved = panel.features?.[i];
+          if (saved) this.savedFeatures.set(f, saved);
+        });
         form.markAsPristine();
         this.patchRow(row.key, { saving: false, saved: panel });
         this.status.set(`Panel “${panel.name}” saved.`);
@@ -154,8 +225,22 @@ export class PanelsEditor {
     if (c.grain.dirty) changes.grain = c.grain.value;
     if (c.width.dirty) changes.width = c.width.value;
     if (c.height.dirty) changes.height = c.height.value;
-    if (c.width.dirty || c.height.dirty) changes.unit = unit;
+    if (c.features.dirty) changes.features = this.featureDrafts(form);
+    if (c.width.dirty || c.height.dirty || c.features.dirty) changes.unit = unit;
     return changes;
+  }
+
+  /** Every kept feature of the row: typed lengths as typed, untouched stored ones as their exact millimetres. */
+  private featureDrafts(form: PanelForm): PanelFeatureDraft[] {
+    return form.controls.features.controls.map((f) => {
+      const saved = this.savedFeatures.get(f);
+      const text = (key: FeatureLength) => {
+        const control = f.controls[key];
+        if (saved && !control.dirty) return `${saved[`${key}Mm`]}mm`;
+        return control.value;
+      };
+      return { name: f.controls.name.value.trim(), x: text('x'), y: text('y'), width: text('width'), height: text('height') };
+    });
   }
 
   protected deletePanel(row: PanelRow): void {

@@ -18,9 +18,9 @@ export type LengthReading =
  * What a typed length reads as, in both unit systems ("19 1/2 in" and "49.5 cm"),
  * with the shared parser's own message when it cannot be read. Null when empty.
  */
-export function readLength(text: string, unit: LengthUnit): LengthReading | null {
+export function readLength(text: string, unit: LengthUnit, options: { allowZero?: boolean } = {}): LengthReading | null {
   if (text.trim() === '') return null;
-  const parsed = tryParseLength(text, unit);
+  const parsed = tryParseLength(text, unit, { allowZero: options.allowZero });
   if (!parsed.ok) return { ok: false, message: parsed.error.message };
   return { ok: true, ...bothSystems(parsed.length) };
 }
@@ -38,20 +38,21 @@ export function showMillimetres(mm: string | null | undefined): string {
 
 /**
  * A validator for a length typed as text, read in the unit `unit()` returns.
- * Puts the parser's message on the `length` error. Empty passes unless `required`.
+ * Puts the parser's message on the `length` error. Empty passes unless `required`;
+ * zero passes only with `allowZero` (a distance from an edge).
  */
-export function lengthText(unit: () => LengthUnit, required = false): ValidatorFn {
+export function lengthText(unit: () => LengthUnit, required = false, options: { allowZero?: boolean } = {}): ValidatorFn {
   return (control: AbstractControl<string | null>): ValidationErrors | null => {
     const text = control.value ?? '';
     if (text.trim() === '') return required ? { required: true } : null;
-    const reading = readLength(text, unit());
+    const reading = readLength(text, unit(), options);
     return reading && !reading.ok ? { length: reading.message } : null;
   };
 }
 
 /** "19 1/2 in · 49.5 cm" for a readable length; null when empty or unreadable. */
-export function readingText(text: string, unit: LengthUnit): string | null {
-  const reading = readLength(text, unit);
+export function readingText(text: string, unit: LengthUnit, options: { allowZero?: boolean } = {}): string | null {
+  const reading = readLength(text, unit, options);
   return reading && reading.ok ? `${reading.imperial} · ${reading.metric}` : null;
 }
 
