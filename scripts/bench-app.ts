@@ -1,0 +1,118 @@
+/**
+ * npm run bench:app — the production build's initial JavaScript (gzip transfer
+ * size) and lazy chunks against an empty Angular Material app of the same
+ * versions built in the same run (target: initial JS at most 1.5x that floor),
+ * then first contentful paint of the sign-in page and the time until the
+ * commissions list is shown, in headless Chromium on loopback (median of 5).
+ * Figures, not a test. Needs PostgreSQL: run through `npm run bench:app`.
+ */
+import { execFileSync, spawn } from 'node:child_process';
+import { gzipSync } from 'node:zlib';
+import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, unlinkSync, writeFileSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium } from 'playwright-core';
+import { Client } from 'pg';
+import { DEMO_ACCOUNTS } from '../seeds/demo/accounts';
+
+const ROOT = path.resolve(__dirname, '..');
+const PORT = Number(process.env['BENCH_APP_PORT'] ?? 4394);
+const BASE = `http://127.0.0.1:${PORT}`;
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+const kb = (n: number) => `${(n / 1024).toFixed(1)} kB`;
+
+/** Initial JS (scripts and module preloads named in index.html) and the other chunks, gzip-compressed. */
+function sizes(browserDir: string) {
+  const html = readFileSync(path.join(browserDir, 'index.html'), 'utf8');
+  const initial = new Set([...html.matchAll(/(?:src|href)="([^"]+\.js)"/g)].map((m) => m[1]!));
+  const files = readdirSync(browserDir).filter((f) => f.endsWith('.js'));
+  const gz = (f: string) => gzipSync(readFileSync(path.join(browserDir, f)), { level: 9 }).length;
+  const initialBytes = [...initial].reduce((s, f) => s + gz(f), 0);
+  const lazy = files.filter((f) => !initial.has(f));
+  return { initialBytes, initialFiles: initial.size, lazyCount: lazy.length, lazyBytes: lazy.reduce((s, f) => s + gz(f), 0) };
+}
+
+/** An empty Material app (one button) of the same versions, built with the project's own packages. */
+function buildFloor(): string {
+  const dir = mkdtempSync(path.join(os.tmpdir(), 'keepstitch-floor-'));
+  // A link to the project's packages, used read-only by the build (never install through it).
+  symlinkSync(path.join(ROOT, 'node_modules'), path.join(dir, 'node_modules'), 'dir');
+  mkdirSync(path.join(dir, 'src'));
+  writeFileSync(path.join(dir, 'src', 'main.ts'), `import { Component } from '@angular/core';
+import { bootstrapApplication } from '@angular/platform-browser';
+import { MatButtonModule } from '@angular/material/button';
+@Component({ selector: 'app-root', imports: [MatButtonModule], template: '<button mat-flat-button>Hello</button>' })
+class App {}
+bootstrapApplication(App).catch((e) => console.error(e));
+`);
+  writeFileSync(path.join(dir, 'src', 'index.html'), '<!doctype html><html><head><base href="/"></head><body><app-root></app-root></body></html>');
+  writeFileSync(path.join(dir, 'src', 'styles.scss'), `@use '@angular/material' as mat;\nhtml { color-scheme: light dark; @include mat.theme((color: mat.$azure-palette, typography: Roboto, density: 0)); }\n`);
+  writeFileSync(path.join(dir, 'tsconfig.json'), JSON.stringify({ compilerOptions: { strict: true, target: 'ES2022', module: 'preserve', moduleResolution: 'bundler', skipLibCheck: true, experimentalDecorators: true }, files: ['src/main.ts'] }));
+  writeFileSync(path.join(dir, 'angular.json'), JSON.stringify({
+    version: 1,
+    cli: { analytics: false },
+    projects: { floor: { projectType: 'application', root: '', sourceRoot: 'src', architect: { build: { builder: '@angular/build:application', options: { outputPath: 'dist/floor', browser: 'src/main.ts', index: 'src/index.html', tsConfig: 'tsconfig.json', styles: ['src/styles.scss'], optimization: { scripts: true, styles: { minify: true, inlineCritical: false }, fonts: false } } } } } },
+  }));
+  execFileSync(path.join(ROOT, 'node_modules', '.bin', 'ng'), ['build', '--progress=false'], { cwd: dir, stdio: 'pipe', env: { ...process.env, NG_CLI_ANALYTICS: 'false' } });
+  return dir;
+}
+
+async function main(): Promise<void> {
+  if (!existsSync(path.join(ROOT, 'dist', 'keepstitch', 'browser', 'index.html'))) {
+    execFileSync(path.join(ROOT, 'node_modules', '.bin', 'ng'), ['build', '--progress=false'], { cwd: ROOT, stdio: 'inherit' });
+  }
+  const app = sizes(path.join(ROOT, 'dist', 'keepstitch', 'browser'));
+  const floorDir = buildFloor();
+  const floor = sizes(path.join(floorDir, 'dist', 'floor', 'browser'));
+  // Drop the link first, so removing the folder can never reach the project's packages.
+  unlinkSync(path.join(floorDir, 'node_modules'));
+  rmSync(floorDir, { recursive: true, force: true });
+
+  const url = new URL(process.env['DATABASE_URL']!);
+  url.pathname = '/keepstitch_bench_app';
+  const admin = new URL(url.toString());
+  admin.pathname = '/postgres';
+  const a = new Client({ connectionString: admin.toString() });
+  await a.connect();
+  await a.query('DROP DATABASE IF EXISTS keepstitch_bench_app WITH (FORCE)');
+  await a.end();
+  const env = { ...process.env, DATABASE_URL: url.toString(), PORT: String(PORT), NODE_ENV: 'production', SESSION_SECRET: 'bench-app-'.padEnd(48, 'a'), UPLOAD_DIR: path.join(ROOT, '.data', 'bench-app-uploads'), PAYMENTS_API_URL: 'http://127.0.0.1:9', SMTP_PORT: '9' };
+  execFileSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'prepare'], { cwd: ROOT, env, stdio: 'pipe' });
+  const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: 'ignore' });
+  const fcp: number[] = [];
+  const listShown: number[] = [];
+  try {
+    for (let i = 0; i < 80 && !(await fetch(`${BASE}/api/health`).then((r) => r.ok, () => false)); i++) await new Promise((r) => setTimeout(r, 250));
+    const browser = await chromium.launch({ executablePath: process.env['CHROME_BIN'] ?? '/usr/bin/chromium', args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'] });
+    for (let run = 0; run < 5; run++) {
+      const context = await browser.newContext({ baseURL: BASE });
+      const page = await context.newPage();
+      await page.goto('/sign-in');
+      await page.getByLabel('E-mail').waitFor();
+      fcp.push(await page.evaluate(() => performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? NaN));
+      await page.getByLabel('E-mail').fill(DEMO_ACCOUNTS.owner.email);
+      await page.getByLabel('Password').fill(DEMO_ACCOUNTS.owner.password);
+      // Signed in, open the list afresh and time it from navigation to the first row shown.
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.waitForURL(/\/commissions/);
+      await page.goto('/commissions');
+      await page.locator('table tr[mat-row], [data-testid="commission-row"]').first().waitFor();
+      listShown.push(await page.evaluate(() => performance.now()));
+      await context.close();
+    }
+    await browser.close();
+  } finally {
+    server.kill('SIGTERM');
+  }
+  const ratio = app.initialBytes / floor.initialBytes;
+  console.log(`\n${new Date().toISOString()}, ${os.cpus().length} cores, Node ${process.version}`);
+  console.log(`initial JS (gzip): app ${kb(app.initialBytes)} in ${app.initialFiles} files; empty Material app ${kb(floor.initialBytes)}; ratio ${ratio.toFixed(2)} ${ratio <= 1.5 ? 'PASS (at most 1.5x)' : 'OVER 1.5x'}`);
+  console.log(`lazy chunks: ${app.lazyCount}, ${kb(app.lazyBytes)} gzip in all`);
+  console.log(`first contentful paint of the sign-in page: median ${median(fcp).toFixed(0)} ms (${fcp.map((x) => x.toFixed(0)).join(', ')})`);
+  console.log(`commissions list shown, from navigation: median ${median(listShown).toFixed(0)} ms (${listShown.map((x) => x.toFixed(0)).join(', ')})`);
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});
