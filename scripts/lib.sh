@@ -92,3 +92,22 @@ pg_down() {
     as_pg pg_ctl -D "$dir/data" -m fast -w stop >/dev/null || true
   fi
 }
+
+# For one-off chores (backup, restore): use DATABASE_URL when set; otherwise the
+# development database, starting its cluster for the chore when it is not
+# running. `chore_done` stops what `chore_database` started.
+CHORE_STARTED_PG=0
+chore_database() {
+  local port="${KEEPSTITCH_PG_PORT:-54330}"
+  if [ -z "${DATABASE_URL:-}" ]; then
+    export DATABASE_URL="postgres://postgres@127.0.0.1:$port/keepstitch"
+    if ! as_pg pg_ctl -D "$DATA_DIR/pg/data" status >/dev/null 2>&1; then
+      pg_up "$DATA_DIR/pg" "$port" >/dev/null
+      CHORE_STARTED_PG=1
+    fi
+  fi
+  UPLOAD_DIR="${UPLOAD_DIR:-$DATA_DIR/uploads}"
+}
+chore_done() {
+  if [ "$CHORE_STARTED_PG" = 1 ]; then pg_down "$DATA_DIR/pg" >/dev/null; fi
+}

@@ -12,20 +12,11 @@ if [ -z "$FILE" ] || [ ! -f "$FILE" ]; then
   exit 2
 fi
 FILE="$(cd "$(dirname "$FILE")" && pwd)/$(basename "$FILE")"
-PG_PORT="${KEEPSTITCH_PG_PORT:-54330}"
-STARTED=0
-if [ -z "${DATABASE_URL:-}" ]; then
-  export DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/keepstitch"
-  if ! as_pg pg_ctl -D "$DATA_DIR/pg/data" status >/dev/null 2>&1; then
-    pg_up "$DATA_DIR/pg" "$PG_PORT" >/dev/null
-    STARTED=1
-  fi
-fi
-UPLOAD_DIR="${UPLOAD_DIR:-$DATA_DIR/uploads}"
+chore_database
 WORK="$(mktemp -d)"
 cleanup() {
   rm -rf "$WORK"
-  if [ "$STARTED" = 1 ]; then pg_down "$DATA_DIR/pg" >/dev/null; fi
+  chore_done
 }
 trap cleanup EXIT
 
