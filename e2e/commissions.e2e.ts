@@ -82,9 +82,11 @@ describe('commissions and garment intake, end to end', () => {
     await waitForCount(page.getByTestId('custody-event'), 3);
     await dismissNotices(page);
 
-    for (const [name, width, height] of [['back', '19 1/2', '26'], ['fringe end', '10 1/4', '22 1/2']] as const) {
+    for (const [index, [name, width, height]] of ([['back', '19 1/2', '26'], ['fringe end', '10 1/4', '22 1/2']] as const).entries()) {
       await page.getByRole('button', { name: 'Add panel' }).click();
-      const row = page.getByTestId('panel-row').last();
+      // The new row must be there before typing, or the typing lands in the row before it.
+      await waitForCount(page.getByTestId('panel-row'), index + 1);
+      const row = page.getByTestId('panel-row').nth(index);
       await row.getByLabel('Name').fill(name);
       await row.getByLabel('Width').fill(width);
       await row.getByLabel('Height').fill(height);

@@ -7,6 +7,10 @@ import { renderPdfPage } from './support/render-pdf';
 
 /** Drags with the mouse in small steps, as the CDK needs to see a drag start. */
 async function drag(page: Page, from: string, to: string): Promise<void> {
+  // Both ends on screen at once: a drag cannot start from, or end on, a spot scrolled out of view.
+  const size = page.viewportSize();
+  if (size && size.height < 1600) await page.setViewportSize({ width: size.width, height: 1600 });
+  await page.locator(from).first().scrollIntoViewIfNeeded();
   await page.locator(to).first().scrollIntoViewIfNeeded();
   const a = (await page.locator(from).first().boundingBox())!;
   const b = (await page.locator(to).first().boundingBox())!;
