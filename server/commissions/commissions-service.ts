@@ -1,6 +1,7 @@
 import { cautionsFor, checkStageMove, featuresToRemove, nextStages, stageIndex, type Stage, type StageFacts, type WorkStage } from '@keepstitch/shared';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
+import { daysBetween, today } from '../core/calendar';
 import { ClientModel } from '../clients/client-model';
 import { GarmentModel, PanelModel } from '../garments/garment-model';
 import { custodyStates } from '../garments/custody';
@@ -14,14 +15,6 @@ import { StudioSettingsModel } from '../settings/settings-model';
 
 const NOT_FOUND = 'That commission';
 
-/** Today's date in the studio's calendar (UTC), as YYYY-MM-DD. */
-function today(): string {
-  return new Date().toISOString().slice(0, 10);
-}
-
-function daysBetween(from: string, to: string): number {
-  return Math.round((Date.parse(`${to}T00:00:00Z`) - Date.parse(`${from}T00:00:00Z`)) / 86_400_000);
-}
 
 /** What each role may see of a commission's own columns. */
 function shape(c: CommissionModel, user: Express.User) {

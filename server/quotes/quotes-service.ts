@@ -1,6 +1,7 @@
 import { cautionsFor, quoteTotals, suggestQuoteLines, type QuoteTotals } from '@keepstitch/shared';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
+import { addDays, today } from '../core/calendar';
 import type { AppConfig } from '../core/config';
 import { ClientModel } from '../clients/client-model';
 import { CommissionModel, StageMoveModel } from '../commissions/commission-model';
@@ -17,13 +18,6 @@ import type { QuoteInput } from './quotes-schemas';
 
 const NOT_FOUND = 'That quote';
 
-function today(): string {
-  return new Date().toISOString().slice(0, 10);
-}
-
-function addDays(date: string, days: number): string {
-  return new Date(Date.parse(`${date}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
-}
 
 function totalsOf(q: QuoteModel): QuoteTotals {
   return quoteTotals({

@@ -11,9 +11,7 @@ export function heading(doc: PDFKit.PDFDocument, title: string, lines: string[])
   doc.fillColor('#000');
 }
 
-export function today(): string {
-  return new Date().toISOString().slice(0, 10);
-}
+export { today } from '../../core/calendar';
 
 /** Lengths in the design's units. */
 export function measures(system: UnitSystem) {
