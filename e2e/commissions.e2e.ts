@@ -75,8 +75,12 @@ describe('commissions and garment intake, end to end', () => {
     await choose(page, 'Event', 'Received');
     await page.getByRole('button', { name: 'Record event' }).click();
     await page.getByTestId('garment-status').filter({ hasText: 'In the studio' }).waitFor();
+    // The page reloads the garment after each event: let it settle before filling the form again.
+    await waitForCount(page.getByTestId('custody-event'), 2);
+    await dismissNotices(page);
     await choose(page, 'Event', 'Stored');
     await page.getByLabel('Place', { exact: true }).fill('Box A5');
+    expect(await page.getByLabel('Place', { exact: true }).inputValue()).toBe('Box A5');
     await page.getByRole('button', { name: 'Record event' }).click();
     await page.getByTestId('garment-place').filter({ hasText: 'Box A5' }).waitFor();
     await waitForCount(page.getByTestId('custody-event'), 3);
