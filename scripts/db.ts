@@ -3,24 +3,9 @@
  * migrate, seed the demo scenario when empty), `migrate`, `rollback`, `seed`.
  * DATABASE_URL says which database.
  */
-import { Client } from 'pg';
-import { createKnex } from '../server/core/database';
+import { createKnex, ensureDatabase } from '../server/core/database';
 
-export async function ensureDatabase(url: string): Promise<void> {
-  const target = new URL(url);
-  const name = decodeURIComponent(target.pathname.replace(/^\//, ''));
-  if (!/^[a-z_][a-z0-9_]*$/.test(name)) throw new Error(`Unexpected database name "${name}"`);
-  const admin = new URL(url);
-  admin.pathname = '/postgres';
-  const client = new Client({ connectionString: admin.toString() });
-  await client.connect();
-  try {
-    const found = await client.query('SELECT 1 FROM pg_database WHERE datname = $1', [name]);
-    if (found.rowCount === 0) await client.query(`CREATE DATABASE ${name}`);
-  } finally {
-    await client.end();
-  }
-}
+export { ensureDatabase };
 
 async function main(command: string): Promise<void> {
   const url = process.env['DATABASE_URL'];

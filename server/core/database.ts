@@ -1,7 +1,7 @@
 import Knex, { type Knex as KnexType } from 'knex';
 import { knexSnakeCaseMappers } from 'objection';
 import path from 'node:path';
-import { types } from 'pg';
+import { Client, types } from 'pg';
 
 // A date column is a calendar day, not an instant: keep it as 'YYYY-MM-DD' so a deadline never moves by a day.
 types.setTypeParser(1082, (value) => value);
@@ -23,4 +23,21 @@ export function createKnex(databaseUrl: string, pool: { min: number; max: number
     seeds: { directory: SEEDS_DIR, loadExtensions: ['.ts'] },
     ...knexSnakeCaseMappers(),
   });
+}
+
+/** Creates the database named in the URL when it does not exist yet. */
+export async function ensureDatabase(url: string): Promise<void> {
+  const target = new URL(url);
+  const name = decodeURIComponent(target.pathname.replace(/^\//, ''));
+  if (!/^[a-z_][a-z0-9_]*$/.test(name)) throw new Error(`Unexpected database name "${name}"`);
+  const admin = new URL(url);
+  admin.pathname = '/postgres';
+  const client = new Client({ connectionString: admin.toString() });
+  await client.connect();
+  try {
+    const found = await client.query('SELECT 1 FROM pg_database WHERE datname = $1', [name]);
+    if (found.rowCount === 0) await client.query(`CREATE DATABASE ${name}`);
+  } finally {
+    await client.end();
+  }
 }

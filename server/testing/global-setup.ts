@@ -1,6 +1,5 @@
 import { Client } from 'pg';
-import { createKnex } from '../core/database';
-import { ensureDatabase } from '../../scripts/db';
+import { createKnex, ensureDatabase } from '../core/database';
 
 /** The migrated database each test file's own database is copied from. */
 export const TEMPLATE_DB = 'keepstitch_template';
