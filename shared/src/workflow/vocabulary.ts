@@ -2,10 +2,15 @@
  * The words of a commission and its garments, as stored values with the
  * labels the maker reads. Shared by the server's validation and the app's forms.
  */
-const labelled = <T extends string>(labels: Record<T, string>) => ({
-  values: Object.keys(labels) as T[],
-  labels: labels as Readonly<Record<T, string>>,
-});
+const labelled = <T extends string>(labels: Record<T, string>) => {
+  const values = Object.keys(labels) as T[];
+  return {
+    values,
+    labels: labels as Readonly<Record<T, string>>,
+    /** Value and label pairs in order, for a select. */
+    options: values.map((value) => ({ value, label: labels[value] })) as ReadonlyArray<{ value: T; label: string }>,
+  };
+};
 
 export const COMMISSION_KIND = labelled({
   memory_quilt: 'Memory quilt',

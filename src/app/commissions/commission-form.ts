@@ -59,8 +59,8 @@ export class CommissionForm {
   /** From the route when editing, `/commissions/:id/edit`; absent for a new commission. */
   readonly id = input<string>();
 
-  protected readonly kinds = COMMISSION_KIND.values.map((value) => ({ value, label: COMMISSION_KIND.labels[value] }));
-  protected readonly ages = AGE_GROUP.values.map((value) => ({ value, label: AGE_GROUP.labels[value] }));
+  protected readonly kinds = COMMISSION_KIND.options;
+  protected readonly ages = AGE_GROUP.options;
   /** Undefined while loading, null when they could not be loaded. */
   protected readonly clients = signal<ClientRow[] | null | undefined>(undefined);
   /** The commission being changed, as the server last sent it. */

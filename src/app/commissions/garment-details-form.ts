@@ -25,9 +25,6 @@ import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { Feature, GarmentDetail, GarmentDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
 
-const options = <T extends string>(v: { values: T[]; labels: Readonly<Record<T, string>> }) =>
-  v.values.map((value) => ({ value, label: v.labels[value] }));
-
 type FeatureForm = FormGroup<{ kind: FormControl<FeatureKind>; position: FormControl<string> }>;
 
 const TEXT_FIELDS = ['description', 'whose', 'story', 'colour', 'condition', 'returnsToClient'] as const;
@@ -53,12 +50,12 @@ export class GarmentDetailsForm implements OnInit {
   readonly saved = output<GarmentDetail>();
   readonly cancelled = output<void>();
 
-  protected readonly fibres = options(FIBRE);
-  protected readonly constructions = options(CONSTRUCTION);
-  protected readonly prints = options(PRINT);
-  protected readonly prewashes = options(PREWASH);
-  protected readonly colourRuns = options(COLOUR_RUN);
-  protected readonly featureKinds = options(FEATURE);
+  protected readonly fibres = FIBRE.options;
+  protected readonly constructions = CONSTRUCTION.options;
+  protected readonly prints = PRINT.options;
+  protected readonly prewashes = PREWASH.options;
+  protected readonly colourRuns = COLOUR_RUN.options;
+  protected readonly featureKinds = FEATURE.options;
 
   protected readonly form = new FormGroup({
     description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(300)] }),

@@ -27,9 +27,6 @@ import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { GarmentDetail, GarmentDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
 
-const options = <T extends string>(v: { values: T[]; labels: Readonly<Record<T, string>> }) =>
-  v.values.map((value) => ({ value, label: v.labels[value] }));
-
 type FeatureForm = FormGroup<{ kind: FormControl<FeatureKind>; position: FormControl<string> }>;
 
 /**
@@ -59,12 +56,12 @@ export class GarmentIntake {
   readonly added = output<GarmentDetail>();
   readonly closed = output<void>();
 
-  protected readonly fibres = options(FIBRE);
-  protected readonly constructions = options(CONSTRUCTION);
-  protected readonly prints = options(PRINT);
-  protected readonly prewashes = options(PREWASH);
-  protected readonly colourRuns = options(COLOUR_RUN);
-  protected readonly featureKinds = options(FEATURE);
+  protected readonly fibres = FIBRE.options;
+  protected readonly constructions = CONSTRUCTION.options;
+  protected readonly prints = PRINT.options;
+  protected readonly prewashes = PREWASH.options;
+  protected readonly colourRuns = COLOUR_RUN.options;
+  protected readonly featureKinds = FEATURE.options;
 
   protected readonly what = new FormGroup({
     description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),

@@ -77,7 +77,7 @@ export class PanelsEditor {
   readonly garmentId = input.required<number>();
   readonly panels = input<readonly Panel[]>([]);
 
-  protected readonly grains = GRAIN.values.map((value) => ({ value, label: GRAIN.labels[value] }));
+  protected readonly grains = GRAIN.options;
   protected readonly units: readonly { value: LengthUnit; label: string }[] = [
     { value: 'in', label: 'inches' },
     { value: 'cm', label: 'centimetres' },

@@ -54,7 +54,7 @@ export class PortalCommission {
   protected readonly stageLabels = STAGE_LABELS;
   protected readonly statusLabels = GARMENT_STATUS_LABELS;
   protected readonly fibreLabels = FIBRE.labels;
-  protected readonly fibres = FIBRE.values.map((value) => ({ value, label: FIBRE.labels[value] }));
+  protected readonly fibres = FIBRE.options;
   protected readonly showDate = showDate;
 
   protected readonly commission = signal<CommissionDetail | null>(null);

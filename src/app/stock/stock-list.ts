@@ -57,7 +57,7 @@ export class StockList {
   private readonly dialog = inject(MatDialog);
   private readonly auth = inject(Auth);
 
-  protected readonly fibres = FIBRE.values.map((value) => ({ value, label: FIBRE.labels[value] }));
+  protected readonly fibres = FIBRE.options;
   protected readonly fibreLabels: Readonly<Record<string, string>> = FIBRE.labels;
   /** Only the owner changes the shelves or sees what the fabric cost. */
   protected readonly isOwner = computed(() => this.auth.role() === 'owner');
