@@ -8,29 +8,9 @@ import { Client } from 'pg';
 import { addUser, signedIn, startTestApp, type TestApp } from '../testing/test-app';
 import { addCommission } from '../testing/fixtures';
 import { databaseUrl } from '../testing/global-setup';
+import { tableFingerprints } from '../testing/table-fingerprints';
 
 const ROOT = path.resolve(__dirname, '..', '..');
-
-/** A fingerprint of every table: its rows in a fixed order, hashed. */
-async function fingerprint(url: string): Promise<Record<string, string>> {
-  const client = new Client({ connectionString: url });
-  await client.connect();
-  try {
-    const tables = await client.query<{ table_name: string }>(
-      `SELECT table_name FROM information_schema.tables WHERE table_schema = 'public' AND table_type = 'BASE TABLE' ORDER BY table_name`,
-    );
-    const out: Record<string, string> = {};
-    for (const { table_name } of tables.rows) {
-      const r = await client.query<{ rows: string; hash: string }>(
-        `SELECT count(*)::text AS rows, md5(coalesce(string_agg(t::text, '|' ORDER BY t::text), '')) AS hash FROM "${table_name}" t`,
-      );
-      out[table_name] = `${r.rows[0]!.rows}:${r.rows[0]!.hash}`;
-    }
-    return out;
-  } finally {
-    await client.end();
-  }
-}
 
 const files = (dir: string) =>
   Object.fromEntries(readdirSync(dir).sort().map((f) => [f, createHash('sha256').update(readFileSync(path.join(dir, f))).digest('hex')]));
@@ -68,8 +48,8 @@ describe('npm run backup and npm run restore', () => {
     const restoredUploads = path.join(work, 'restored-uploads');
     execFileSync('bash', ['scripts/restore.sh', archive], { cwd: ROOT, env: { ...env, DATABASE_URL: restoreUrl, UPLOAD_DIR: restoredUploads }, stdio: 'pipe' });
 
-    const before = await fingerprint(t.url);
-    const after = await fingerprint(restoreUrl);
+    const before = await tableFingerprints(t.url);
+    const after = await tableFingerprints(restoreUrl);
     expect(Object.keys(before)).toEqual(expect.arrayContaining(['clients', 'commissions', 'custody_events', 'garments', 'photos', 'knex_migrations']));
     expect(after).toEqual(before);
     expect(files(restoredUploads)).toEqual(files(t.uploadDir));
