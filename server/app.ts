@@ -1,6 +1,5 @@
 import express, { type Express } from 'express';
 import session from 'express-session';
-import connectPgSimple from 'connect-pg-simple';
 import cookieParser from 'cookie-parser';
 import helmet from 'helmet';
 import { Model } from 'objection';
@@ -14,6 +13,7 @@ import { assertPolicyCovered } from './core/secured-router';
 import { configurePassport } from './auth/passport-setup';
 import { createCsrf } from './auth/csrf';
 import { authRouter } from './auth/auth-router';
+import { SessionStore } from './auth/session-store';
 import { healthRouter } from './health/health-router';
 import { clientsRouter } from './clients/clients-router';
 import { usersRouter } from './users/users-router';
@@ -49,7 +49,6 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
   Model.knex(knex);
   const passport = configurePassport();
   const csrf = createCsrf(config.sessionSecret, config.secureCookies);
-  const PgStore = connectPgSimple(session);
 
   const app = express();
   app.disable('x-powered-by');
@@ -89,11 +88,12 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
     session({
       name: SESSION_COOKIE,
       secret: config.sessionSecret,
-      store: new PgStore({ pool: sessionPool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: config.nodeEnv === 'test' ? false : 15 * 60 }),
+      store: new SessionStore({ pool: sessionPool, pruneSeconds: config.nodeEnv === 'test' ? false : 15 * 60, touchSeconds: config.sessionTouchSeconds }),
       resave: false,
       saveUninitialized: false,
+      // A session ends after this long without a request.
       rolling: true,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: 12 * 60 * 60 * 1000, path: '/' },
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.secureCookies, maxAge: config.sessionIdleMinutes * 60 * 1000, path: '/' },
     }),
   );
   app.use(passport.session());

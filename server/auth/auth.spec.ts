@@ -111,3 +111,67 @@ describe('sign-in rate limit', () => {
     expect(limited.body.error).toEqual({ code: 'rate_limited', message: expect.stringMatching(/wait 1 minute/) });
   });
 });
+
+describe('session expiry', () => {
+  const expiresIn = async (t: TestApp, sid: string) => {
+    const [row] = await t.knex('session').where('sid', sid).select(t.knex.raw('extract(epoch from expire - now()) AS seconds'));
+    return Number(row.seconds);
+  };
+
+  describe('with the default settings', () => {
+    let t: TestApp;
+    let owner: { id: number; email: string };
+    beforeAll(async () => {
+      t = await startTestApp();
+      owner = await addUser(t.knex, 'owner');
+    });
+    afterAll(() => t.close());
+
+    it('ends a session idle for longer than its limit: the next request is signed out', async () => {
+      const agent = await signedIn(t.app, owner.email);
+      expect((await agent.get('/api/clients')).status).toBe(200);
+      await t.knex('session').where('sid', agent.sessionId).update({ expire: t.knex.raw("now() - interval '1 second'") });
+      const res = await agent.get('/api/clients');
+      expect(res.status).toBe(401);
+      expect(res.body.error.message).toMatch(/sign in/i);
+      expect((await agent.get('/api/auth/me')).body.user).toBeNull();
+    });
+
+    it('lasts 12 hours from the last request, in the cookie and in the database', async () => {
+      const agent = await signedIn(t.app, owner.email);
+      expect(await expiresIn(t, agent.sessionId)).toBeGreaterThan(12 * 3600 - 60);
+      const res = await agent.get('/api/clients');
+      const cookie = String(res.headers['set-cookie']);
+      const expires = Date.parse(/ks\.sid=[^;]+;[^,]*?Expires=([^;]+)/.exec(cookie)![1]!);
+      expect(expires - Date.now()).toBeGreaterThan(12 * 3600 * 1000 - 60_000);
+      expect(expires - Date.now()).toBeLessThanOrEqual(12 * 3600 * 1000);
+    });
+
+    it('writes an unchanged session row at most once a minute, not on every request', async () => {
+      const agent = await signedIn(t.app, owner.email);
+      // Pretend the row is about to expire; requests within the minute after sign-in leave it alone.
+      await t.knex('session').where('sid', agent.sessionId).update({ expire: t.knex.raw("now() + interval '10 minutes'") });
+      for (let i = 0; i < 3; i++) expect((await agent.get('/api/clients')).status).toBe(200);
+      expect(await expiresIn(t, agent.sessionId)).toBeLessThan(11 * 60);
+    });
+  });
+
+  describe('with a shorter limit and every request writing the expiry', () => {
+    let t: TestApp;
+    let owner: { id: number; email: string };
+    beforeAll(async () => {
+      t = await startTestApp({ sessionIdleMinutes: 30, sessionTouchSeconds: 0 });
+      owner = await addUser(t.knex, 'owner');
+    });
+    afterAll(() => t.close());
+
+    it('moves the expiry on with each request, so a working maker is never signed out mid-job', async () => {
+      const agent = await signedIn(t.app, owner.email);
+      await t.knex('session').where('sid', agent.sessionId).update({ expire: t.knex.raw("now() + interval '1 minute'") });
+      expect((await agent.get('/api/clients')).status).toBe(200);
+      const left = await expiresIn(t, agent.sessionId);
+      expect(left).toBeGreaterThan(30 * 60 - 60);
+      expect(left).toBeLessThanOrEqual(30 * 60 + 2); // the store rounds the expiry to whole seconds
+    });
+  });
+});

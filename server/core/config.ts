@@ -23,6 +23,10 @@ const configSchema = z.object({
   /** Sign-in attempts allowed per client address in one window. */
   signInLimit: z.coerce.number().int().positive(),
   signInWindowMs: z.coerce.number().int().positive(),
+  /** A session ends after this many minutes without a request. */
+  sessionIdleMinutes: z.coerce.number().positive({ message: 'SESSION_IDLE_MINUTES must be a positive number of minutes' }),
+  /** An unchanged session's expiry is written to the database at most this often. */
+  sessionTouchSeconds: z.coerce.number().min(0, { message: 'SESSION_TOUCH_SECONDS must be 0 or more' }),
   /** Folder of the built Angular app; the server serves it when present. */
   webRoot: z.string().min(1),
   /** Folder of uploaded photos: outside the web root, never served directly. */
@@ -74,6 +78,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     secureCookies: env['SECURE_COOKIES'] === 'true',
     signInLimit: env['SIGN_IN_LIMIT'] ?? '10',
     signInWindowMs: env['SIGN_IN_WINDOW_MS'] ?? String(15 * 60 * 1000),
+    sessionIdleMinutes: env['SESSION_IDLE_MINUTES'] ?? '720',
+    sessionTouchSeconds: env['SESSION_TOUCH_SECONDS'] ?? '60',
     webRoot: env['WEB_ROOT'] ?? path.resolve(__dirname, '..', '..', 'dist', 'keepstitch', 'browser'),
     uploadDir: env['UPLOAD_DIR'] ?? path.join(DATA_DIR, 'uploads'),
     appUrl: env['APP_URL'] ?? `http://${env['HOST'] ?? '127.0.0.1'}:${env['PORT'] ?? '4300'}`,
