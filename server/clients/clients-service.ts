@@ -1,4 +1,5 @@
 import { AppError } from '../core/app-error';
+import { pageOf } from '../core/paging';
 import { UserModel } from '../users/user-model';
 import { ClientModel } from './client-model';
 import type { CreateClientInput, ListClientsQuery, UpdateClientInput } from './clients-schemas';
@@ -19,10 +20,8 @@ export async function listClients(user: Express.User, q: ListClientsQuery) {
   // Workroom users see names only, so they may only sort by name.
   const sort = user.role === 'workroom' ? 'name' : q.sort;
   const column = sort === 'name' ? ClientModel.raw('lower(name)') : sort;
-  const { results, total } = await query
-    .orderBy(column as string, q.dir)
-    .orderBy('id', q.dir)
-    .page(q.page, q.pageSize);
+  if (!query.hasSelects()) query.select('clients.*');
+  const { results, total } = await pageOf(query.orderBy(column as string, q.dir).orderBy('id', q.dir), q.page, q.pageSize);
   return { items: results, total };
 }
 

@@ -82,6 +82,11 @@ describe('clients API', () => {
     expect(page0.body.items.map((c: { name: string }) => c.name)).toEqual(['Fen Abbot', 'Fen Marsh']);
     const page1 = await owner.get('/api/clients?q=fen&pageSize=2&page=1&sort=name&dir=asc');
     expect(page1.body.items.map((c: { name: string }) => c.name)).toEqual(['fen zed']);
+    expect(page1.body.total).toBe(3);
+    expect(Object.keys(page1.body.items[0])).not.toContain('pageTotal');
+    // A page past the end is empty but still tells how many there are.
+    const past = await owner.get('/api/clients?q=fen&pageSize=2&page=5');
+    expect(past.body).toEqual({ items: [], total: 3 });
     const desc = await owner.get('/api/clients?q=FEN&sort=name&dir=desc');
     expect(desc.body.items[0].name).toBe('fen zed');
     const byPhone = await owner.get('/api/clients?q=900002');

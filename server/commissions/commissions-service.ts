@@ -1,6 +1,7 @@
 import { cautionsFor, checkStageMove, featuresToRemove, nextStages, stageIndex, type Stage, type StageFacts, type WorkStage } from '@keepstitch/shared';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
+import { pageOf } from '../core/paging';
 import { daysBetween, today } from '../core/calendar';
 import { ClientModel } from '../clients/client-model';
 import { GarmentModel, PanelModel } from '../garments/garment-model';
@@ -44,9 +45,10 @@ function shape(c: CommissionModel, user: Express.User) {
 }
 
 export async function listCommissions(user: Express.User, q: ListCommissionsQuery) {
-  const query = CommissionModel.query().modify('visibleTo', user).withGraphJoined('client(names)').modifiers({
-    names: (b) => b.select('id', 'name'),
-  });
+  const query = CommissionModel.query()
+    .modify('visibleTo', user)
+    .join('clients as client', 'client.id', 'commissions.clientId')
+    .select('commissions.*', 'client.name as clientName');
   if (q.stage?.length) query.whereIn('commissions.stage', q.stage);
   if (q.clientId) query.where('commissions.clientId', q.clientId);
   if (q.dueWithinDays !== undefined) {
@@ -66,8 +68,11 @@ export async function listCommissions(user: Express.User, q: ListCommissionsQuer
     query.orderBy(column, q.dir, q.dir === 'asc' ? 'last' : 'first');
   }
   query.orderBy('commissions.id', q.dir);
-  const { results, total } = await query.page(q.page, q.pageSize);
-  return { items: results.map((c) => shape(c, user)), total };
+  const { results, total } = await pageOf(query, q.page, q.pageSize);
+  return {
+    items: results.map((c) => ({ ...shape(c, user), client: { id: c.clientId, name: (c as CommissionModel & { clientName: string }).clientName } })),
+    total,
+  };
 }
 
 async function findVisible(user: Express.User, id: number, trx?: Knex.Transaction) {

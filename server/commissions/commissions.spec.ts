@@ -128,6 +128,11 @@ describe('commissions API', () => {
     expect(due.body.items[1]).toMatchObject({ overdue: false, daysLeft: 5 });
     const paged = await owner.get('/api/commissions?q=zinnia&pageSize=1&page=1&sort=title');
     expect(paged.body.items.map((c: { title: string }) => c.title)).toEqual(['Zinnia wall hanging']);
+    expect(paged.body.total).toBe(2);
+    expect(paged.body.items[0].client).toEqual({ id: clientBId, name: expect.any(String) });
+    expect(Object.keys(paged.body.items[0])).not.toContain('pageTotal');
+    expect(Object.keys(paged.body.items[0])).not.toContain('clientName');
+    expect((await owner.get('/api/commissions?q=zinnia&pageSize=1&page=9')).body).toEqual({ items: [], total: 2 });
     expect((await owner.get('/api/commissions?stage=nowhere')).status).toBe(400);
   });
 
