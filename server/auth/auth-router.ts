@@ -4,7 +4,8 @@ import rateLimit from 'express-rate-limit';
 import { AppError } from '../core/app-error';
 import { securedRouter } from '../core/secured-router';
 import { parseInput } from '../core/validate';
-import { signInSchema } from './auth-schemas';
+import { changePasswordSchema, signInSchema } from './auth-schemas';
+import { changeOwnPassword } from '../users/users-service';
 import type { createCsrf } from './csrf';
 
 interface AuthRouterOptions {
@@ -52,6 +53,19 @@ export function authRouter({ csrf, signInLimit, signInWindowMs, sessionCookieNam
         res.json({ user });
       });
     })(req, res, next);
+  });
+
+  // Guessing the current password is limited like guessing at sign-in.
+  r.post('/password', limiter, async (req, res, next) => {
+    const { currentPassword, newPassword } = parseInput(changePasswordSchema, req.body, 'password');
+    const user = req.user!;
+    await changeOwnPassword(user.id, currentPassword, newPassword);
+    // Every session has ended, this one too: start a new one so whoever changed it stays signed in.
+    req.login(user, (loginErr) => {
+      if (loginErr) return next(loginErr);
+      csrf.issueToken(req, res, true);
+      res.json({ user });
+    });
   });
 
   r.post('/sign-out', (req, res, next) => {

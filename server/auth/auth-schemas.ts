@@ -1,3 +1,4 @@
+import { PASSWORD_LENGTH } from '@keepstitch/shared';
 import { z } from 'zod';
 
 export const signInSchema = z
@@ -10,5 +11,13 @@ export const signInSchema = z
 /** The rule for every password set in Keepstitch. */
 export const passwordSchema = z
   .string({ message: 'Enter a password.' })
-  .min(10, 'Use at least 10 characters for a password.')
-  .max(200, 'A password can be at most 200 characters.');
+  .min(PASSWORD_LENGTH.min, `Use at least ${PASSWORD_LENGTH.min} characters for a password.`)
+  .max(PASSWORD_LENGTH.max, `A password can be at most ${PASSWORD_LENGTH.max} characters.`);
+
+export const changePasswordSchema = z
+  .object({
+    currentPassword: z.string({ message: 'Enter your current password.' }).min(1, 'Enter your current password.').max(200),
+    newPassword: passwordSchema,
+  })
+  .strict()
+  .refine((b) => b.newPassword !== b.currentPassword, { message: 'Choose a new password that differs from the current one.', path: ['newPassword'] });

@@ -81,6 +81,37 @@ describe('sign-in, sessions and CSRF', () => {
     expect((await new ApiAgent(t.app).signIn(assistant.email, 'a brand new password')).status).toBe(200);
   });
 
+  it('lets a signed-in user change their own password: their other sessions end, this one goes on', async () => {
+    const maker = await addUser(t.knex, 'client');
+    const here = await signedIn(t.app, maker.email);
+    const elsewhere = await signedIn(t.app, maker.email);
+    const res = await here.post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'a fresh long password' });
+    expect(res.status).toBe(200);
+    expect(res.body.user.id).toBe(maker.id);
+    expect((await here.get('/api/auth/me')).body.user.id).toBe(maker.id);
+    expect((await here.post('/api/auth/sign-out')).status).toBe(204); // the fresh CSRF token works
+    expect((await elsewhere.get('/api/auth/me')).body.user).toBeNull();
+    expect((await new ApiAgent(t.app).signIn(maker.email)).status).toBe(401);
+    expect((await new ApiAgent(t.app).signIn(maker.email, 'a fresh long password')).status).toBe(200);
+  });
+
+  it('refuses a password change without the right current password, and keeps the old one', async () => {
+    const maker = await addUser(t.knex, 'workroom');
+    const agent = await signedIn(t.app, maker.email);
+    const wrong = await agent.post('/api/auth/password', { currentPassword: 'not my password', newPassword: 'a fresh long password' });
+    expect(wrong.status).toBe(400);
+    expect(wrong.body.error.fields).toEqual({ currentPassword: 'This is not your current password.' });
+    const same = await agent.post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: TEST_PASSWORD });
+    expect(same.status).toBe(400);
+    expect(same.body.error.fields.newPassword).toMatch(/differs/);
+    const short = await agent.post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'short' });
+    expect(short.body.error.fields.newPassword).toMatch(/at least 10/);
+    expect((await agent.get('/api/clients')).status).toBe(200);
+    expect((await new ApiAgent(t.app).signIn(maker.email)).status).toBe(200);
+    const anonymous = await new ApiAgent(t.app).start();
+    expect((await anonymous.post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'a fresh long password' })).status).toBe(401);
+  });
+
   it('validates the sign-in body', async () => {
     const a = await new ApiAgent(t.app).start();
     const res = await a.post('/api/auth/sign-in', { email: '', extra: 1 });

@@ -20,6 +20,7 @@ export const ROUTE_POLICY = {
   'GET /api/auth/me': EVERYONE,
   'POST /api/auth/sign-in': EVERYONE,
   'POST /api/auth/sign-out': EVERYONE,
+  'POST /api/auth/password': SIGNED_IN,
 
   'GET /api/clients': SIGNED_IN,
   'POST /api/clients': OWNER,

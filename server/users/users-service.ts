@@ -1,5 +1,5 @@
 import { AppError } from '../core/app-error';
-import { hashPassword } from '../auth/password';
+import { hashPassword, verifyPassword } from '../auth/password';
 import { ClientModel } from '../clients/client-model';
 import { UserModel, type PublicUser } from './user-model';
 import type { CreateUserInput } from './users-schemas';
@@ -34,4 +34,15 @@ export async function resetPassword(id: number, password: string): Promise<void>
     if (!count) throw AppError.notFound('That user');
     await trx.raw(`DELETE FROM session WHERE (sess -> 'passport' -> 'user' ->> 'id')::int = ?`, [id]);
   });
+}
+
+/** A signed-in user changes their own password, proving the current one; every session of theirs ends. */
+export async function changeOwnPassword(id: number, currentPassword: string, newPassword: string): Promise<void> {
+  const user = await UserModel.query().findById(id);
+  if (!user || !(await verifyPassword(currentPassword, user.passwordHash))) {
+    throw new AppError(400, 'validation', 'The current password is not right, so the password was not changed.', {
+      currentPassword: 'This is not your current password.',
+    });
+  }
+  await resetPassword(id, newPassword);
 }

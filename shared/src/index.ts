@@ -1,6 +1,9 @@
 // Public API of the domain maths package. Each concept lives in its own file.
 export * from './workflow/index';
 
+// Sign-in rules shared by the forms and the server.
+export * from './password-rule';
+
 // Measures: exact lengths, reading, rounding and showing them.
 export * from './errors';
 export * from './measure';
