@@ -22,11 +22,18 @@ export async function listPayments(user: Express.User, commissionId: number) {
   return rows.map(paymentView);
 }
 
+/**
+ * Starts a hosted checkout. The payment's id is reserved first (the provider
+ * keeps it as its reference) and its row written only once the provider has
+ * made the session, so a provider that is down, or falls over mid-call, leaves
+ * no row behind.
+ */
 async function startCheckout(provider: Stripe, config: AppConfig, p: { user: Express.User; commissionId: number; quote: QuoteModel; kind: 'deposit' | 'balance'; amountPence: number }) {
   const commission = (await CommissionModel.query().findById(p.commissionId))!;
   const client = await ClientModel.query().findById(commission.clientId);
   const settings = await StudioSettingsModel.current();
-  const payment = await PaymentModel.query().insertAndFetch({ commissionId: p.commissionId, quoteId: p.quote.id, kind: p.kind, amountPence: p.amountPence, status: 'pending' });
+  const reserved = await PaymentModel.knex().raw<{ rows: Array<{ id: string }> }>(`SELECT nextval(pg_get_serial_sequence('payments', 'id')) AS id`);
+  const paymentId = Number(reserved.rows[0]!.id);
   const back = `${config.appUrl}/portal/${p.commissionId}`;
   let session: Stripe.Checkout.Session;
   try {
@@ -35,16 +42,15 @@ async function startCheckout(provider: Stripe, config: AppConfig, p: { user: Exp
       line_items: [{ quantity: 1, price_data: { currency: 'gbp', unit_amount: p.amountPence, product_data: { name: `${settings.studioName}: ${p.kind} for ${commission.title}` } } }],
       success_url: `${back}?payment=done`,
       cancel_url: `${back}?payment=cancelled`,
-      client_reference_id: String(payment.id),
+      client_reference_id: String(paymentId),
       customer_email: client?.email ?? undefined,
-      metadata: { paymentId: String(payment.id), commissionId: String(p.commissionId), kind: p.kind },
+      metadata: { paymentId: String(paymentId), commissionId: String(p.commissionId), kind: p.kind },
     });
   } catch (err) {
-    await PaymentModel.query().patch({ status: 'failed' }).findById(payment.id);
     console.error('Payment provider:', (err as Error).message);
     throw new AppError(503, 'payments_unavailable', 'The card payment service is not answering. Nothing was charged; please try again in a few minutes.');
   }
-  await PaymentModel.query().patch({ checkoutSessionId: session.id }).findById(payment.id);
+  await PaymentModel.query().insert({ id: paymentId, commissionId: p.commissionId, quoteId: p.quote.id, kind: p.kind, amountPence: p.amountPence, status: 'pending', checkoutSessionId: session.id });
   return { url: session.url! };
 }
 

@@ -6,6 +6,7 @@ import { FAKE_PAYMENTS_WEBHOOK_SECRET } from '../core/config';
 import { ApiAgent, addUser, signedIn, startTestApp, type TestApp } from '../testing/test-app';
 import { addCommission } from '../testing/fixtures';
 import { sendQuote } from '../testing/money-fixtures';
+import { tableFingerprints } from '../testing/table-fingerprints';
 
 describe('payments through the provider SDK and its webhooks', () => {
   let fake: FakePayments;
@@ -32,11 +33,17 @@ describe('payments through the provider SDK and its webhooks', () => {
     data: { object: { id: sessionId, object: 'checkout.session', payment_status: 'paid', amount_total: amount, payment_intent: `pi_${sessionId}` } },
   });
 
-  /** An accepted quote with a deposit checkout started; returns the session the fake made. */
-  async function acceptedWithCheckout(kind: 'deposit' | 'balance' = 'deposit') {
+  /** A quote the client has accepted, its deposit not asked for yet. */
+  async function acceptedQuote() {
     const commission = await addCommission(t.knex, clientId);
     const q = await sendQuote(owner, commission);
     await client.post(`/api/quotes/${q.id}/accept`, { name: 'Nell Ashby' });
+    return { commission, q };
+  }
+
+  /** An accepted quote with a deposit checkout started; returns the session the fake made. */
+  async function acceptedWithCheckout(kind: 'deposit' | 'balance' = 'deposit') {
+    const { commission, q } = await acceptedQuote();
     const res = await client.post(`/api/quotes/${q.id}/deposit-checkout`);
     expect(res.status).toBe(200);
     const sessionId = new URL(res.body.url).pathname.split('/').pop()!;
@@ -158,5 +165,55 @@ describe('payments through the provider SDK and its webhooks', () => {
     expect((await workroom.get(`/api/commissions/${commission}/payments`)).status).toBe(403);
     expect((await other.get(`/api/commissions/${commission}/payments`)).status).toBe(404);
     expect((await other.post(`/api/quotes/${quote.id}/deposit-checkout`)).status).toBe(404);
+  });
+
+  describe('while the payment service is down', () => {
+    const unchanged = () => tableFingerprints(t.url, ['session']);
+    const NOT_ANSWERING = { code: 'payments_unavailable', message: 'The card payment service is not answering. Nothing was charged; please try again in a few minutes.' };
+    afterEach(() => fake.start());
+
+    it('answers a deposit checkout with 503 saying nothing was charged, writes nothing, and takes the deposit once the service is back', async () => {
+      const { commission, q } = await acceptedQuote();
+      await fake.stop();
+      const before = await unchanged();
+      const res = await client.post(`/api/quotes/${q.id}/deposit-checkout`);
+      expect(res.status).toBe(503);
+      expect(res.body.error).toEqual(NOT_ANSWERING);
+      expect(await unchanged()).toEqual(before);
+
+      await fake.start();
+      const again = await client.post(`/api/quotes/${q.id}/deposit-checkout`);
+      expect(again.status).toBe(200);
+      expect(await fake.pay(new URL(again.body.url).pathname.split('/').pop()!)).toBe(200);
+      expect(await t.knex('payments').where({ commissionId: commission })).toEqual([expect.objectContaining({ kind: 'deposit', status: 'paid' })]);
+      expect(await t.knex('stageMoves').where({ commissionId: commission, toStage: 'booked' })).toHaveLength(1);
+    });
+
+    it('answers 503 and writes nothing when the service falls over in the middle of the call', async () => {
+      const { q } = await acceptedQuote();
+      const before = await unchanged();
+      const arrived = fake.hold();
+      const answer = client.post(`/api/quotes/${q.id}/deposit-checkout`);
+      await arrived;
+      await fake.stop();
+      const res = await answer;
+      expect(res.status).toBe(503);
+      expect(res.body.error).toEqual(NOT_ANSWERING);
+      expect(await unchanged()).toEqual(before);
+    });
+
+    it('answers a refund with 503 and leaves the deposit paid', async () => {
+      const { commission, sessionId } = await acceptedWithCheckout();
+      await fake.pay(sessionId);
+      await owner.post(`/api/commissions/${commission}/stage`, { to: 'cancelled', note: 'Client moved abroad' });
+      await fake.stop();
+      const before = await unchanged();
+      const res = await owner.post(`/api/commissions/${commission}/refund-deposit`);
+      expect(res.status).toBe(503);
+      expect(res.body.error.message).toBe('The card payment service did not accept the refund just now. Nothing changed; try again shortly.');
+      expect(await unchanged()).toEqual(before);
+      await fake.start();
+      expect((await owner.post(`/api/commissions/${commission}/refund-deposit`)).body).toMatchObject({ kind: 'deposit', status: 'refunded' });
+    });
   });
 });
