@@ -65,7 +65,8 @@ export function errorMiddleware(log: (err: unknown) => void = (err) => console.e
   return (err, _req, res, next) => {
     if (res.headersSent) return next(err);
     const appError = toAppError(err);
-    if (appError.status === 503) log(`Database not answering: ${(err as Error).message}`);
+    // A 503 of a service's own (the payment service, the mail server) names that service; any other is the database.
+    if (appError.status === 503) log(err instanceof AppError ? `Not answering (${appError.code}): ${appError.message}` : `Database not answering: ${(err as Error).message}`);
     else if (appError.status >= 500) log(err);
     const body: { code: string; message: string; fields?: Record<string, string> } = {
       code: appError.code,
