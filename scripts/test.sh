@@ -58,12 +58,19 @@ log "jest: shared maths and server (real PostgreSQL)"
 npx jest --ci --json --outputFile="$OUT/jest.json" 2>&1 | grep -v '^\s*$' | tail -n 60
 read -r p f < <(counts "$OUT/jest.json" jest); record "jest" "$p" "$f"
 
+# A fault run (each on a PostgreSQL cluster of its own), counted as one check.
+fault() { # label log-name lines command...
+  local label="$1" out="$OUT/$2.log" lines="$3"; shift 3
+  if "$@" >"$out" 2>&1; then
+    grep -v -e '^\s*at ' -e '^ok ' "$out" | tail -n "$lines"; record "fault: $label" 1 0
+  else
+    grep -v '^\s*at ' "$out" | tail -n 40; record "fault: $label" 0 1
+  fi
+}
 log "Faults: PostgreSQL stopped and started again under writes"
-if bash scripts/fault-db.sh >"$OUT/fault-db.log" 2>&1; then
-  grep -v '^\s*at ' "$OUT/fault-db.log" | tail -n 7; record "fault: db restart" 1 0
-else
-  tail -n 40 "$OUT/fault-db.log"; record "fault: db restart" 0 1
-fi
+fault "db restart" fault-db 7 bash scripts/fault-db.sh
+log "Faults: the server killed with SIGKILL mid-upload and started again"
+fault "upload kill" fault-upload 17 npm run --silent fault:upload
 
 log "karma: Angular components in headless Chromium"
 npx ng test --watch=false --progress=false 2>&1 | tail -n 40

@@ -48,6 +48,12 @@ export interface FakePayments {
   setWebhookUrl(url: string): void;
   /** Pays a session as the checkout page would (for tests), returning the webhook status. */
   pay(sessionId: string): Promise<number>;
+  /** Leaves API calls unanswered from now on; resolves when the first one arrives (a service falling over mid-call). */
+  hold(): Promise<void>;
+  /** Stops answering, cutting any call in flight, as a service that is down; its sessions are kept. */
+  stop(): Promise<void>;
+  /** Answers again on the same port after `stop()`, no longer holding calls. */
+  start(): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -92,6 +98,8 @@ export async function startFakePayments(options: { port?: number; webhookUrl: st
 
   // The provider's API, as far as the app uses it.
   const api = express.Router();
+  let held: (() => void) | null = null;
+  api.use((_req, _res, next) => (held ? held() : next()));
   api.use((req, res, next) => {
     if (req.get('authorization') !== `Bearer ${key}`) {
       res.status(401).json({ error: { type: 'invalid_request_error', message: 'Invalid API key provided.' } });
@@ -186,12 +194,22 @@ ${s.status === 'open' ? `<form method="post" action="/pay/${s.id}"><label for="c
     res.redirect(303, s.success_url.replace('{CHECKOUT_SESSION_ID}', s.id));
   });
 
-  const server: Server = await new Promise((resolve, reject) => {
-    const srv = app.listen(options.port ?? 0, '127.0.0.1', () => resolve(srv));
-    srv.once('error', reject);
-  });
+  const listen = (port: number) =>
+    new Promise<Server>((resolve, reject) => {
+      const srv = app.listen(port, '127.0.0.1', () => resolve(srv));
+      srv.once('error', reject);
+    });
+  let server: Server | null = await listen(options.port ?? 0);
   const port = (server.address() as AddressInfo).port;
   baseUrl = `http://127.0.0.1:${port}`;
+  const stop = () =>
+    new Promise<void>((r) => {
+      const s = server;
+      server = null;
+      if (!s) return r();
+      s.closeAllConnections();
+      s.close(() => r());
+    });
   return {
     port,
     baseUrl,
@@ -201,7 +219,13 @@ ${s.status === 'open' ? `<form method="post" action="/pay/${s.id}"><label for="c
       webhookUrl = url;
     },
     pay,
-    close: () => new Promise<void>((r) => { server.closeAllConnections(); server.close(() => r()); }),
+    hold: () => new Promise<void>((r) => (held = r)),
+    stop,
+    async start() {
+      held = null;
+      server ??= await listen(port);
+    },
+    close: stop,
   };
 }
 

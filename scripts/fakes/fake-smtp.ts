@@ -27,6 +27,8 @@ export interface FakeSmtp {
   smtpPort: number;
   apiPort: number;
   mails: CaughtMail[];
+  /** Resolves when the next message starts arriving (to stop the server in the middle of a delivery). */
+  receiving(): Promise<void>;
   /** Stops answering SMTP (as a mail server that is down); the API keeps going. */
   stopSmtp(): Promise<void>;
   startSmtp(): Promise<void>;
@@ -43,6 +45,7 @@ function listen(server: { listen: (port: number, host: string, cb: () => void) =
 export async function startFakeSmtp(options: { smtpPort?: number; apiPort?: number; quiet?: boolean } = {}): Promise<FakeSmtp> {
   const mails: CaughtMail[] = [];
   let nextId = 1;
+  let arriving: (() => void) | null = null;
 
   const makeSmtp = () =>
     new SMTPServer({
@@ -51,6 +54,8 @@ export async function startFakeSmtp(options: { smtpPort?: number; apiPort?: numb
       logger: false,
       size: 30 * 1024 * 1024,
       onData(stream, session, callback) {
+        arriving?.();
+        arriving = null;
         simpleParser(stream)
           .then((parsed) => {
             const to = session.envelope.rcptTo.map((r) => r.address);
@@ -107,6 +112,7 @@ export async function startFakeSmtp(options: { smtpPort?: number; apiPort?: numb
     smtpPort,
     apiPort,
     mails,
+    receiving: () => new Promise<void>((r) => (arriving = r)),
     async stopSmtp() {
       if (!smtpUp) return;
       smtpUp = false;

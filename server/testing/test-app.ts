@@ -85,14 +85,17 @@ function cookieValue(res: request.Response, name: string): string | undefined {
   return undefined;
 }
 
-/** A cookie-keeping client of the API that sends the CSRF header as the Angular app does. */
+/**
+ * A cookie-keeping client of the API that sends the CSRF header as the Angular
+ * app does: of an app in this process, or of a server's address.
+ */
 export class ApiAgent {
   readonly agent;
   csrf = '';
   /** The raw session cookie value last set by the server. */
   sessionCookie = '';
 
-  constructor(app: Express) {
+  constructor(app: Express | string) {
     this.agent = request.agent(app);
   }
 
@@ -100,6 +103,11 @@ export class ApiAgent {
     this.csrf = cookieValue(res, 'XSRF-TOKEN') ?? this.csrf;
     this.sessionCookie = cookieValue(res, 'ks.sid') ?? this.sessionCookie;
     return res;
+  }
+
+  /** The headers that make a request of this agent's session, for a request sent some other way. */
+  get headers(): Record<string, string> {
+    return { Cookie: `ks.sid=${encodeURIComponent(this.sessionCookie)}; XSRF-TOKEN=${encodeURIComponent(this.csrf)}`, 'X-XSRF-TOKEN': this.csrf };
   }
 
   /** The session id inside the signed session cookie. */
@@ -132,7 +140,7 @@ export class ApiAgent {
 }
 
 /** Signs in a new agent as the given user. */
-export async function signedIn(app: Express, email: string): Promise<ApiAgent> {
+export async function signedIn(app: Express | string, email: string): Promise<ApiAgent> {
   const agent = new ApiAgent(app);
   const res = await agent.signIn(email);
   if (res.status !== 200) throw new Error(`Sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
