@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import Decimal from 'decimal.js';
-import { COLOUR_RUN, CONSTRUCTION, FEATURE, FIBRE, GRAIN, Length, PREWASH, PRINT, formatLength, type PanelFeature } from '@keepstitch/shared';
+import { COLOUR_RUN, CONSTRUCTION, FEATURE, FIBRE, GRAIN, KEPT_FEATURE_LIMITS, Length, PREWASH, PRINT, formatLength, type PanelFeature } from '@keepstitch/shared';
 import { optionalText } from '../core/validate';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 
@@ -9,7 +9,7 @@ const oneOf = (values: readonly string[], message: string) => z.enum(values as [
 const featureSchema = z
   .object({
     kind: oneOf(FEATURE.values, 'Choose the kind of feature.'),
-    position: z.string().trim().max(200, 'A position can be at most 200 characters.').default(''),
+    position: z.string().trim().max(KEPT_FEATURE_LIMITS.position, `A position can be at most ${KEPT_FEATURE_LIMITS.position} characters.`).default(''),
   })
   .strict();
 
@@ -22,7 +22,7 @@ const garmentFields = {
   colour: optionalText(100, 'Colour'),
   print: oneOf(PRINT.values, 'Choose the kind of print.').optional(),
   condition: optionalText(2000, 'Condition'),
-  features: z.array(featureSchema).max(20, 'At most 20 kept features.').optional(),
+  features: z.array(featureSchema).max(KEPT_FEATURE_LIMITS.features, `At most ${KEPT_FEATURE_LIMITS.features} kept features.`).optional(),
   prewash: oneOf(PREWASH.values, 'Choose the pre-wash status.').optional(),
   colourRun: oneOf(COLOUR_RUN.values, 'Choose the colour-run result.').optional(),
   returnsToClient: optionalText(1000, 'What returns to the client'),

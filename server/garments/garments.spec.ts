@@ -1,3 +1,4 @@
+import { KEPT_FEATURE_LIMITS } from '@keepstitch/shared';
 import { ApiAgent, addUser, signedIn, startTestApp, type TestApp } from '../testing/test-app';
 import { addCommission } from '../testing/fixtures';
 
@@ -66,6 +67,18 @@ describe('garments, custody and panels', () => {
     expect(detail.body.removeForSafety).toEqual([{ kind: 'buttons', position: 'front' }]);
     expect((await event({ kind: 'returned', returnMethod: 'post' })).body.error.fields.trackingRef).toBe('Give the tracking reference for a garment sent by post.');
     expect((await event({ kind: 'returned', returnMethod: 'post', trackingRef: 'TT123' })).body.state.status).toBe('returned');
+  });
+
+  it('keeps a kept feature\'s position up to the limit the forms share, and refuses one longer', async () => {
+    // KEPT_FEATURE_LIMITS.position in shared/: the intake stepper and the details form hold the same 200 characters.
+    expect(KEPT_FEATURE_LIMITS.position).toBe(200);
+    const at = 'x'.repeat(KEPT_FEATURE_LIMITS.position);
+    const ok = await owner.post(`/api/commissions/${commissionA}/garments`, { description: 'Long-noted shirt', features: [{ kind: 'pocket', position: at }] });
+    expect(ok.status).toBe(201);
+    expect(ok.body.features).toEqual([{ kind: 'pocket', position: at }]);
+    const over = await workroom.patch(`/api/garments/${ok.body.id}`, { features: [{ kind: 'pocket', position: `${at}x` }] });
+    expect(over.status).toBe(400);
+    expect(over.body.error.fields['features.0.position']).toBe('A position can be at most 200 characters.');
   });
 
   it('lets the studio mark a fibre as not known', async () => {

@@ -66,3 +66,6 @@ export interface KeptFeature {
   /** Where on the garment, in the maker's words ("left chest"). */
   position: string;
 }
+
+/** Limits on a garment's kept features, the same for the forms and the server: characters of a position, features a garment. */
+export const KEPT_FEATURE_LIMITS = { position: 200, features: 20 } as const;

@@ -8,6 +8,7 @@ import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 
+import { labelledFields } from '../../testing/labelled-fields';
 import { GarmentDetail } from './commission';
 import { GarmentDetailsForm } from './garment-details-form';
 
@@ -50,9 +51,7 @@ describe('GarmentDetailsForm', () => {
 
   afterEach(() => httpMock.verify());
 
-  const field = (label: string) => loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }));
-  const input = async (label: string) => (await (await field(label)).getControl(MatInputHarness))!;
-  const select = async (label: string) => (await (await field(label)).getControl(MatSelectHarness))!;
+  const { field, input, select } = labelledFields(() => loader);
   const save = async () => (await loader.getHarness(MatButtonHarness.with({ text: 'Save details' }))).click();
 
   it('starts from the garment as it is, with an unknown fibre left unset', async () => {
@@ -134,5 +133,16 @@ describe('GarmentDetailsForm', () => {
     expect(await (await field('Description')).getTextErrors()).toEqual(['Say a little more about it.']);
     expect(await (await field('Where on the garment')).getTextErrors()).toEqual(['That place is taken.']);
     expect(saved).toEqual([]);
+  });
+
+  it('holds a position to the same 200 characters as intake and the server, and says so past it', async () => {
+    await open(shirt);
+    await (await input('Where on the garment')).setValue('x'.repeat(201));
+    await save();
+    httpMock.expectNone('/api/garments/21');
+    expect(await (await field('Where on the garment')).getTextErrors()).toEqual(['At most 200 characters.']);
+    await (await input('Where on the garment')).setValue('x'.repeat(200));
+    await save();
+    expect(httpMock.expectOne('/api/garments/21').request.body).toEqual({ features: [{ kind: 'pocket', position: 'x'.repeat(200) }] });
   });
 });

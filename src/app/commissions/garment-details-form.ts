@@ -12,7 +12,6 @@ import {
   Construction,
   FEATURE,
   FIBRE,
-  FeatureKind,
   Fibre,
   PREWASH,
   PRINT,
@@ -24,8 +23,7 @@ import { apiErrorOf, messageFor } from '../core/api-error';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { Feature, GarmentDetail, GarmentDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
-
-type FeatureForm = FormGroup<{ kind: FormControl<FeatureKind>; position: FormControl<string> }>;
+import { KeptFeatureForm, POSITION_LIMIT, keptFeatureForm } from './kept-feature-form';
 
 const TEXT_FIELDS = ['description', 'whose', 'story', 'colour', 'condition', 'returnsToClient'] as const;
 const CHOICE_FIELDS = ['fibre', 'construction', 'print', 'prewash', 'colourRun'] as const;
@@ -56,6 +54,7 @@ export class GarmentDetailsForm implements OnInit {
   protected readonly prewashes = PREWASH.options;
   protected readonly colourRuns = COLOUR_RUN.options;
   protected readonly featureKinds = FEATURE.options;
+  protected readonly positionLimit = POSITION_LIMIT;
 
   protected readonly form = new FormGroup({
     description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(300)] }),
@@ -66,7 +65,7 @@ export class GarmentDetailsForm implements OnInit {
     colour: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(100)] }),
     print: new FormControl<Print | null>(null),
     condition: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
-    features: new FormArray<FeatureForm>([]),
+    features: new FormArray<KeptFeatureForm>([]),
     prewash: new FormControl<Prewash | null>(null),
     colourRun: new FormControl<ColourRun | null>(null),
     returnsToClient: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(1000)] }),
@@ -99,13 +98,8 @@ export class GarmentDetailsForm implements OnInit {
     return value === null || value === undefined;
   }
 
-  protected addFeature(feature: Feature = { kind: 'pocket', position: '' }): void {
-    this.form.controls.features.push(
-      new FormGroup({
-        kind: new FormControl<FeatureKind>(feature.kind, { nonNullable: true }),
-        position: new FormControl(feature.position, { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),
-      }),
-    );
+  protected addFeature(feature?: Feature): void {
+    this.form.controls.features.push(keptFeatureForm(feature));
   }
 
   protected removeFeature(index: number): void {

@@ -13,7 +13,6 @@ import {
   Construction,
   FEATURE,
   FIBRE,
-  FeatureKind,
   Fibre,
   PREWASH,
   PRINT,
@@ -26,8 +25,7 @@ import { PhotoUpload } from '../shared/photo-upload';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { GarmentDetail, GarmentDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
-
-type FeatureForm = FormGroup<{ kind: FormControl<FeatureKind>; position: FormControl<string> }>;
+import { KeptFeatureForm, POSITION_LIMIT, keptFeatureForm } from './kept-feature-form';
 
 /**
  * Logging a garment in four short steps: what it is, fibre and care, the
@@ -62,6 +60,7 @@ export class GarmentIntake {
   protected readonly prewashes = PREWASH.options;
   protected readonly colourRuns = COLOUR_RUN.options;
   protected readonly featureKinds = FEATURE.options;
+  protected readonly positionLimit = POSITION_LIMIT;
 
   protected readonly what = new FormGroup({
     description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),
@@ -78,7 +77,7 @@ export class GarmentIntake {
     colourRun: new FormControl<ColourRun | null>(null),
     returnsToClient: new FormControl('', { nonNullable: true }),
   });
-  protected readonly features = new FormArray<FeatureForm>([]);
+  protected readonly features = new FormArray<KeptFeatureForm>([]);
 
   protected readonly saving = signal(false);
   protected readonly saved = signal<GarmentDetail | null>(null);
@@ -94,12 +93,7 @@ export class GarmentIntake {
   }
 
   protected addFeature(): void {
-    this.features.push(
-      new FormGroup({
-        kind: new FormControl<FeatureKind>('pocket', { nonNullable: true }),
-        position: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(120)] }),
-      }),
-    );
+    this.features.push(keptFeatureForm());
   }
 
   protected removeFeature(index: number): void {
