@@ -47,6 +47,10 @@ describe('design, cut plan and printouts, end to end', () => {
     await page.getByTestId('client-answer').filter({ hasText: 'tucks under the pillows' }).waitFor();
     expect(await drawing.locator('polygon[data-position="0"]').count()).toBe(22); // hand-worked: background + 20 blades + centre
     await page.getByTestId('yield-row').first().waitFor();
+    // The demo's green flannel has a breast pocket kept whole: the drawing marks the block that holds it, and says so.
+    await drawing.locator('[data-testid="kept-mark"]').first().waitFor();
+    expect(await drawing.locator('[data-testid="kept-mark"]').first().getAttribute('aria-label')).toMatch(/^Block \d+ keeps the breast pocket from the Green checked flannel shirt$/);
+    await page.getByTestId('kept-legend').filter({ hasText: 'keeps the breast pocket' }).waitFor();
     await screenshot(page, 'design-page');
 
     // Build: twelve rows of blocks, far more than the garments hold (even with garments other specs add);
@@ -78,6 +82,8 @@ describe('design, cut plan and printouts, end to end', () => {
     await page.waitForURL(/\/cut-list$/);
     await page.getByTestId('cut-list-meta').filter({ hasText: 'design version 3' }).waitFor();
     await page.getByTestId('cut-source').filter({ hasText: 'From the Blue oxford work shirt' }).waitFor();
+    await page.getByTestId('cut-source').filter({ hasText: 'From the Green checked flannel shirt' }).getByTestId('kept-note').filter({ hasText: 'keeps the breast pocket from the Green checked flannel shirt, centred' }).waitFor();
+    expect(await page.getByTestId('kept-piece').count()).toBe(1);
     await page.emulateMedia({ media: 'print' });
     await screenshot(page, 'cut-list-print');
     await page.emulateMedia({ media: 'screen' });
@@ -113,6 +119,13 @@ describe('design, cut plan and printouts, end to end', () => {
     await page.getByRole('checkbox', { name: 'Navy knit polo' }).check();
     await page.getByRole('button', { name: 'Add group' }).click();
     await page.getByTestId('group-row').filter({ hasText: 'The blues' }).filter({ hasText: 'not given to anything yet' }).waitFor();
+    // A second group, given to nothing: it is kept with the design all the same.
+    await page.getByRole('button', { name: 'New group' }).click();
+    await page.getByLabel('Group name').fill('Checks and stripes');
+    await page.getByRole('checkbox', { name: 'Green checked flannel shirt' }).check();
+    await page.getByRole('checkbox', { name: 'Red and grey striped shirt' }).check();
+    await page.getByRole('button', { name: 'Add group' }).click();
+    await page.getByTestId('group-row').filter({ hasText: 'Checks and stripes' }).waitFor();
 
     // Given to block 2 by dragging the group's chip, and to block 3 from the block's menu with the keyboard alone.
     await drag(page, '[data-testid="fabric-chip"]:has-text("The blues")', '[data-testid="position-tile"][data-position="1"]');
@@ -135,6 +148,7 @@ describe('design, cut plan and printouts, end to end', () => {
     await version.filter({ hasText: `Version ${before + 1}` }).waitFor();
     await page.reload();
     await page.getByTestId('group-row').filter({ hasText: 'The blues' }).filter({ hasText: 'Blue oxford work shirt, Navy knit polo' }).waitFor();
+    await page.getByTestId('group-row').filter({ hasText: 'Checks and stripes' }).filter({ hasText: 'not given to anything yet' }).waitFor();
     expect(await page.locator('svg[data-testid="quilt-drawing"] polygon[data-position="2"][data-fill^="group:"]').count()).toBeGreaterThan(0);
 
     // The sewing order and the full-size templates, as they print.

@@ -1,5 +1,5 @@
-import { Model } from 'objection';
-import type { DesignBody, DesignDerivation, DesignPlanSummary } from '@keepstitch/shared';
+import { Model, type Pojo } from 'objection';
+import { upgradeStoredDesign, type DesignBody, type DesignDerivation, type DesignPlanSummary, type StoredDesignBody } from '@keepstitch/shared';
 
 export type ClientResponse = 'approved' | 'changes_requested';
 
@@ -22,5 +22,16 @@ export class DesignVersionModel extends Model {
 
   static override get jsonAttributes() {
     return ['body', 'derived', 'plan'];
+  }
+
+  /** A version saved before designs listed their groups of garments is read with the list, as if saved today. */
+  override $parseDatabaseJson(json: Pojo): Pojo {
+    const row = super.$parseDatabaseJson(json);
+    if (row['body']) {
+      const { body, derived } = upgradeStoredDesign(row['body'] as StoredDesignBody, row['derived'] as DesignDerivation | undefined);
+      row['body'] = body;
+      if (derived) row['derived'] = derived;
+    }
+    return row;
   }
 }

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { BLOCK_KINDS } from '@keepstitch/shared';
+import { BLOCK_KINDS, GARMENT_GROUP_ID, GARMENT_GROUP_LIMITS, garmentGroupProblems, type DesignBody } from '@keepstitch/shared';
 import { optionalText } from '../core/validate';
 
 /** An exact length in millimetres as a decimal string, above zero and at most 50 m. */
@@ -11,11 +11,23 @@ const mm = (label: string) =>
 const id = z.number().int().positive();
 const count = (label: string, max: number) => z.number({ message: `${label} must be a whole number.` }).int(`${label} must be a whole number.`).min(1, `${label} must be at least 1.`).max(max, `${label} can be at most ${max}.`);
 
+const groupId = z.string({ message: 'A group id is required.' }).regex(GARMENT_GROUP_ID, 'A group id is lower-case letters, digits and dashes, such as g1.');
+
 const fabricSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('garment'), garmentId: id }).strict(),
-  z.object({ kind: z.literal('group'), name: z.string().trim().min(1).max(100), garmentIds: z.array(id).min(1).max(100) }).strict(),
+  z.object({ kind: z.literal('group'), groupId }).strict(),
   z.object({ kind: z.literal('stock'), stockId: id }).strict(),
 ]);
+
+const { name: groupName, garments: groupGarments, groups: groupCount } = GARMENT_GROUP_LIMITS;
+/** A group of garments; it may have none yet (the planner can then cut nothing from it). */
+const groupSchema = z
+  .object({
+    id: groupId,
+    name: z.string({ message: 'Name the group.' }).trim().min(1, 'Name the group.').max(groupName, `A group name can be at most ${groupName} characters.`),
+    garmentIds: z.array(id).max(groupGarments, `A group can hold at most ${groupGarments} garments.`),
+  })
+  .strict();
 
 const blockSchema = z
   .object({
@@ -48,6 +60,7 @@ export const designBodySchema = z
       .strict(),
     blocks: z.array(blockSchema).min(1, 'Add at least one block.').max(12, 'At most 12 block kinds.'),
     pattern: z.array(z.string().max(4)).max(3600),
+    groups: z.array(groupSchema).max(groupCount, `At most ${groupCount} groups of garments.`).default([]),
     assignments: z
       .array(
         z
@@ -73,7 +86,11 @@ export const designBodySchema = z
       .strict(),
     rules: z.object({ minimumPerGarment: z.number().int().min(0).max(100) }).strict(),
   })
-  .strict();
+  .strict()
+  .superRefine((body, ctx) => {
+    // Ids and names of their own, and every group an assignment names is in the list.
+    for (const [path, message] of Object.entries(garmentGroupProblems(body as DesignBody))) ctx.addIssue({ code: 'custom', path: path.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : p)), message });
+  });
 
 export const saveDesignSchema = z.object({ body: designBodySchema, note: optionalText(1000, 'Note') }).strict();
 

@@ -4,8 +4,14 @@ import {
   deriveDesign,
   fabricColour,
   fabricKey,
+  garmentColour,
+  garmentGroups,
+  groupLegendEntry,
+  keptFeaturePieces,
+  keptFeaturePlaces,
   planDesign,
   type DesignBody,
+  type DesignPlanSummary,
   type DesignSources,
   type FabricRef,
 } from '@keepstitch/shared';
@@ -40,22 +46,41 @@ export async function designSources(commissionId: number): Promise<DesignSources
   };
 }
 
-/** Every fabric a design may name, with the colour it is drawn in: garments of the commission and the stock. */
-function fabricLegend(sources: DesignSources, body?: DesignBody) {
-  const items: { key: string; kind: 'garment' | 'stock' | 'group'; id: number | null; name: string; colour: string | null; hex: string; detail: string }[] = [];
+export interface LegendItem {
+  key: string;
+  kind: 'garment' | 'stock' | 'group';
+  id: number | null;
+  name: string;
+  colour: string | null;
+  /** The colour it is drawn in; for a group, the mean of its stripes. */
+  hex: string;
+  /** A group only: drawn in stripes of its garments' colours. */
+  stripes?: string[];
+  detail: string;
+}
+
+/**
+ * Every fabric a design may name, with the colour it is drawn in: garments of
+ * the commission, the stock, and the design's groups (given to something or
+ * not yet), each in stripes of its garments' colours as the app draws them.
+ */
+function fabricLegend(sources: DesignSources, body?: DesignBody): LegendItem[] {
+  const items: LegendItem[] = [];
+  const garmentHex = new Map<number, string>();
   for (const g of sources.garments) {
-    items.push({ key: fabricKey({ kind: 'garment', garmentId: g.id }), kind: 'garment', id: g.id, name: g.description, colour: g.colour, hex: fabricColour(`${g.colour ?? ''} ${g.description}`), detail: `${g.panels.length} panel${g.panels.length === 1 ? '' : 's'}${g.print === 'directional' ? ', directional print' : ''}${g.construction === 'knit' ? ', knit' : ''}` });
+    garmentHex.set(g.id, garmentColour(g));
+    items.push({ key: fabricKey({ kind: 'garment', garmentId: g.id }), kind: 'garment', id: g.id, name: g.description, colour: g.colour, hex: garmentHex.get(g.id)!, detail: `${g.panels.length} panel${g.panels.length === 1 ? '' : 's'}${g.print === 'directional' ? ', directional print' : ''}${g.construction === 'knit' ? ', knit' : ''}` });
   }
   for (const s of sources.stock) {
     items.push({ key: fabricKey({ kind: 'stock', stockId: s.id }), kind: 'stock', id: s.id, name: s.name, colour: s.colour, hex: fabricColour(`${s.colour ?? ''} ${s.name}`), detail: 'studio fabric' });
   }
-  const groups = new Map<string, FabricRef & { kind: 'group' }>();
-  for (const a of body?.assignments ?? []) if (a.fabric.kind === 'group') groups.set(fabricKey(a.fabric), a.fabric);
-  for (const [key, g] of groups) {
-    const first = sources.garments.find((x) => x.id === g.garmentIds[0]);
-    items.push({ key, kind: 'group', id: null, name: g.name, colour: null, hex: fabricColour(`${first?.colour ?? ''} ${first?.description ?? g.name}`), detail: `any of ${g.garmentIds.length} garments` });
-  }
+  for (const g of body ? garmentGroups(body) : []) items.push({ ...groupLegendEntry(g, (id) => garmentHex.get(id)), kind: 'group', id: null, colour: null });
   return items;
+}
+
+/** A plan with its kept features listed: plans stored before they were are read from their placements. */
+function withKeptFeatures(plan: DesignPlanSummary, sources: DesignSources): DesignPlanSummary {
+  return plan.keptFeatures ? plan : { ...plan, keptFeatures: keptFeaturePieces(plan, sources) };
 }
 
 /** Checks every fabric the design names is a garment of this commission or a stock fabric. */
@@ -66,9 +91,11 @@ function checkFabrics(body: DesignBody, sources: DesignSources): void {
   const check = (f: FabricRef, path: string) => {
     if (f.kind === 'stock' && !stock.has(f.stockId)) bad[path] = 'No such studio fabric.';
     if (f.kind === 'garment' && !garments.has(f.garmentId)) bad[path] = 'That garment is not part of this commission.';
-    if (f.kind === 'group' && f.garmentIds.some((g) => !garments.has(g))) bad[path] = 'A garment of the group is not part of this commission.';
   };
   body.assignments.forEach((a, i) => check(a.fabric, `assignments.${i}.fabric`));
+  garmentGroups(body).forEach((g, i) => {
+    if (g.garmentIds.some((id) => !garments.has(id))) bad[`groups.${i}.garmentIds`] = 'A garment of the group is not part of this commission.';
+  });
   for (const k of ['bindingStockId', 'backingStockId', 'waddingStockId'] as const) {
     const v = body.finishing[k];
     if (v !== null && !stock.has(v)) bad[`finishing.${k}`] = 'No such studio fabric.';
@@ -97,13 +124,13 @@ function commissionView(c: CommissionModel) {
   return { id: c.id, title: c.title, kind: c.kind, ageGroup: c.ageGroup, sizePreset: c.sizePreset, widthMm: c.widthMm, lengthMm: c.lengthMm, stage: c.stage };
 }
 
-function versionView(v: DesignVersionModel) {
+function versionView(v: DesignVersionModel, sources: DesignSources) {
   return {
     id: v.id,
     version: v.version,
     body: v.body,
     derived: v.derived,
-    plan: v.plan,
+    plan: withKeptFeatures(v.plan, sources),
     note: v.note,
     createdAt: v.createdAt,
     sharedAt: v.sharedAt,
@@ -128,7 +155,7 @@ export async function getDesign(user: Express.User, commissionId: number) {
   const latest = versions.length ? await DesignVersionModel.query().findById(versions[0]!.id) : undefined;
   return {
     commission: commissionView(c),
-    current: latest ? versionView(latest) : null,
+    current: latest ? versionView(latest, sources) : null,
     versions,
     fabrics: fabricLegend(sources, latest?.body),
     garments: sources.garments.map((g) => ({ id: g.id, description: g.description, colour: g.colour, fibre: g.fibre, print: g.print, construction: g.construction, panels: g.panels })),
@@ -140,7 +167,7 @@ export async function getVersion(user: Express.User, commissionId: number, versi
   const c = await staffCommission(user, commissionId);
   const v = await DesignVersionModel.query().where({ commissionId: c.id, version }).first();
   if (!v) throw AppError.notFound('That design version');
-  return versionView(v);
+  return versionView(v, await designSources(c.id));
 }
 
 /** Derives and plans without saving: the design screen's live re-plan. */
@@ -163,7 +190,7 @@ export async function saveDesign(user: Express.User, commissionId: number, body:
     const version = Number((last as unknown as { max: number | null })?.max ?? 0) + 1;
     return DesignVersionModel.query(trx).insertAndFetch({ commissionId: c.id, version, body, derived, plan, note: note ?? null, createdBy: user.id });
   });
-  return versionView(saved);
+  return versionView(saved, sources);
 }
 
 /** Shares the latest version with the client, who may then approve it or ask for a change. */
@@ -191,7 +218,9 @@ export async function sharedDesign(user: Express.User, commissionId: number) {
     sharedAt: v.sharedAt,
     body: v.body,
     derived: { finished: v.derived.finished, target: v.derived.target, difference: v.derived.difference, centre: v.derived.centre, parts: v.derived.parts, positions: v.derived.positions, layoutFabrics: v.derived.layoutFabrics, totals: { blocks: v.derived.totals.blocks } },
-    fabrics: fabricLegend(sources, v.body).map(({ key, kind, name, hex }) => ({ key, kind, name, hex })),
+    fabrics: fabricLegend(sources, v.body).map(({ key, kind, name, hex, stripes }) => ({ key, kind, name, hex, ...(stripes ? { stripes } : {}) })),
+    // Where the kept features go, in the client's own garments' words; nothing of the plan itself.
+    keptFeatures: keptFeaturePlaces(v.body, v.derived, keptFeaturePieces(v.plan, sources)).map(({ position, rail, feature, garment }) => ({ position, rail, feature, garment })),
     clientResponse: v.clientResponse,
     clientNote: v.clientNote,
     respondedAt: v.respondedAt,

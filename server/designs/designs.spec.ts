@@ -1,8 +1,9 @@
 import Decimal from 'decimal.js';
-import type { DesignBody } from '@keepstitch/shared';
+import { deriveDesign, garmentColour, meanColour, planDesign, type DesignBody, type DesignSources } from '@keepstitch/shared';
 import { ApiAgent, addUser, signedIn, startTestApp, type TestApp } from '../testing/test-app';
 import { addCommission } from '../testing/fixtures';
 import { readPdf } from '../testing/pdf-reader';
+import { POCKET as pocket, squaresDesign } from '../../shared/src/testing/design-fixtures';
 
 const inch = (n: number) => new Decimal(n).times('25.4').toString();
 const inches = (mm: string) => new Decimal(mm).dividedBy('25.4').toNumber();
@@ -227,6 +228,128 @@ describe('designs', () => {
       expect(text).toContain('Safe sleep for babies under 12 months');
       expect(text).toContain('follow their advice');
       expect((await otherClient.get(`/api/commissions/${commissionId}/care-card.pdf`)).status).toBe(404);
+    });
+  });
+
+  describe('groups of garments and kept features', () => {
+    let pocketCommission: number;
+    let shirt: number;
+    let polo: number;
+    let flannel: number;
+    const blueHex = garmentColour({ colour: 'Pale blue', description: 'Blue oxford shirt' });
+    const navyHex = garmentColour({ colour: 'Navy', description: 'Navy knit polo' });
+
+    /** Two rows of two 8 in plain squares; block 1 is given "The blues", and a second group is given nothing. */
+    function squares(over: Partial<DesignBody> = {}): DesignBody {
+      return squaresDesign(8, 2, 2, {
+        groups: [
+          { id: 'g1', name: '  The blues ', garmentIds: [shirt, polo] },
+          { id: 'g2', name: 'Still to come', garmentIds: [] },
+        ],
+        assignments: [{ target: { kind: 'position', index: 0 }, fabric: { kind: 'group', groupId: 'g1' } }],
+        ...over,
+      });
+    }
+
+    beforeAll(async () => {
+      const c = await addUser(t.knex, 'client');
+      pocketCommission = await addCommission(t.knex, c.clientId!, { title: 'Pocket quilt' });
+      const garment = async (description: string, colour: string, panels: [string, number, number, object[]][]) => {
+        const [g] = await t.knex('garments').insert({ commissionId: pocketCommission, description, colour, fibre: 'cotton', features: '[]' }).returning('id');
+        await t.knex('panels').insert(panels.map(([name, w, h, features]) => ({ garmentId: g.id, name, widthMm: inch(w), heightMm: inch(h), grain: 'vertical', features: JSON.stringify(features) })));
+        return g.id as number;
+      };
+      shirt = await garment('Blue oxford shirt', 'Pale blue', [['back', 22, 27, []]]);
+      polo = await garment('Navy knit polo', 'Navy', [['back', 19.5, 25, []]]);
+      flannel = await garment('Green flannel shirt', 'Green', [['left front', 12, 24, [pocket]]]);
+    });
+
+    it('saves a group given to nothing, and one with no garments yet, and reads both back', async () => {
+      const res = await owner.post(`/api/commissions/${pocketCommission}/design`, { body: squares() });
+      expect(res.status).toBe(201);
+      const groups = [
+        { id: 'g1', name: 'The blues', garmentIds: [shirt, polo] },
+        { id: 'g2', name: 'Still to come', garmentIds: [] },
+      ];
+      expect(res.body.body.groups).toEqual(groups);
+      const screen = await owner.get(`/api/commissions/${pocketCommission}/design`);
+      expect(screen.body.current.body.groups).toEqual(groups);
+      expect((await owner.get(`/api/commissions/${pocketCommission}/design/versions/1`)).body.body.groups).toEqual(groups);
+      // The legend draws a group in stripes of its garments' colours, as the app does, not in its first garment's colour.
+      const legend = (key: string) => screen.body.fabrics.find((f: { key: string }) => f.key === key);
+      expect(legend('group:g1')).toEqual({ key: 'group:g1', kind: 'group', id: null, name: 'The blues', colour: null, hex: meanColour([blueHex, navyHex]), stripes: [blueHex, navyHex], detail: 'any of 2 garments' });
+      expect(legend('group:g1').hex).not.toBe(blueHex);
+      expect(legend('group:g2')).toMatchObject({ name: 'Still to come', stripes: [], detail: 'any of 0 garments' });
+    });
+
+    it('refuses groups sharing an id or a name, a name too long, a garment of another commission, and a group no list holds', async () => {
+      const twice = await owner.post(`/api/commissions/${pocketCommission}/design/preview`, squares({ groups: [{ id: 'g1', name: 'The blues', garmentIds: [shirt] }, { id: 'g1', name: 'THE BLUES', garmentIds: [polo] }] }));
+      expect(twice.status).toBe(400);
+      expect(twice.body.error.fields).toEqual({ 'groups.1.id': 'Another group has this id.', 'groups.1.name': 'Another group has this name.' });
+      const long = await owner.post(`/api/commissions/${pocketCommission}/design/preview`, squares({ groups: [{ id: 'g1', name: 'x'.repeat(101), garmentIds: [shirt] }] }));
+      expect(long.body.error.fields).toEqual({ 'groups.0.name': 'A group name can be at most 100 characters.' });
+      const blank = await owner.post(`/api/commissions/${pocketCommission}/design/preview`, squares({ groups: [{ id: 'G 1', name: '   ', garmentIds: [shirt, shirt] }] }));
+      expect(blank.body.error.fields).toMatchObject({ 'groups.0.id': expect.stringMatching(/lower-case/), 'groups.0.name': 'Name the group.' });
+      const unlisted = await owner.post(`/api/commissions/${pocketCommission}/design`, { body: squares({ groups: undefined }) });
+      expect(unlisted.status).toBe(400);
+      expect(unlisted.body.error.fields).toEqual({ 'body.assignments.0.fabric.groupId': 'The design has no group with this id.' });
+      const stranger = await owner.post(`/api/commissions/${pocketCommission}/design/preview`, squares({ groups: [{ id: 'g1', name: 'Mixed', garmentIds: [shirt, strangerGarment] }] }));
+      expect(stranger.status).toBe(400);
+      expect(stranger.body.error.fields).toEqual({ 'groups.0.garmentIds': 'A garment of the group is not part of this commission.' });
+      // An older body still naming a group in full is not accepted from the app.
+      const inline = await owner.post(`/api/commissions/${pocketCommission}/design/preview`, squares({ assignments: [{ target: { kind: 'position', index: 0 }, fabric: { kind: 'group', name: 'The blues', garmentIds: [shirt, polo] } as never }] }));
+      expect(inline.status).toBe(400);
+    });
+
+    it('reads a version saved before groups were listed, naming its groups by id in the body and the derivation', async () => {
+      const listed = squares({ groups: [{ id: 'g1', name: 'The blues', garmentIds: [shirt, polo] }] });
+      const derived = deriveDesign(listed);
+      const sources: DesignSources = { garments: [], stock: [] };
+      // As an older version stored it: no list, and the group written out wherever it was given.
+      const written = JSON.stringify({ kind: 'group', name: 'The blues', garmentIds: [shirt, polo] });
+      const older = (x: unknown) => JSON.parse(JSON.stringify(x).replaceAll('{"kind":"group","groupId":"g1"}', written));
+      const { groups: _, ...withoutList } = listed;
+      const oldBody = older(withoutList);
+      expect(JSON.stringify(oldBody)).not.toContain('groupId');
+      await t.knex('designVersions').insert({ commissionId: pocketCommission, version: 2, body: JSON.stringify(oldBody), derived: JSON.stringify(older(derived)), plan: JSON.stringify(planDesign(listed, derived, sources)), note: 'Older' });
+      const screen = await owner.get(`/api/commissions/${pocketCommission}/design`);
+      expect(screen.body.current.version).toBe(2);
+      expect(screen.body.current.body.groups).toEqual([{ id: 'g1', name: 'The blues', garmentIds: [shirt, polo] }]);
+      expect(screen.body.current.body.assignments[0].fabric).toEqual({ kind: 'group', groupId: 'g1' });
+      expect(screen.body.current.derived.positions[0].fabrics.square).toEqual({ kind: 'group', groupId: 'g1' });
+      expect(screen.body.fabrics.find((f: { key: string }) => f.key === 'group:g1').stripes).toEqual([blueHex, navyHex]);
+      expect((await owner.get(`/api/commissions/${pocketCommission}/design/cut-list.pdf`)).status).toBe(200);
+      // Saved again as it was read, it is a valid design.
+      const resaved = await owner.post(`/api/commissions/${pocketCommission}/design`, { body: screen.body.current.body });
+      expect(resaved.status).toBe(201);
+    });
+
+    it('says which block keeps the pocket, to the owner and the client, and prints it in the cut list with the group in stripes', async () => {
+      const saved = await owner.post(`/api/commissions/${pocketCommission}/design`, { body: squares() });
+      expect(saved.status).toBe(201);
+      // The pocket is on the green flannel, which only the planner's choice may give (blocks 2 to 4): the last of those, block 4.
+      expect(saved.body.plan.keptFeatures).toEqual([expect.objectContaining({ feature: 'breast pocket', garmentId: flannel, garment: 'Green flannel shirt', panel: 'left front', copy: 3 })]);
+      expect((await owner.post(`/api/commissions/${pocketCommission}/design/share`, {})).status).toBe(200);
+      const c = await t.knex('commissions').where({ id: pocketCommission }).first();
+      const clientUser = await t.knex('users').where({ clientId: c.clientId }).first();
+      const itsClient = await signedIn(t.app, clientUser.email);
+      const shared = await itsClient.get(`/api/commissions/${pocketCommission}/design/shared`);
+      expect(shared.body.keptFeatures).toEqual([{ position: 3, rail: null, feature: 'breast pocket', garment: 'Green flannel shirt' }]);
+      expect(shared.body.fabrics.find((f: { key: string }) => f.key === 'group:g1').stripes).toEqual([blueHex, navyHex]);
+
+      const pdf = await owner.get(`/api/commissions/${pocketCommission}/design/cut-list.pdf`);
+      const { text, pages } = readPdf(pdf.body as Buffer);
+      const flat = text.replace(/\s+/g, ' ');
+      expect(flat).toContain('Kept feature: 1 of these keeps the breast pocket from the Green flannel shirt, centred, for block 4; cut with the feature centred.');
+      expect(flat).toMatch(/which keeps the breast pocket from the Green flannel shirt, centred, for block 4; cut with the feature centred/);
+      expect(flat).toContain('Block 4 keeps the breast pocket from the Green flannel shirt');
+      expect(flat).toContain('The blues (a group: stripes of its garments)');
+      // The top, drawn between its heading and the first source: block 1 in stripes of blue and navy.
+      const y = (s: string) => pages[0]!.text.find((x) => x.str.startsWith(s))!.y;
+      const inTop = pages[0]!.paths.filter((pa) => pa.y < y('The top') && pa.y > y('From the') && pa.x < 250);
+      const fills = new Set(inTop.map((pa) => pa.fill));
+      expect(fills.has(blueHex)).toBe(true);
+      expect(fills.has(navyHex)).toBe(true);
     });
   });
 });

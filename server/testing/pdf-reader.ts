@@ -5,6 +5,8 @@ import path from 'node:path';
 
 export interface PdfPath {
   paint: string;
+  /** The fill colour in force (#rrggbb). */
+  fill: string;
   x: number;
   y: number;
   width: number;

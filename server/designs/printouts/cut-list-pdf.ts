@@ -1,36 +1,14 @@
-import type { CutStep, PanelPlan, DerivedPiece, UnitSystem } from '@keepstitch/shared';
+import { keptFeatureId, keptFeaturePieces, keptFeaturePlaces, keptLines, pieceLine, pieceNumber, stepText, type PanelPlan, type UnitSystem } from '@keepstitch/shared';
 import { ensureSpace, heading, measures, newDocument, toBuffer, today } from './pdf-document';
 import type { PrintableDesign } from './printable';
+import { drawQuiltTop, drawTopKey, keptMark } from './quilt-top-pdf';
 
-function pieceNumber(id: string): string {
-  return id.replace(/^p/, '');
-}
-
-/** "4 squares 12 1/2 in" for a piece kind cut from one source. */
-export function pieceLine(p: DerivedPiece, count: number, m: ReturnType<typeof measures>): string {
-  const size = p.widthMm === p.heightMm ? m.cut(p.widthMm) : `${m.cut(p.widthMm)} x ${m.cut(p.heightMm)}`;
-  const cut = p.diagonalCuts === 1 ? ', cut once on the diagonal' : p.diagonalCuts === 2 ? ', cut twice on the diagonal' : '';
-  return `${count} x ${p.shape} ${size} (${p.label})${cut}`;
-}
-
-/** One line a maker reads for a cut: where to cut and what comes off. */
-export function stepText(step: CutStep, pieces: Map<string, DerivedPiece>, m: ReturnType<typeof measures>): string {
-  const way = step.direction === 'horizontal' ? 'across' : 'down';
-  const from = step.direction === 'horizontal' ? 'from the top' : 'from the left';
-  const where = step.region === 'panel' ? 'the panel' : `part ${step.region}`;
-  const off = step.cutsOff;
-  const what =
-    off.content === 'piece'
-      ? `piece ${pieceNumber(off.pieceId!)} (${pieces.get(off.pieceId!)?.label ?? off.pieceId})`
-      : off.content === 'strip'
-        ? `strip ${off.label}, ${m.at(off.width)} x ${m.at(off.height)}`
-        : off.content === 'offcut'
-          ? `offcut to keep, ${m.at(off.width)} x ${m.at(off.height)}`
-          : 'waste';
-  return `${step.step}. Cut ${where} ${way} at ${m.at(step.at)} ${from}: ${what}`;
-}
-
-/** The cut list by source: each garment and studio fabric, its panels, their cuts in order, with a diagram. */
+/**
+ * The cut list by source: the top drawn with its fabrics and kept features,
+ * then each garment and studio fabric, its panels, their cuts in order, with
+ * a diagram. A piece cut around a kept feature is named in its line, its cut
+ * and its diagram.
+ */
 export async function cutListPdf(p: PrintableDesign): Promise<Buffer> {
   const { commission, version, sources, fabrics } = p;
   const system: UnitSystem = version.body.units;
@@ -41,9 +19,22 @@ export async function cutListPdf(p: PrintableDesign): Promise<Buffer> {
     `Sizes in ${system === 'imperial' ? 'inches' : 'centimetres'}; cut sizes include the 1/4 in (6 mm) seam allowance. Cuts are straight, edge to edge, in the order given: strips first, then sub-cuts.`,
   ]);
   const pieces = new Map(version.derived.pieces.map((x) => [x.id, x]));
+  const kept = keptFeaturePlaces(version.body, version.derived, keptFeaturePieces(version.plan, sources));
+  const featureRects = new Map(sources.garments.flatMap((g) => g.panels.flatMap((pp) => (pp.features ?? []).map((f, i) => [keptFeatureId(pp.id, i), f] as const))));
+
+  // The top, so the piece kept around a feature can be found in it.
+  ensureSpace(doc, 200);
+  doc.font('Lato-Bold').fontSize(13).text('The top');
+  const topY = doc.y + 4;
+  const left0 = doc.page.margins.left;
+  const drawn = drawQuiltTop(doc, left0, topY, 200, 260, version.body, version.derived, fabrics, kept);
+  const keyBottom = drawTopKey(doc, left0 + 216, topY, doc.page.width - doc.page.margins.right - left0 - 216, version.body, version.derived, fabrics, kept);
+  doc.x = left0;
+  doc.y = Math.max(topY + drawn, keyBottom) + 14;
+
   const placementsBy = new Map<string, typeof version.plan.plan.placements>();
   for (const pl of version.plan.plan.placements) placementsBy.set(pl.panelId, [...(placementsBy.get(pl.panelId) ?? []), pl]);
-  const sections: { title: string; note?: string; colour: string; panels: PanelPlan[]; label: (pp: PanelPlan) => string }[] = [];
+  const sections: { title: string; note?: string; colour: string; garmentId?: number; panels: PanelPlan[]; label: (pp: PanelPlan) => string }[] = [];
   for (const g of sources.garments) {
     const panels = version.plan.plan.panels.filter((pp) => pp.garmentId === String(g.id) && pp.piecesCut > 0);
     if (!panels.length) continue;
@@ -52,6 +43,7 @@ export async function cutListPdf(p: PrintableDesign): Promise<Buffer> {
       title: `From the ${g.description}${g.colour ? ` (${g.colour})` : ''}`,
       note: [g.construction === 'knit' ? 'Knit: fuse a stabiliser to the back of each panel before cutting.' : '', g.print === 'directional' ? 'Directional print: pieces are laid the right way up; do not turn them.' : ''].filter(Boolean).join(' ') || undefined,
       colour: fabrics.find((f) => f.key === `garment:${g.id}`)?.hex ?? '#888',
+      garmentId: g.id,
       panels,
       label: (pp) => `${names.get(pp.panelId) ?? pp.panelId}, ${m.at(pp.width)} x ${m.at(pp.height)}`,
     });
@@ -69,7 +61,12 @@ export async function cutListPdf(p: PrintableDesign): Promise<Buffer> {
     // Counts by piece kind from this source.
     const counts = new Map<string, number>();
     for (const pp of section.panels) for (const pl of placementsBy.get(pp.panelId) ?? []) counts.set(pl.pieceId, (counts.get(pl.pieceId) ?? 0) + 1);
-    for (const [id, n] of counts) doc.text(`  ${pieceNumber(id)}: ${pieceLine(pieces.get(id)!, n, m)}`);
+    const keptHere = kept.filter((k) => section.garmentId === k.garmentId);
+    for (const [id, n] of counts) {
+      doc.font('Lato').text(`  ${pieceNumber(id)}: ${pieceLine(pieces.get(id)!, n, m.cut)}`);
+      for (const note of keptLines(id, keptHere)) doc.font('Lato-Bold').text('Kept feature: ', { indent: 24, continued: true }).font('Lato').text(note);
+    }
+    doc.font('Lato');
     if (section.note) doc.fillColor('#7a3b00').text(section.note).fillColor('#000');
     doc.moveDown(0.4);
     for (const pp of section.panels) {
@@ -86,8 +83,20 @@ export async function cutListPdf(p: PrintableDesign): Promise<Buffer> {
       doc.rect(left, diagramTop, pp.width * scale, pp.height * scale).fillAndStroke('#e6e6e6', '#000');
       for (const pl of placementsBy.get(pp.panelId) ?? []) {
         doc.rect(left + pl.x * scale, diagramTop + pl.y * scale, pl.width * scale, pl.height * scale).fillAndStroke(section.colour, '#000');
+        const feature = pl.featureId !== undefined ? featureRects.get(pl.featureId) : undefined;
+        if (pl.featureId !== undefined) {
+          // The piece kept around a feature: marked, with the feature's outline where it lies on the panel.
+          const box = (x: number, y: number, w: number, h: number): [number, number][] => [[x, y], [x + w, y], [x + w, y + h], [x, y + h]];
+          keptMark(doc, box(left + pl.x * scale, diagramTop + pl.y * scale, pl.width * scale, pl.height * scale), Math.min(pl.width, pl.height) * scale);
+          if (feature) {
+            doc.save().lineWidth(0.6).dash(1.5, { space: 1 });
+            doc.rect(left + Number(feature.xMm) * scale, diagramTop + Number(feature.yMm) * scale, Number(feature.widthMm) * scale, Number(feature.heightMm) * scale).stroke('#000');
+            doc.undash().restore();
+          }
+        }
         const label = pieceNumber(pl.pieceId);
-        doc.fillColor('#000').fontSize(6).text(label, left + pl.x * scale + 1, diagramTop + pl.y * scale + 1, { lineBreak: false });
+        const inset = pl.featureId !== undefined ? 3 : 1;
+        doc.fillColor('#000').fontSize(6).text(label, left + pl.x * scale + inset, diagramTop + pl.y * scale + inset, { lineBreak: false });
       }
       doc.restore();
       const textLeft = left + maxW + 14;
@@ -100,7 +109,7 @@ export async function cutListPdf(p: PrintableDesign): Promise<Buffer> {
           doc.addPage();
           doc.x = textLeft;
         }
-        doc.text(stepText(step, pieces, m), textLeft, doc.y, { width });
+        doc.text(stepText(step, pieces, m.at, kept), textLeft, doc.y, { width });
       }
       doc.x = left;
       doc.y = Math.max(doc.y, diagramTop + pp.height * scale) + 12;

@@ -6,5 +6,6 @@ export interface PrintableDesign {
   commission: CommissionModel;
   version: DesignVersionModel;
   sources: DesignSources;
-  fabrics: { key: string; name: string; hex: string }[];
+  /** The fabric legend: a group of garments carries the stripes it is drawn in. */
+  fabrics: { key: string; name: string; hex: string; stripes?: string[] }[];
 }

@@ -17,6 +17,7 @@ import { gridLayout, StripGroup, BorderPlan } from '../grid-layout';
 import { onPointLayout } from '../on-point';
 import { DEFAULT_USABLE_WIDTH } from '../fabric-width';
 import { Assignment, BLOCK_ROLES, BlockSpec, DesignBody, FabricRef, fabricKey } from './design-body';
+import { garmentGroupProblems } from './garment-groups';
 
 export type PieceGroup = 'block' | 'sashing' | 'cornerstones' | 'border' | 'setting';
 
@@ -242,6 +243,8 @@ export function deriveDesign(body: DesignBody): DesignDerivation {
   if (body.blocks.length === 0) throw new DomainError('out-of-range', 'Expected at least one block.', 'blocks');
   const ids = new Set(body.blocks.map((b) => b.id));
   if (ids.size !== body.blocks.length) throw new DomainError('out-of-range', 'Each block needs its own id.', 'blocks');
+  const [groupProblem] = Object.entries(garmentGroupProblems(body));
+  if (groupProblem) throw new DomainError('out-of-range', groupProblem[1], groupProblem[0]);
   const pattern = body.pattern.length ? body.pattern : [body.blocks[0]!.id];
   for (const id of pattern) {
     if (!ids.has(id)) throw new DomainError('out-of-range', `The pattern names block "${id}", which the design does not have.`, 'pattern');

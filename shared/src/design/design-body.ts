@@ -50,10 +50,21 @@ export interface BlockSpec {
   meanStripWidthMm?: string;
 }
 
-/** A fabric: one garment, a group of garments (the planner picks among them), or a studio stock fabric. */
+/**
+ * A named group of the commission's garments, kept with the design whether or
+ * not anything is given to it yet; the planner picks among its garments.
+ */
+export interface GarmentGroup {
+  /** Short id the assignments name it by, e.g. "g1". */
+  id: string;
+  name: string;
+  garmentIds: number[];
+}
+
+/** A fabric: one garment, one of the design's groups of garments (by id), or a studio stock fabric. */
 export type FabricRef =
   | { kind: 'garment'; garmentId: number }
-  | { kind: 'group'; name: string; garmentIds: number[] }
+  | { kind: 'group'; groupId: string }
   | { kind: 'stock'; stockId: number };
 
 /**
@@ -93,6 +104,11 @@ export interface DesignBody {
   blocks: BlockSpec[];
   /** Block id at each position, row by row; a shorter list repeats. */
   pattern: string[];
+  /**
+   * The owner's groups of garments. Designs saved before groups were listed
+   * have none stored: garment-groups.ts reads them from their assignments.
+   */
+  groups?: GarmentGroup[];
   assignments: Assignment[];
   finishing: {
     bindingStockId: number | null;
@@ -119,6 +135,6 @@ export function fabricKey(fabric: FabricRef | null): string {
     case 'stock':
       return `stock:${fabric.stockId}`;
     case 'group':
-      return `group:${[...fabric.garmentIds].sort((a, b) => a - b).join(',')}`;
+      return `group:${fabric.groupId}`;
   }
 }

@@ -5,6 +5,7 @@
 import type { BlockSpec, DesignBody, FabricRef } from './design-body';
 import { fabricKey } from './design-body';
 import type { DerivedPosition, DesignDerivation } from './derive-design';
+import type { KeptFeaturePlace } from './kept-feature-places';
 
 export interface DrawingShape {
   /** Polygon corners in mm. */
@@ -66,6 +67,18 @@ export function designDrawing(body: DesignBody, d: DesignDerivation): QuiltDrawi
   const specs = new Map(body.blocks.map((s) => [s.id, s]));
   for (const p of d.positions) shapes.push(...blockShapes(specs.get(p.blockId)!, p));
   return { width, height, shapes };
+}
+
+/** The outline of the block piece holding a kept feature: the whole block, or its rail; null when the top has no such place. */
+export function keptFeatureOutline(body: DesignBody, d: DesignDerivation, place: Pick<KeptFeaturePlace, 'position' | 'rail'>): [number, number][] | null {
+  const p = d.positions.find((x) => x.index === place.position);
+  if (!p) return null;
+  const spec = body.blocks.find((b) => b.id === p.blockId);
+  if (place.rail !== null && spec?.kind === 'rectangles') {
+    const n = spec.units ?? 1;
+    return turn(p, rect(p.x, p.y + (place.rail * p.side) / n, p.side, p.side / n));
+  }
+  return turn(p, rect(p.x, p.y, p.side, p.side));
 }
 
 function turn(p: DerivedPosition, pts: [number, number][]): [number, number][] {

@@ -1,7 +1,8 @@
 // A colour to draw a fabric with, from the colour words a maker wrote for it
 // ("Pale blue", "Green and cream check"). The first colour word found wins,
 // softened by "pale"/"light" and deepened by "dark"; unknown words get a
-// steady colour of their own from the text.
+// steady colour of their own from the text. A group of garments is drawn in
+// stripes of its garments' colours, by the app and the printouts alike.
 
 const WORDS: readonly [RegExp, string][] = [
   [/\bnavy\b/, '#26355d'],
@@ -47,4 +48,31 @@ export function fabricColour(words: string | null | undefined): string {
   const a = s * Math.min(l, 1 - l);
   const f = (m: number) => Math.round(255 * (l - a * Math.max(-1, Math.min(k(m) - 3, 9 - k(m), 1))));
   return `#${[f(0), f(8), f(4)].map((c) => c.toString(16).padStart(2, '0')).join('')}`;
+}
+
+/** The colour a fabric is drawn in when nothing is known of it (a garment a group names that is not found). */
+export const UNKNOWN_FABRIC_COLOUR = '#b9a98a';
+
+/** The drawing colour of a garment: from its colour words, then its description. */
+export function garmentColour(garment: { colour: string | null; description: string }): string {
+  return fabricColour(`${garment.colour ?? ''} ${garment.description}`);
+}
+
+/**
+ * A group of garments is drawn in stripes, not in the colour of any one of
+ * them: one stripe of each garment's colour, in the group's order.
+ */
+export function groupStripes(garmentIds: readonly number[], colourOf: (garmentId: number) => string | null | undefined): string[] {
+  return garmentIds.map((id) => colourOf(id) ?? UNKNOWN_FABRIC_COLOUR);
+}
+
+/** One colour standing for stripes where only one can be shown: their mean, channel by channel. */
+export function meanColour(colours: readonly string[]): string {
+  if (colours.length === 0) return UNKNOWN_FABRIC_COLOUR;
+  const channels = colours.map((hex) => {
+    const n = parseInt(hex.slice(1), 16);
+    return [(n >> 16) & 255, (n >> 8) & 255, n & 255];
+  });
+  const sums = [0, 1, 2].map((c) => channels.reduce((sum, ch) => sum + ch[c]!, 0));
+  return `#${sums.map((s) => Math.round(s / colours.length).toString(16).padStart(2, '0')).join('')}`;
 }

@@ -1,50 +1,11 @@
 import Decimal from 'decimal.js';
 import { deriveDesign } from './derive-design';
-import { cutPlanInput, planDesign, type DesignSources, type PanelFeature } from './plan-design';
-import type { DesignBody } from './design-body';
+import { cutPlanInput, planDesign, type PanelFeature } from './plan-design';
 import { planCuts } from '../cut-plan/cut-plan';
 import { checkPlan } from '../cut-plan/plan-checker';
+import { POCKET as pocket, flannelShirt as shirt, inch, squaresDesign as squares } from '../testing/design-fixtures';
 
-const inch = (n: number) => new Decimal(n).times('25.4').toString();
 const mm = (n: number) => new Decimal(n).times('25.4').toNumber();
-
-/** A small top of plain squares: rows x columns blocks of `block` in, no sashing or borders. */
-function squares(block: number, rows = 2, columns = 2, over: Partial<DesignBody> = {}): DesignBody {
-  return {
-    units: 'imperial',
-    target: { preset: null, dropMm: null, widthMm: inch(block * columns), lengthMm: inch(block * rows) },
-    layout: { setting: 'straight', rows, columns, blockMm: inch(block), sashing: null, borders: [] },
-    blocks: [{ id: 'B', name: 'Whole shirt square', kind: 'square' }],
-    pattern: ['B'],
-    assignments: [],
-    finishing: { bindingStockId: null, bindingStripMm: inch(2.5), backingStockId: null, waddingStockId: null, prewash: false, shrinkPercent: '0' },
-    rules: { minimumPerGarment: 0 },
-    ...over,
-  };
-}
-
-const pocket: PanelFeature = { name: 'breast pocket', xMm: inch(2), yMm: inch(4), widthMm: inch(5), heightMm: inch(5.5) };
-
-/** One shirt: a left front of `width` x 24 in holding the pocket 2 in from the left and 4 in from the top, and a 22 x 27 in back. */
-function shirt(width: number, features: PanelFeature[] = [pocket]): DesignSources {
-  return {
-    garments: [
-      {
-        id: 7,
-        description: 'Green flannel shirt',
-        colour: 'green',
-        fibre: 'flannel',
-        construction: 'woven',
-        print: 'non_directional',
-        panels: [
-          { id: 31, name: 'left front', widthMm: inch(width), heightMm: inch(24), grain: 'vertical', features },
-          { id: 32, name: 'back', widthMm: inch(22), heightMm: inch(27), grain: 'vertical', features: [] },
-        ],
-      },
-    ],
-    stock: [],
-  };
-}
 
 describe('planDesign: kept features held whole in a block piece', () => {
   it('pins one plain square centred on the pocket, and the plan cuts the pocket whole inside it', () => {

@@ -15,8 +15,11 @@ import { wadding } from '../wadding';
 import { lengthBeforeShrinking } from '../shrinkage';
 import { EIGHTH_YARD, roundUpToIncrement, TEN_CENTIMETRES } from '../shop-increment';
 import { DEFAULT_USABLE_WIDTH } from '../fabric-width';
+import { DomainError } from '../errors';
 import type { BlockKind, DesignBody, FabricRef } from './design-body';
 import type { DerivedPiece, DesignDerivation } from './derive-design';
+import { groupOf } from './garment-groups';
+import type { KeptFeaturePiece } from './kept-feature-places';
 
 /**
  * A kept feature measured on a panel (a pocket, a label, embroidery): its top-left
@@ -102,6 +105,8 @@ export interface DesignPlanSummary {
   shortfall: ShortLine[];
   minimumsShort: { garmentId: number; description: string; required: number; achieved: number; detail: string }[];
   shopping: ShoppingLine[];
+  /** Each kept feature the plan holds whole, and the copy of the block piece cut around it. Absent on plans stored before this was listed. */
+  keptFeatures?: KeptFeaturePiece[];
   binding: { stockId: number | null; strips: number; stripWidthMm: string; lengthMm: string; fabricLengthMm: string };
   backing: { stockId: number | null; widthMm: string; lengthMm: string; panels: number; fabricLengthMm: string; method: string };
   wadding: { stockId: number | null; widthMm: string; lengthMm: string; fromRollMm: string | null; pieces: number | null };
@@ -111,13 +116,22 @@ export interface DesignPlanSummary {
 const panelId = (id: number) => `panel-${id}`;
 const stockFabricId = (id: number) => `stock-${id}`;
 
-function sourceOf(fabric: FabricRef | null): PieceSource {
+/** The group a reference names; the design must have it. */
+function groupFor(body: DesignBody, fabric: FabricRef & { kind: 'group' }) {
+  const group = groupOf(body, fabric);
+  if (!group) throw new DomainError('out-of-range', `The design gives a place to a group it does not have ("${fabric.groupId}").`, 'assignments');
+  return group;
+}
+
+function sourceOf(fabric: FabricRef | null, body: DesignBody): PieceSource {
   if (!fabric) return { kind: 'any-garment' };
   switch (fabric.kind) {
     case 'garment':
       return { kind: 'garment', garmentId: String(fabric.garmentId) };
-    case 'group':
-      return { kind: 'garment-group', name: fabric.name, garmentIds: fabric.garmentIds.map(String) };
+    case 'group': {
+      const group = groupFor(body, fabric);
+      return { kind: 'garment-group', name: group.name, garmentIds: group.garmentIds.map(String) };
+    }
     case 'stock':
       return { kind: 'studio-fabric', fabricId: stockFabricId(fabric.stockId) };
   }
@@ -133,6 +147,8 @@ interface FeaturePin {
   /** The derived piece one copy is taken from. */
   from: DerivedPiece;
   piece: PieceInput;
+  /** The feature, for the maker: its name, garment and panel. */
+  feature: Pick<KeptFeaturePiece, 'featureId' | 'feature' | 'garmentId' | 'garment' | 'panel'>;
 }
 
 interface UnheldFeature {
@@ -142,10 +158,10 @@ interface UnheldFeature {
 }
 
 /** How near a piece's fabric is to the garment: its own (0), a group holding it (1), any garment (2); null when it may not come from it. */
-function nearness(fabric: FabricRef | null, garmentId: number): number | null {
+function nearness(fabric: FabricRef | null, garmentId: number, body: DesignBody): number | null {
   if (!fabric) return 2;
   if (fabric.kind === 'garment') return fabric.garmentId === garmentId ? 0 : null;
-  if (fabric.kind === 'group') return fabric.garmentIds.includes(garmentId) ? 1 : null;
+  if (fabric.kind === 'group') return groupFor(body, fabric).garmentIds.includes(garmentId) ? 1 : null;
   return null;
 }
 
@@ -177,13 +193,14 @@ function keptFeaturePins(body: DesignBody, derivation: DesignDerivation, sources
           const { w, h } = inside(d);
           return (fw.lte(w) && fh.lte(h)) || (fw.lte(h) && fh.lte(w));
         };
-        const mayCome = whole.filter((d) => nearness(d.fabric, g.id) !== null);
+        const near = (d: DerivedPiece) => nearness(d.fabric, g.id, body);
+        const mayCome = whole.filter((d) => near(d) !== null);
         const fitting = mayCome.filter(holds);
         const candidates = fitting
           .filter((d) => left.get(d.id)! > 0)
           .sort(
             (a, b) =>
-              nearness(a.fabric, g.id)! - nearness(b.fabric, g.id)! ||
+              near(a)! - near(b)! ||
               Number(a.role !== 'square') - Number(b.role !== 'square') ||
               new Decimal(a.widthMm).times(a.heightMm).comparedTo(new Decimal(b.widthMm).times(b.heightMm)),
           );
@@ -211,10 +228,11 @@ function keptFeaturePins(body: DesignBody, derivation: DesignDerivation, sources
             width: Number(from.widthMm),
             height: Number(from.heightMm),
             count: 1,
-            source: sourceOf(from.fabric),
+            source: sourceOf(from.fabric, body),
             keptFeature: { featureId, placement: 'centred' },
             label: `${from.label}, kept around the ${f.name} (${where})`,
           },
+          feature: { featureId, feature: f.name, garmentId: g.id, garment: g.description, panel: p.name },
         });
       });
     }
@@ -263,7 +281,7 @@ function planInput(body: DesignBody, derivation: DesignDerivation, sources: Desi
     width: Number(p.widthMm),
     height: Number(p.heightMm),
     count: p.count - pinnedFrom(p.id),
-    source: sourceOf(p.fabric),
+    source: sourceOf(p.fabric, body),
     label: p.label,
   }));
   pieces.push(...pins.map((pin) => pin.piece));
@@ -349,6 +367,11 @@ export function planDesign(body: DesignBody, derivation: DesignDerivation, sourc
   const { input, pins, unheld } = planInput(body, derivation, sources);
   const planned = planCuts(input);
   const plan = inDesignPieces(planned, pins);
+  const pinByFeature = new Map(pins.map((pin) => [pin.feature.featureId, pin]));
+  const keptFeatures: KeptFeaturePiece[] = plan.placements.flatMap((pl) => {
+    const pin = pl.featureId !== undefined ? pinByFeature.get(pl.featureId) : undefined;
+    return pin ? [{ ...pin.feature, pieceId: pl.pieceId, copy: pl.copy }] : [];
+  });
   const pieceById = new Map(derivation.pieces.map((p) => [p.id, p]));
   const pinById = new Map(pins.map((pin) => [pin.piece.id, pin]));
   const garmentById = new Map(sources.garments.map((g) => [String(g.id), g]));
@@ -454,6 +477,7 @@ export function planDesign(body: DesignBody, derivation: DesignDerivation, sourc
     shortfall,
     minimumsShort,
     shopping,
+    keptFeatures,
     binding: { stockId: bindingStock?.id ?? null, strips: bind.strips, stripWidthMm: bind.stripWidth.mm.toString(), lengthMm: bind.length.mm.toString(), fabricLengthMm: bind.fabricLength.mm.toString() },
     backing: { stockId: backingStock?.id ?? null, widthMm: back.required.width.mm.toString(), lengthMm: back.required.height.mm.toString(), panels: backChoice.panels, fabricLengthMm: backChoice.fabricLength.mm.toString(), method: backChoice.method },
     wadding: { stockId: waddingStock?.id ?? null, widthMm: wad.size.width.mm.toString(), lengthMm: wad.size.height.mm.toString(), fromRollMm: wad.fromRoll ? wad.fromRoll.length.mm.toString() : null, pieces: wad.fromRoll?.pieces ?? null },

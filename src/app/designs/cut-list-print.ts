@@ -3,23 +3,41 @@ import { ChangeDetectionStrategy, Component, computed, effect, inject, input, si
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { CutStep, DerivedPiece, Length, PanelPlan, formatCutSize, formatFinishedSize } from '@keepstitch/shared';
+import { CutRegion, Length, PanelPlan, designDrawing, formatCutSize, formatFinishedSize, keptFeatureId, keptFeaturePieces, keptFeaturePlaces, keptLines, pieceLine, pieceNumber, stepText } from '@keepstitch/shared';
 
-import { DesignScreen } from './design';
+import { DesignScreen, swatchOf } from './design';
 import { DesignsApi } from './designs-api';
+import { QuiltDrawing } from './quilt-drawing';
+
+interface Rect {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
 
 interface SourceSection {
   title: string;
   note: string | null;
   hex: string;
-  lines: string[];
-  panels: { plan: PanelPlan; label: string; placements: { x: number; y: number; width: number; height: number; n: string }[]; steps: string[] }[];
+  lines: { text: string; kept: string[] }[];
+  panels: {
+    plan: PanelPlan;
+    label: string;
+    placements: (Rect & { n: string; kept: string | null; feature: Rect | null })[];
+    steps: { text: string; kept: boolean }[];
+  }[];
 }
 
-/** The cut list by source as a page made for paper: garments, then studio fabrics, each panel's cuts in order with a diagram. */
+/**
+ * The cut list by source as a page made for paper: the top with its fabrics
+ * and kept features, then garments and studio fabrics, each panel's cuts in
+ * order with a diagram. The piece cut around a kept feature is said to be so
+ * in its line, its cut and its diagram, in words and outlines that need no colour.
+ */
 @Component({
   selector: 'ks-cut-list-print',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule],
+  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, QuiltDrawing],
   templateUrl: './cut-list-print.html',
   styleUrl: './cut-list-print.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -32,6 +50,23 @@ export class CutListPrint {
   protected readonly failed = signal(false);
   protected readonly today = new Date();
   protected readonly Math = Math;
+  protected readonly swatch = swatchOf;
+
+  protected readonly colours = computed(() => Object.fromEntries((this.screen()?.fabrics ?? []).map((f) => [f.key, f.hex])) as Record<string, string>);
+  /** Each kept feature the plan holds, with the block it goes in. */
+  protected readonly kept = computed(() => {
+    const v = this.screen()?.current;
+    return v ? keptFeaturePlaces(v.body, v.derived, keptFeaturePieces(v.plan)) : [];
+  });
+  /** The fabrics the top shows, for its key. */
+  protected readonly topFabrics = computed(() => {
+    const s = this.screen();
+    const v = s?.current;
+    if (!s || !v) return [];
+    const shown = new Set(designDrawing(v.body, v.derived).shapes.map((x) => x.fill));
+    const known = s.fabrics.filter((f) => shown.has(f.key)).map((f) => ({ key: f.key, name: f.kind === 'group' ? `${f.name} (a group: stripes of its garments)` : f.name, swatch: swatchOf(f) }));
+    return shown.has('any') ? [...known, { key: 'any', name: 'Planner chooses (any garment)', swatch: 'repeating-linear-gradient(45deg, #f1efe8 0 4px, #d8d3c4 4px 6px)' }] : known;
+  });
 
   protected readonly sections = computed<SourceSection[]>(() => {
     const s = this.screen();
@@ -42,20 +77,38 @@ export class CutListPrint {
     const cut = (mm: string) => formatCutSize(Length.millimetres(mm), system);
     const pieces = new Map(v.derived.pieces.map((p) => [p.id, p]));
     const placements = v.plan.plan.placements;
+    const kept = this.kept();
+    const features = new Map(s.garments.flatMap((g) => g.panels.flatMap((p) => (p.features ?? []).map((f, i) => [keptFeatureId(p.id, i), f] as const))));
     const hexOf = (key: string) => s.fabrics.find((f) => f.key === key)?.hex ?? '#999';
-    const section = (title: string, note: string | null, hex: string, panels: PanelPlan[], label: (p: PanelPlan) => string): SourceSection => {
+    const section = (title: string, note: string | null, hex: string, panels: PanelPlan[], label: (p: PanelPlan) => string, garmentId: number | null): SourceSection => {
+      const here = kept.filter((k) => k.garmentId === garmentId);
+      const holds = (r: CutRegion) => r.content === 'piece' && here.some((k) => k.pieceId === r.pieceId && k.copy === r.copy);
       const counts = new Map<string, number>();
       for (const pp of panels) for (const pl of placements) if (pl.panelId === pp.panelId) counts.set(pl.pieceId, (counts.get(pl.pieceId) ?? 0) + 1);
       return {
         title,
         note,
         hex,
-        lines: [...counts].map(([id, n]) => `${id.slice(1)}: ${pieceLine(pieces.get(id)!, n, cut)}`),
+        lines: [...counts].map(([id, n]) => ({ text: `${pieceNumber(id)}: ${pieceLine(pieces.get(id)!, n, cut)}`, kept: keptLines(id, here) })),
         panels: panels.map((pp) => ({
           plan: pp,
           label: label(pp),
-          placements: placements.filter((pl) => pl.panelId === pp.panelId).map((pl) => ({ x: pl.x, y: pl.y, width: pl.width, height: pl.height, n: pl.pieceId.slice(1) })),
-          steps: pp.cuts.map((c) => stepText(c, pieces, at)),
+          placements: placements
+            .filter((pl) => pl.panelId === pp.panelId)
+            .map((pl) => {
+              const held = here.find((k) => k.pieceId === pl.pieceId && k.copy === pl.copy);
+              const f = pl.featureId !== undefined ? features.get(pl.featureId) : undefined;
+              return {
+                x: pl.x,
+                y: pl.y,
+                width: pl.width,
+                height: pl.height,
+                n: pieceNumber(pl.pieceId),
+                kept: held ? `Piece ${pieceNumber(pl.pieceId)} keeps the ${held.feature}` : null,
+                feature: f ? { x: Number(f.xMm), y: Number(f.yMm), width: Number(f.widthMm), height: Number(f.heightMm) } : null,
+              };
+            }),
+          steps: pp.cuts.map((c) => ({ text: stepText(c, pieces, at, here), kept: holds(c.cutsOff) || holds(c.remaining) })),
         })),
       };
     };
@@ -65,11 +118,11 @@ export class CutListPrint {
       if (!panels.length) continue;
       const names = new Map(g.panels.map((p) => [`panel-${p.id}`, p.name]));
       const note = [g.construction === 'knit' ? 'Knit: fuse a stabiliser to the back before cutting.' : '', g.print === 'directional' ? 'Directional print: do not turn the pieces.' : ''].filter(Boolean).join(' ');
-      out.push(section(`From the ${g.description}${g.colour ? ` (${g.colour})` : ''}`, note || null, hexOf(`garment:${g.id}`), panels, (p) => `${names.get(p.panelId) ?? p.panelId}, ${at(p.width)} × ${at(p.height)}`));
+      out.push(section(`From the ${g.description}${g.colour ? ` (${g.colour})` : ''}`, note || null, hexOf(`garment:${g.id}`), panels, (p) => `${names.get(p.panelId) ?? p.panelId}, ${at(p.width)} × ${at(p.height)}`, g.id));
     }
     for (const st of s.stock) {
       const panels = v.plan.plan.panels.filter((p) => p.fabricId === `stock-${st.id}` && p.piecesCut > 0);
-      if (panels.length) out.push(section(`From the studio fabric: ${st.name}`, null, hexOf(`stock:${st.id}`), panels, (p) => `${at(p.width)} wide, ${at(p.height)} of its length`));
+      if (panels.length) out.push(section(`From the studio fabric: ${st.name}`, null, hexOf(`stock:${st.id}`), panels, (p) => `${at(p.width)} wide, ${at(p.height)} of its length`, null));
     }
     return out;
   });
@@ -87,27 +140,4 @@ export class CutListPrint {
   protected pdf(): string {
     return this.api.pdf(this.commissionId(), 'cut-list');
   }
-}
-
-/** "4 x square 12 1/2 in (Block B...)" — the same words as the PDF. */
-export function pieceLine(p: DerivedPiece, count: number, cut: (mm: string) => string): string {
-  const size = p.widthMm === p.heightMm ? cut(p.widthMm) : `${cut(p.widthMm)} x ${cut(p.heightMm)}`;
-  const diagonal = p.diagonalCuts === 1 ? ', cut once on the diagonal' : p.diagonalCuts === 2 ? ', cut twice on the diagonal' : '';
-  return `${count} x ${p.shape} ${size} (${p.label})${diagonal}`;
-}
-
-export function stepText(step: CutStep, pieces: Map<string, DerivedPiece>, at: (mm: number) => string): string {
-  const way = step.direction === 'horizontal' ? 'across' : 'down';
-  const from = step.direction === 'horizontal' ? 'from the top' : 'from the left';
-  const where = step.region === 'panel' ? 'the panel' : `part ${step.region}`;
-  const off = step.cutsOff;
-  const what =
-    off.content === 'piece'
-      ? `piece ${off.pieceId!.slice(1)} (${pieces.get(off.pieceId!)?.label ?? off.pieceId})`
-      : off.content === 'strip'
-        ? `strip ${off.label}, ${at(off.width)} x ${at(off.height)}`
-        : off.content === 'offcut'
-          ? `offcut to keep, ${at(off.width)} x ${at(off.height)}`
-          : 'waste';
-  return `${step.step}. Cut ${where} ${way} at ${at(step.at)} ${from}: ${what}`;
 }

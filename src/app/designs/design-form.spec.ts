@@ -92,20 +92,25 @@ describe('DesignForm', () => {
     expect(emitted[emitted.length - 1]!.layout.rows).toBe(3);
   });
 
-  it('keeps what is being typed when only the assignments change, and sends the group given since', async () => {
+  it('keeps what is being typed when only the fabric choices change, and sends the groups and assignments made since', async () => {
     const body = starterDesign('1828.8', '2235.2');
     await create(body);
     const rows = await input('Rows');
     await rows.setValue('');
-    // The fabric board gives a group of garments to block 1 while the rows field is empty.
-    const blues = { kind: 'group' as const, name: 'The blues', garmentIds: [8, 9] };
-    fixture.componentRef.setInput('design', { ...body, assignments: [{ target: { kind: 'position', index: 0 }, fabric: blues }] });
+    // The fabric board makes two groups while the rows field is empty, and gives one of them to block 1.
+    const groups = [
+      { id: 'g1', name: 'The blues', garmentIds: [8, 9] },
+      { id: 'g2', name: 'Not given yet', garmentIds: [9, 10] },
+    ];
+    const assignments = [{ target: { kind: 'position' as const, index: 0 }, fabric: { kind: 'group' as const, groupId: 'g1' } }];
+    fixture.componentRef.setInput('design', { ...body, groups, assignments });
     await fixture.whenStable();
     expect(await rows.getValue()).toBe('');
     await rows.setValue('3');
     await settle();
     expect(emitted[emitted.length - 1]!.layout.rows).toBe(3);
-    expect(emitted[emitted.length - 1]!.assignments).toEqual([{ target: { kind: 'position', index: 0 }, fabric: blues }]);
+    expect(emitted[emitted.length - 1]!.groups).toEqual(groups);
+    expect(emitted[emitted.length - 1]!.assignments).toEqual(assignments);
   });
 
   describe('bed size', () => {

@@ -57,7 +57,8 @@ function lengthsValidator(form: () => 'imperial' | 'metric') {
   };
 }
 
-const sameButAssignments = (a: DesignBody, b: DesignBody) => JSON.stringify({ ...a, assignments: [] }) === JSON.stringify({ ...b, assignments: [] });
+/** The same design but for its fabric choices (groups and assignments), which the fabric board changes. */
+const sameButFabrics = (a: DesignBody, b: DesignBody) => JSON.stringify({ ...a, groups: [], assignments: [] }) === JSON.stringify({ ...b, groups: [], assignments: [] });
 
 /** The bed presets by region, for the size menu. */
 const PRESET_GROUPS: readonly { region: BedRegion; presets: readonly MattressPreset[] }[] = (['UK', 'EU', 'US'] as const).map((region) => ({
@@ -92,7 +93,7 @@ export function bedQuiltSize(presetId: string, drop: Length, pillowTuck: Length)
 export class DesignForm {
   private readonly destroyRef = inject(DestroyRef);
 
-  /** The design to start from; assignments are kept as they are. */
+  /** The design to start from; its groups and assignments are kept as they are. */
   readonly design = input.required<DesignBody>();
   readonly stock = input<readonly StockSource[]>([]);
   readonly designChange = output<DesignBody>();
@@ -140,8 +141,8 @@ export class DesignForm {
       const d = this.design();
       untracked(() => {
         if (d === this.loadedFrom || this.isOwnEmission(d)) return;
-        // Only the fabrics moved (the fabric board): keep what is being typed, send the new assignments with it.
-        if (this.loadedFrom && sameButAssignments(d, this.loadedFrom)) this.loadedFrom = d;
+        // Only the fabrics moved (the fabric board): keep what is being typed, send the new groups and assignments with it.
+        if (this.loadedFrom && sameButFabrics(d, this.loadedFrom)) this.loadedFrom = d;
         else this.load(d);
       });
     });
@@ -322,6 +323,7 @@ export class DesignForm {
         ...(b.kind === 'plate' || b.kind === 'fan' ? { blades: b.blades, ...(mm(b.outer) ? { outerRadiusMm: mm(b.outer)! } : {}), ...(mm(b.inner) ? { innerRadiusMm: mm(b.inner)! } : {}) } : {}),
       })),
       pattern,
+      groups: base.groups ?? [],
       assignments: base.assignments,
       finishing: { bindingStockId: v.bindingStockId, bindingStripMm: mm(v.bindingStrip)!, backingStockId: v.backingStockId, waddingStockId: v.waddingStockId, prewash: v.prewash, shrinkPercent: String(v.shrinkPercent) },
       rules: { minimumPerGarment: v.minimumPerGarment },

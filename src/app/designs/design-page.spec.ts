@@ -10,12 +10,12 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatMenuHarness } from '@angular/material/menu/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
-import { DesignBody, deriveDesign } from '@keepstitch/shared';
+import { DesignBody, GarmentGroup, deriveDesign } from '@keepstitch/shared';
 
 import { designScreen, emptyPlan, plateDesign, threeShirts, version } from '../../testing/design-screen';
 import { signedInAs } from '../../testing/signed-in-as';
 import { Notices } from '../core/notices';
-import { GarmentGroup } from './design';
+import { groupFabric } from './design';
 import { DesignPage } from './design-page';
 
 describe('DesignPage', () => {
@@ -105,7 +105,8 @@ describe('DesignPage, groups of garments (owner)', () => {
   let loader: HarnessLoader;
   let httpMock: HttpTestingController;
   let page: HTMLElement;
-  const blues: GarmentGroup = { kind: 'group', name: 'The blues', garmentIds: [8, 9] };
+  const blues: GarmentGroup = { id: 'g1', name: 'The blues', garmentIds: [8, 9] };
+  const toBlues = { kind: 'group' as const, groupId: 'g1' };
 
   beforeEach(async () => {
     TestBed.configureTestingModule({
@@ -125,14 +126,15 @@ describe('DesignPage, groups of garments (owner)', () => {
   afterEach(() => httpMock.verify());
 
   const button = (text: string | RegExp) => loader.getHarness(MatButtonHarness.with({ text }));
-  /** The previews sent after the page's 400 ms pause, answered with a legend that knows the group. */
+  /** The previews sent after the page's 400 ms pause, answered with a legend that knows the design's groups. */
   async function previews(): Promise<DesignBody[]> {
     await new Promise((r) => setTimeout(r, 500));
     await fixture.whenStable();
     const sent = httpMock.match('/api/commissions/5/design/preview');
     for (const req of sent) {
       const body = req.request.body as DesignBody;
-      req.flush({ derived: deriveDesign(body), plan: emptyPlan(12, 12), fabrics: [...threeShirts().fabrics, { key: 'group:8,9', kind: 'group', id: null, name: 'The blues', hex: '#5a78a8', detail: 'any of 2 garments' }] });
+      const legend = threeShirts().fabrics;
+      req.flush({ derived: deriveDesign(body), plan: emptyPlan(12, 12), fabrics: [...legend, ...(body.groups ?? []).map((g) => groupFabric(g, legend))] });
     }
     await fixture.whenStable();
     return sent.map((r) => r.request.body as DesignBody);
@@ -147,13 +149,13 @@ describe('DesignPage, groups of garments (owner)', () => {
     await fixture.whenStable();
   }
 
-  it('makes a named group of garments, which the legend shows with its colour', async () => {
+  it('makes a named group of garments, kept in the design at once, which the legend shows in stripes of its garments', async () => {
     await makeTheBlues();
     const row = page.querySelector<HTMLElement>('[data-testid="group-row"]')!;
     expect(row.textContent).toContain('The blues');
     expect(row.textContent).toContain('Blue oxford work shirt, Navy knit polo');
     expect(row.textContent).toContain('not given to anything yet');
-    const chip = page.querySelector<HTMLElement>('[data-testid="fabric-chip"][data-fabric="group:8,9"]')!;
+    const chip = page.querySelector<HTMLElement>('[data-testid="fabric-chip"][data-fabric="group:g1"]')!;
     expect(chip.textContent).toContain('The blues');
     expect(chip.textContent).toContain('any of 2 garments');
     // Its swatch is striped with its garments' colours, blue (157, 183, 213) and navy (38, 53, 93).
@@ -161,8 +163,28 @@ describe('DesignPage, groups of garments (owner)', () => {
     expect(swatch).toContain('repeating-linear-gradient');
     expect(swatch).toContain('rgb(157, 183, 213)');
     expect(swatch).toContain('rgb(38, 53, 93)');
-    // Nothing was assigned, so nothing was sent.
-    expect(await previews()).toEqual([]);
+    // Given to nothing, it is in the design all the same.
+    const sent = await previews();
+    expect(sent[sent.length - 1]!.groups).toEqual([blues]);
+    expect(sent[sent.length - 1]!.assignments).toEqual([]);
+  });
+
+  it('saves a group given to nothing, and shows it again from the stored design', async () => {
+    await makeTheBlues();
+    await previews();
+    await (await button('Save as new version')).click();
+    const save = httpMock.expectOne({ method: 'POST', url: '/api/commissions/5/design' });
+    const saved = (save.request.body as { body: DesignBody }).body;
+    expect(saved.groups).toEqual([blues]);
+    expect(saved.assignments).toEqual([]);
+    save.flush(version(2, saved));
+    await fixture.whenStable();
+    const legend = threeShirts().fabrics;
+    httpMock.expectOne('/api/commissions/5/design').flush(designScreen(version(2, saved), [version(1)], { ...threeShirts(), fabrics: [...legend, groupFabric(blues, legend)] }));
+    await fixture.whenStable();
+    const row = page.querySelector<HTMLElement>('[data-testid="group-row"]')!;
+    expect(row.textContent).toContain('The blues');
+    expect(row.textContent).toContain('not given to anything yet');
   });
 
   it('refuses a group of one garment, a second group of the same garments and a name taken', async () => {
@@ -182,6 +204,7 @@ describe('DesignPage, groups of garments (owner)', () => {
     const field = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Group name' }));
     expect(await field.getTextErrors()).toEqual(['Another group has that name.']);
     expect(page.querySelectorAll('[data-testid="group-row"]').length).toBe(1);
+    await previews();
   });
 
   it('assigns the group to a kind of piece by the table and to a block by its menu, and sends it in the preview and the saved body', async () => {
@@ -198,26 +221,28 @@ describe('DesignPage, groups of garments (owner)', () => {
     const sent = await previews();
     expect(sent.length).toBeGreaterThan(0);
     const last = sent[sent.length - 1]!;
-    expect(last.assignments).toContain({ target: { kind: 'piece', key: 'block:A:square' }, fabric: blues });
-    expect(last.assignments).toContain({ target: { kind: 'position', index: 1 }, fabric: blues });
+    expect(last.groups).toEqual([blues]);
+    expect(last.assignments).toContain({ target: { kind: 'piece', key: 'block:A:square' }, fabric: toBlues });
+    expect(last.assignments).toContain({ target: { kind: 'position', index: 1 }, fabric: toBlues });
 
     // The drawing fills the group's places with stripes of its garments' colours (blue and navy).
     const tile = page.querySelector<HTMLElement>('[data-testid="position-tile"][data-position="1"]')!;
-    expect(tile.getAttribute('data-fabric')).toBe('group:8,9');
+    expect(tile.getAttribute('data-fabric')).toBe('group:g1');
     expect(tile.getAttribute('aria-label')).toBe('Block 2 (B): The blues');
     const drawing = page.querySelector('[data-testid="quilt-drawing"]')!;
-    const filled = [...drawing.querySelectorAll('polygon[data-fill="group:8,9"]')];
+    const filled = [...drawing.querySelectorAll('polygon[data-fill="group:g1"]')];
     expect(filled.length).toBeGreaterThan(1);
-    expect(filled.every((p) => p.getAttribute('fill') === 'url(#ks-group-8-9)')).toBeTrue();
-    const stripes = [...drawing.querySelectorAll('pattern#ks-group-8-9 rect')].map((r) => r.getAttribute('fill'));
-    expect(stripes).toEqual(['#9db7d5', '#26355d']);
+    const pattern = drawing.querySelector('pattern[data-group="group:g1"]')!;
+    expect(filled.every((p) => p.getAttribute('fill') === `url(#${pattern.id})`)).toBeTrue();
+    expect([...pattern.querySelectorAll('rect')].map((r) => r.getAttribute('fill'))).toEqual(['#9db7d5', '#26355d']);
     expect(page.querySelector('[data-testid="group-row"]')!.textContent).toContain('given to 2 places');
 
     await (await button('Save as new version')).click();
     const save = httpMock.expectOne({ method: 'POST', url: '/api/commissions/5/design' });
     const saved = (save.request.body as { body: DesignBody }).body;
-    expect(saved.assignments).toContain({ target: { kind: 'piece', key: 'block:A:square' }, fabric: blues });
-    expect(saved.assignments).toContain({ target: { kind: 'position', index: 1 }, fabric: blues });
+    expect(saved.groups).toEqual([blues]);
+    expect(saved.assignments).toContain({ target: { kind: 'piece', key: 'block:A:square' }, fabric: toBlues });
+    expect(saved.assignments).toContain({ target: { kind: 'position', index: 1 }, fabric: toBlues });
     save.flush(version(2, saved));
     await fixture.whenStable();
     httpMock.expectOne('/api/commissions/5/design').flush(designScreen(version(2, saved), [version(1)], threeShirts()));
@@ -226,7 +251,7 @@ describe('DesignPage, groups of garments (owner)', () => {
     expect(page.querySelector('[data-testid="group-row"]')!.textContent).toContain('The blues');
   });
 
-  it('renames a group and changes its garments everywhere it is given, and removing it gives its places back to the planner', async () => {
+  it('renames a group and changes its garments, the places given it keeping it, and removing it gives its places back to the planner', async () => {
     await makeTheBlues();
     const menu = await loader.getHarness(MatMenuHarness.with({ selector: '[data-testid="position-tile"][data-position="0"]' }));
     await menu.open();
@@ -241,13 +266,31 @@ describe('DesignPage, groups of garments (owner)', () => {
     expect(page.querySelectorAll('[data-testid="group-row"]').length).toBe(1);
     expect(page.querySelector('[data-testid="group-row"]')!.textContent).toContain('Cool colours');
     let sent = await previews();
-    expect(sent[sent.length - 1]!.assignments).toEqual([{ target: { kind: 'position', index: 0 }, fabric: { kind: 'group', name: 'Cool colours', garmentIds: [8, 9, 10] } }]);
+    expect(sent[sent.length - 1]!.groups).toEqual([{ id: 'g1', name: 'Cool colours', garmentIds: [8, 9, 10] }]);
+    expect(sent[sent.length - 1]!.assignments).toEqual([{ target: { kind: 'position', index: 0 }, fabric: toBlues }]);
 
     await (await loader.getHarness(MatButtonHarness.with({ selector: '[aria-label="Remove the group Cool colours"]' }))).click();
     await fixture.whenStable();
     expect(page.querySelectorAll('[data-testid="group-row"]').length).toBe(0);
     expect([...page.querySelectorAll('[data-testid="fabric-chip"]')].map((c) => c.textContent).join(' ')).not.toContain('Cool colours');
     sent = await previews();
+    expect(sent[sent.length - 1]!.groups).toEqual([]);
     expect(sent[sent.length - 1]!.assignments).toEqual([]);
+  });
+
+  it('marks in the drawing the block the plan keeps the pocket in, with a key', async () => {
+    const plan = { ...emptyPlan(12, 12), keptFeatures: [{ featureId: 'panel-101-feature-1', feature: 'breast pocket', garmentId: 10, garment: 'Green checked flannel shirt', panel: 'left front', pieceId: 'p1', copy: 2 }] };
+    const body = version(1).body;
+    await makeTheBlues();
+    await new Promise((r) => setTimeout(r, 500));
+    for (const req of httpMock.match('/api/commissions/5/design/preview')) req.flush({ derived: deriveDesign(req.request.body as DesignBody), plan, fabrics: threeShirts().fabrics });
+    await fixture.whenStable();
+    // plateDesign: A B / B A, so piece p1 (Block A squares, planner's choice) copy 2 is the second A: block 4.
+    expect(deriveDesign(body).pieces[0]!.key).toBe('block:A:square');
+    const mark = page.querySelector('[data-testid="quilt-drawing"] [data-testid="kept-mark"]')!;
+    expect(mark.getAttribute('data-kept-position')).toBe('3');
+    expect(mark.getAttribute('aria-label')).toBe('Block 4 keeps the breast pocket from the Green checked flannel shirt');
+    expect(page.querySelector('[data-testid="quilt-drawing"]')!.getAttribute('aria-label')).toContain('Block 4 keeps the breast pocket');
+    expect(page.querySelector('[data-testid="kept-legend"]')!.textContent).toContain('Block 4 keeps the breast pocket from the Green checked flannel shirt.');
   });
 });

@@ -8,7 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { Assignment, DesignBody, DesignDerivation, DesignPlanSummary, DomainError, Length, deriveDesign, formatFabricLength, formatLength } from '@keepstitch/shared';
+import { DesignBody, DesignDerivation, DesignPlanSummary, DomainError, Length, deriveDesign, formatFabricLength, formatLength, keptFeaturePieces, keptFeaturePlaces } from '@keepstitch/shared';
 import { Subject, debounceTime, switchMap, catchError, of } from 'rxjs';
 
 import { messageFor } from '../core/api-error';
@@ -18,7 +18,7 @@ import { DesignScreen, DesignVersion, Fabric, starterDesign } from './design';
 import { DesignForm } from './design-form';
 import { DesignVersionView } from './design-version-view';
 import { DesignsApi } from './designs-api';
-import { FabricBoard } from './fabric-board';
+import { FabricBoard, FabricChoices } from './fabric-board';
 import { QuiltDrawing } from './quilt-drawing';
 
 type LoadState = 'loading' | 'ready' | 'missing' | 'failed';
@@ -78,6 +78,13 @@ export class DesignPage {
     return { width: both(d.finished.widthMm), length: both(d.finished.lengthMm), targetWidth: both(d.target.widthMm), targetLength: both(d.target.lengthMm), diffWidth: diff(d.difference.widthMm), diffLength: diff(d.difference.lengthMm) };
   });
   protected readonly garmentName = computed(() => new Map(this.fabrics().map((f) => [f.key, f.name])));
+  /** Where the plan keeps features whole, for the drawing to mark. */
+  protected readonly keptPlaces = computed(() => {
+    const b = this.body();
+    const d = this.derivation().derived;
+    const p = this.plan();
+    return b && d && p ? keptFeaturePlaces(b, d, keptFeaturePieces(p)) : [];
+  });
 
   private readonly replan$ = new Subject<DesignBody>();
 
@@ -123,9 +130,9 @@ export class DesignPage {
     if (this.isOwner() && !this.derivationOf(b).error) this.replan$.next(b);
   }
 
-  protected assignmentsChanged(assignments: Assignment[]): void {
+  protected fabricChoicesChanged(choices: FabricChoices): void {
     const b = this.body();
-    if (b) this.designChanged({ ...b, assignments });
+    if (b) this.designChanged({ ...b, ...choices });
   }
 
   private derivationOf(b: DesignBody): { error: string | null } {

@@ -10,7 +10,7 @@ import { DesignDerivation, Length, formatLength } from '@keepstitch/shared';
 
 import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
-import { SharedDesign } from './design';
+import { SharedDesign, swatchOf } from './design';
 import { DesignsApi } from './designs-api';
 import { QuiltDrawing } from './quilt-drawing';
 
@@ -29,10 +29,10 @@ import { QuiltDrawing } from './quilt-drawing';
       }
       @if (shared(); as s) {
         <p>{{ s.commission.title }}, version {{ s.version }}, shared {{ s.sharedAt | date: 'd MMM y' }}.</p>
-        <ks-quilt-drawing [body]="s.body" [derived]="derived()!" [colours]="colours()" />
+        <ks-quilt-drawing [body]="s.body" [derived]="derived()!" [colours]="colours()" [kept]="s.keptFeatures ?? []" />
         <p data-testid="review-size">Finished size {{ size() }}.</p>
         <ul class="legend">
-          @for (f of s.fabrics; track f.key) { <li><span class="swatch" [style.background]="f.hex"></span>{{ f.name }}</li> }
+          @for (f of s.fabrics; track f.key) { <li data-testid="review-fabric"><span class="swatch" [style.background]="swatch(f)"></span>{{ f.name }}</li> }
         </ul>
         @if (s.clientResponse) {
           <p role="status" data-testid="review-answer">You {{ s.clientResponse === 'approved' ? 'approved this design' : 'asked for a change' }}{{ s.clientNote ? ': “' + s.clientNote + '”' : '.' }}</p>
@@ -80,6 +80,7 @@ export class DesignReview {
     const both = (mm: string) => `${formatLength(Length.millimetres(mm), 'imperial')} (${formatLength(Length.millimetres(mm), 'metric')})`;
     return `${both(d.finished.widthMm)} × ${both(d.finished.lengthMm)}`;
   });
+  protected readonly swatch = swatchOf;
   protected readonly form = new FormGroup({ note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }) });
 
   constructor() {

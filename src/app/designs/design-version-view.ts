@@ -1,7 +1,7 @@
 import { DatePipe, PercentPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { BLOCK_KIND_LABELS, Length, MATTRESS_PRESETS, formatLength } from '@keepstitch/shared';
+import { BLOCK_KIND_LABELS, Length, MATTRESS_PRESETS, formatLength, keptFeaturePieces, keptFeaturePlaces } from '@keepstitch/shared';
 
 import { DesignVersion } from './design';
 import { QuiltDrawing } from './quilt-drawing';
@@ -24,7 +24,7 @@ const both = (mm: string) => `${formatLength(Length.millimetres(mm), 'imperial')
         @if (v.clientResponse) { The client {{ v.clientResponse === 'approved' ? 'approved it' : 'asked for a change' }}{{ v.clientNote ? ': “' + v.clientNote + '”' : '.' }} }
       </p>
       <div class="body">
-        <ks-quilt-drawing [body]="v.body" [derived]="v.derived" [colours]="colours()" />
+        <ks-quilt-drawing [body]="v.body" [derived]="v.derived" [colours]="colours()" [kept]="kept()" />
         <dl class="facts" data-testid="version-facts">
           <div><dt>Finished</dt><dd>{{ size().finished }}</dd></div>
           <div><dt>Target</dt><dd>{{ size().target }}{{ preset() }}</dd></div>
@@ -56,6 +56,10 @@ export class DesignVersionView {
   readonly closed = output<void>();
 
   protected readonly kindLabels = BLOCK_KIND_LABELS;
+  protected readonly kept = computed(() => {
+    const v = this.version();
+    return keptFeaturePlaces(v.body, v.derived, keptFeaturePieces(v.plan));
+  });
   protected readonly size = computed(() => {
     const d = this.version().derived;
     return { finished: `${both(d.finished.widthMm)} × ${both(d.finished.lengthMm)}`, target: `${both(d.target.widthMm)} × ${both(d.target.lengthMm)}` };

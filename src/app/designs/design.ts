@@ -1,4 +1,4 @@
-import { fabricColour, fabricKey, type Assignment, type DesignBody, type DesignDerivation, type DesignPlanSummary, type FabricRef } from '@keepstitch/shared';
+import { UNKNOWN_FABRIC_COLOUR, groupLegendEntry, groupStripes, type DesignBody, type DesignDerivation, type DesignPlanSummary, type GarmentGroup } from '@keepstitch/shared';
 import * as z from 'zod/mini';
 
 const object = <T>() => z.custom<T>((v) => typeof v === 'object' && v !== null);
@@ -12,6 +12,8 @@ export const fabricSchema = z.object({
   name: z.string(),
   colour: z.optional(z.nullable(z.string())),
   hex: z.string(),
+  /** A group of garments: the stripes it is drawn in. */
+  stripes: z.optional(z.array(z.string())),
   detail: z.optional(z.string()),
 });
 export type Fabric = z.infer<typeof fabricSchema>;
@@ -38,7 +40,17 @@ export const garmentSourceSchema = z.object({
   fibre: z.string(),
   print: z.string(),
   construction: z.string(),
-  panels: z.array(z.object({ id: z.number(), name: z.string(), widthMm: z.string(), heightMm: z.string(), grain: z.string() })),
+  panels: z.array(
+    z.object({
+      id: z.number(),
+      name: z.string(),
+      widthMm: z.string(),
+      heightMm: z.string(),
+      grain: z.string(),
+      /** Kept features measured on the panel: top-left corner and size, exact mm. */
+      features: z.optional(z.array(z.object({ name: z.string(), xMm: z.string(), yMm: z.string(), widthMm: z.string(), heightMm: z.string() }))),
+    }),
+  ),
 });
 export type GarmentSource = z.infer<typeof garmentSourceSchema>;
 
@@ -75,7 +87,9 @@ export const sharedDesignSchema = z.object({
   sharedAt: z.string(),
   body: object<DesignBody>(),
   derived: object<DesignDerivation>(),
-  fabrics: z.array(z.object({ key: z.string(), kind: z.string(), name: z.string(), hex: z.string() })),
+  fabrics: z.array(z.object({ key: z.string(), kind: z.string(), name: z.string(), hex: z.string(), stripes: z.optional(z.array(z.string())) })),
+  /** Where the kept features go in the top. */
+  keptFeatures: z.optional(z.array(z.object({ position: z.number(), rail: z.nullable(z.number()), feature: z.string(), garment: z.string() }))),
   clientResponse: z.nullable(z.enum(['approved', 'changes_requested'])),
   clientNote: z.nullable(z.string()),
   respondedAt: date,
@@ -94,49 +108,27 @@ export const careCardSchema = z.object({
 });
 export type CareCard = z.infer<typeof careCardSchema>;
 
-/** A named group of the commission's garments; the planner picks among them. */
-export type GarmentGroup = Extract<FabricRef, { kind: 'group' }>;
-
-/** The groups the assignments name, once each, in the order first used. */
-export function groupsOf(assignments: readonly Assignment[]): GarmentGroup[] {
-  const seen = new Map<string, GarmentGroup>();
-  for (const a of assignments) if (a.fabric.kind === 'group' && !seen.has(fabricKey(a.fabric))) seen.set(fabricKey(a.fabric), a.fabric);
-  return [...seen.values()];
+/** A group as a fabric of the legend, as the server gives it: drawn in stripes of its garments' colours. */
+export function groupFabric(group: GarmentGroup, legend: readonly Fabric[]): Fabric {
+  const hex = new Map(legend.map((f) => [f.key, f.hex]));
+  return { ...groupLegendEntry(group, (id) => hex.get(`garment:${id}`)), kind: 'group', id: null, colour: null };
 }
 
-/**
- * A group as a fabric of the legend: the server's colour once it has seen the
- * group, before that the colour it gives (that of the group's first garment).
- */
-export function groupFabric(group: GarmentGroup, garments: readonly GarmentSource[], legend: readonly Fabric[]): Fabric {
-  const key = fabricKey(group);
-  const known = legend.find((f) => f.key === key && f.kind === 'group');
-  const first = garments.find((g) => g.id === group.garmentIds[0]);
-  const n = group.garmentIds.length;
-  return { key, kind: 'group', id: null, name: group.name, colour: null, hex: known?.hex ?? fabricColour(`${first?.colour ?? ''} ${first?.description ?? group.name}`), detail: `any of ${n} garment${n === 1 ? '' : 's'}` };
-}
-
-/** The colours of a group's garments, from its key ("group:8,9") and the drawing colours by fabric key. */
-export function groupColours(key: string, colours: Readonly<Record<string, string | undefined>>): string[] {
-  return key
-    .replace(/^group:/, '')
-    .split(',')
-    .filter(Boolean)
-    .map((id) => colours[`garment:${id}`] ?? '#b9a98a');
+/** The stripes a group is drawn in, from the drawing colours by fabric key. */
+export function groupColours(group: Pick<GarmentGroup, 'garmentIds'>, colours: Readonly<Record<string, string | undefined>>): string[] {
+  return groupStripes(group.garmentIds, (id) => colours[`garment:${id}`]);
 }
 
 /** A CSS background for a swatch: one colour, or diagonal stripes of a group's garments. */
 export function swatchBackground(colours: readonly string[]): string {
-  if (colours.length <= 1) return colours[0] ?? '#b9a98a';
+  if (colours.length <= 1) return colours[0] ?? UNKNOWN_FABRIC_COLOUR;
   const stops = colours.map((c, i) => `${c} ${i * 6}px ${(i + 1) * 6}px`).join(', ');
   return `repeating-linear-gradient(45deg, ${stops})`;
 }
 
-/** Words for a fabric reference, from the legend. */
-export function fabricName(ref: FabricRef | null, fabrics: readonly { key: string; name: string }[]): string {
-  if (!ref) return 'Planner chooses (any garment)';
-  const key = ref.kind === 'garment' ? `garment:${ref.garmentId}` : ref.kind === 'stock' ? `stock:${ref.stockId}` : `group:${[...ref.garmentIds].sort((a, b) => a - b).join(',')}`;
-  return fabrics.find((f) => f.key === key)?.name ?? (ref.kind === 'group' ? ref.name : key);
+/** A fabric's swatch background: its stripes when it has them, else its colour. */
+export function swatchOf(fabric: Pick<Fabric, 'hex' | 'stripes'>): string {
+  return fabric.stripes ? swatchBackground(fabric.stripes) : fabric.hex;
 }
 
 /** A design to start from: the commission's size, 12 in plain squares with 2 in sashing. */
@@ -152,6 +144,7 @@ export function starterDesign(widthMm: string | null, lengthMm: string | null): 
     layout: { setting: 'straight', rows, columns, blockMm: String(block), sashing: { widthMm: '50.8', cornerstones: true }, borders: [] },
     blocks: [{ id: 'A', name: 'Plain square', kind: 'square' }],
     pattern: ['A'],
+    groups: [],
     assignments: [],
     finishing: { bindingStockId: null, bindingStripMm: '63.5', backingStockId: null, waddingStockId: null, prewash: true, shrinkPercent: '3' },
     rules: { minimumPerGarment: 0 },

@@ -4,9 +4,15 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { fabricKey } from '@keepstitch/shared';
+import { GARMENT_GROUP_LIMITS, GarmentGroup } from '@keepstitch/shared';
 
-import { GarmentGroup, GarmentSource } from './design';
+import { GarmentSource } from './design';
+
+/** A group as the form gives it: its name and garments (the design gives it its id). */
+export type GroupDraft = Omit<GarmentGroup, 'id'>;
+
+const inOrder = (ids: readonly number[]) => [...ids].sort((x, y) => x - y).join(',');
+const sameGarments = (a: readonly number[], b: readonly number[]) => inOrder(a) === inOrder(b);
 
 /**
  * Makes or changes a named group of the commission's garments: a name and the
@@ -20,7 +26,7 @@ import { GarmentGroup, GarmentSource } from './design';
     <form [formGroup]="form" class="group-form" (ngSubmit)="saveGroup()" data-testid="group-form" [attr.aria-label]="group() ? 'Change the group ' + group()!.name : 'New group of garments'">
       <mat-form-field>
         <mat-label>Group name</mat-label>
-        <input matInput formControlName="name" maxlength="100" />
+        <input matInput formControlName="name" [maxlength]="nameLimit" />
         @if (form.controls.name.hasError('required')) {
           <mat-error>Give the group a name.</mat-error>
         }
@@ -59,7 +65,7 @@ export class GarmentGroupForm {
   readonly group = input<GarmentGroup | null>(null);
   /** The other groups, which this one may not copy. */
   readonly others = input<readonly GarmentGroup[]>([]);
-  readonly saved = output<GarmentGroup>();
+  readonly saved = output<GroupDraft>();
   readonly cancelled = output<void>();
 
   protected readonly form = new FormGroup({
@@ -67,6 +73,7 @@ export class GarmentGroupForm {
     picked: new FormArray<FormControl<boolean>>([]),
   });
   protected readonly problem = signal<string | null>(null);
+  protected readonly nameLimit = GARMENT_GROUP_LIMITS.name;
 
   constructor() {
     effect(() => {
@@ -98,8 +105,8 @@ export class GarmentGroupForm {
       this.problem.set('Tick two garments at least; for one garment, use the garment itself.');
       return;
     }
-    const group: GarmentGroup = { kind: 'group', name: this.form.controls.name.value.trim(), garmentIds };
-    const same = this.others().find((o) => fabricKey(o) === fabricKey(group));
+    const group: GroupDraft = { name: this.form.controls.name.value.trim(), garmentIds };
+    const same = this.others().find((o) => sameGarments(o.garmentIds, garmentIds));
     if (same) {
       this.problem.set(`The group “${same.name}” has these garments already.`);
       return;

@@ -1,5 +1,5 @@
 import { ComponentFixture, TestBed } from '@angular/core/testing';
-import { DesignBody, deriveDesign } from '@keepstitch/shared';
+import { DesignBody, KeptFeaturePlace, deriveDesign } from '@keepstitch/shared';
 
 import { QuiltDrawing } from './quilt-drawing';
 
@@ -24,12 +24,13 @@ function design(over: Partial<DesignBody['layout']> = {}): DesignBody {
 describe('QuiltDrawing', () => {
   let fixture: ComponentFixture<QuiltDrawing>;
 
-  async function draw(body: DesignBody, colours: Record<string, string> = {}): Promise<SVGSVGElement> {
+  async function draw(body: DesignBody, colours: Record<string, string> = {}, kept: KeptFeaturePlace[] = []): Promise<SVGSVGElement> {
     TestBed.configureTestingModule({ imports: [QuiltDrawing] });
     fixture = TestBed.createComponent(QuiltDrawing);
     fixture.componentRef.setInput('body', body);
     fixture.componentRef.setInput('derived', deriveDesign(body));
     fixture.componentRef.setInput('colours', colours);
+    fixture.componentRef.setInput('kept', kept);
     await fixture.whenStable();
     return (fixture.nativeElement as HTMLElement).querySelector('svg')!;
   }
@@ -69,5 +70,34 @@ describe('QuiltDrawing', () => {
     // A turned square's first corner sits straight above... its corners differ in both x and y from their neighbours.
     expect(Math.abs(pts[0]![0]! - pts[1]![0]!)).toBeGreaterThan(1);
     expect(Math.abs(pts[0]![1]! - pts[1]![1]!)).toBeGreaterThan(1);
+  });
+
+  it("fills a group's places with stripes of its garments' colours, in the group's order, from the design's list of groups", async () => {
+    const body = { ...design(), groups: [{ id: 'g1', name: 'The blues', garmentIds: [9, 4] }], assignments: [{ target: { kind: 'position' as const, index: 0 }, fabric: { kind: 'group' as const, groupId: 'g1' } }] };
+    const svg = await draw(body, { 'garment:4': '#123456', 'garment:9': '#abcdef' });
+    const pattern = svg.querySelector('pattern[data-group="group:g1"]')!;
+    expect([...pattern.querySelectorAll('rect')].map((r) => r.getAttribute('fill'))).toEqual(['#abcdef', '#123456']);
+    expect(svg.querySelector('polygon[data-position="0"]')!.getAttribute('fill')).toBe(`url(#${pattern.id})`);
+  });
+
+  it('marks the block holding a kept feature with an outline, names it, and keys it below', async () => {
+    const svg = await draw(design(), {}, [{ position: 2, rail: null, feature: 'breast pocket', garment: 'Green flannel shirt' }]);
+    const marks = svg.querySelectorAll('[data-testid="kept-mark"]');
+    expect(marks.length).toBe(1);
+    expect(marks[0]!.getAttribute('aria-label')).toBe('Block 3 keeps the breast pocket from the Green flannel shirt');
+    expect(marks[0]!.querySelector('title')!.textContent).toBe('Block 3 keeps the breast pocket from the Green flannel shirt');
+    // The outline is block 3's square: its corners are those of the block's own polygon.
+    const dashed = marks[0]!.querySelector('polygon[stroke-dasharray]')!;
+    expect(dashed.getAttribute('points')).toBe(svg.querySelector('polygon[data-position="2"]')!.getAttribute('points'));
+    expect(dashed.getAttribute('stroke')).toBe('#000');
+    expect(svg.getAttribute('aria-label')).toBe('Drawing of the quilt top, 6 blocks; Block 3 keeps the breast pocket from the Green flannel shirt');
+    const key = (fixture.nativeElement as HTMLElement).querySelector('[data-testid="kept-legend"]')!;
+    expect(key.textContent).toContain('Dashed outline and dot: a block piece cut around a feature kept whole');
+    expect(key.textContent).toContain('Block 3 keeps the breast pocket from the Green flannel shirt.');
+  });
+
+  it('shows no key when nothing is kept', async () => {
+    await draw(design());
+    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="kept-legend"]')).toBeNull();
   });
 });
