@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import Decimal from 'decimal.js';
-import { COLOUR_RUN, CONSTRUCTION, FEATURE, FIBRE, GRAIN, KEPT_FEATURE_LIMITS, Length, PREWASH, PRINT, formatLength, type PanelFeature } from '@keepstitch/shared';
+import { COLOUR_RUN, CONSTRUCTION, FEATURE, FIBRE, GARMENT_TEXT_LIMITS as TEXT, GRAIN, KEPT_FEATURE_LIMITS, Length, PREWASH, PRINT, formatLength, type PanelFeature } from '@keepstitch/shared';
 import { optionalText } from '../core/validate';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 
@@ -14,18 +14,18 @@ const featureSchema = z
   .strict();
 
 const garmentFields = {
-  description: z.string({ message: 'Describe the garment.' }).trim().min(1, 'Describe the garment.').max(300, 'A description can be at most 300 characters.'),
-  whose: optionalText(200, 'Whose it was'),
-  story: optionalText(5000, 'Story'),
+  description: z.string({ message: 'Describe the garment.' }).trim().min(1, 'Describe the garment.').max(TEXT.description, `A description can be at most ${TEXT.description} characters.`),
+  whose: optionalText(TEXT.whose, 'Whose it was'),
+  story: optionalText(TEXT.story, 'Story'),
   fibre: oneOf(FIBRE.values, 'Choose the fibre.').nullable().optional(),
   construction: oneOf(CONSTRUCTION.values, 'Choose woven or knit.').optional(),
-  colour: optionalText(100, 'Colour'),
+  colour: optionalText(TEXT.colour, 'Colour'),
   print: oneOf(PRINT.values, 'Choose the kind of print.').optional(),
-  condition: optionalText(2000, 'Condition'),
+  condition: optionalText(TEXT.condition, 'Condition'),
   features: z.array(featureSchema).max(KEPT_FEATURE_LIMITS.features, `At most ${KEPT_FEATURE_LIMITS.features} kept features.`).optional(),
   prewash: oneOf(PREWASH.values, 'Choose the pre-wash status.').optional(),
   colourRun: oneOf(COLOUR_RUN.values, 'Choose the colour-run result.').optional(),
-  returnsToClient: optionalText(1000, 'What returns to the client'),
+  returnsToClient: optionalText(TEXT.returnsToClient, 'What returns to the client'),
 };
 
 /** Staff may set every field; a client announces with its own words and the basics. */
@@ -43,21 +43,21 @@ export const custodyEventSchema = z
   .discriminatedUnion(
     'kind',
     [
-      z.object({ kind: z.literal('received'), note: optionalText(1000, 'Note'), place: optionalText(60, 'Place') }).strict(),
-      z.object({ kind: z.literal('washed'), note: optionalText(1000, 'Note') }).strict(),
-      z.object({ kind: z.literal('stored'), place: z.string({ message: 'Say where it is stored (box or shelf).' }).trim().min(1, 'Say where it is stored (box or shelf).').max(60), note: optionalText(1000, 'Note') }).strict(),
-      z.object({ kind: z.literal('moved'), place: z.string({ message: 'Say where it was moved to.' }).trim().min(1, 'Say where it was moved to.').max(60), note: optionalText(1000, 'Note') }).strict(),
-      z.object({ kind: z.literal('cut'), note: optionalText(1000, 'Note') }).strict(),
+      z.object({ kind: z.literal('received'), note: optionalText(TEXT.returnsToClient, 'Note'), place: optionalText(60, 'Place') }).strict(),
+      z.object({ kind: z.literal('washed'), note: optionalText(TEXT.returnsToClient, 'Note') }).strict(),
+      z.object({ kind: z.literal('stored'), place: z.string({ message: 'Say where it is stored (box or shelf).' }).trim().min(1, 'Say where it is stored (box or shelf).').max(60), note: optionalText(TEXT.returnsToClient, 'Note') }).strict(),
+      z.object({ kind: z.literal('moved'), place: z.string({ message: 'Say where it was moved to.' }).trim().min(1, 'Say where it was moved to.').max(60), note: optionalText(TEXT.returnsToClient, 'Note') }).strict(),
+      z.object({ kind: z.literal('cut'), note: optionalText(TEXT.returnsToClient, 'Note') }).strict(),
       z
         .object({
           kind: z.literal('returned'),
           returnMethod: z.enum(['in_person', 'post'], { message: 'Say how it was returned: in person or by post.' }),
           trackingRef: optionalText(60, 'Tracking reference'),
-          note: optionalText(1000, 'Note'),
+          note: optionalText(TEXT.returnsToClient, 'Note'),
         })
         .strict()
         .refine((v) => v.returnMethod !== 'post' || !!v.trackingRef, { path: ['trackingRef'], message: 'Give the tracking reference for a garment sent by post.' }),
-      z.object({ kind: z.literal('withdrawn'), note: optionalText(1000, 'Note') }).strict(),
+      z.object({ kind: z.literal('withdrawn'), note: optionalText(TEXT.returnsToClient, 'Note') }).strict(),
       z
         .object({
           kind: z.literal('correction'),

@@ -67,5 +67,8 @@ export interface KeptFeature {
   position: string;
 }
 
+/** The longest text the server keeps in each of a garment's text fields, the same for the forms and the server. */
+export const GARMENT_TEXT_LIMITS = { description: 300, whose: 200, story: 5000, colour: 100, condition: 2000, returnsToClient: 1000 } as const;
+
 /** Limits on a garment's kept features, the same for the forms and the server: characters of a position, features a garment. */
 export const KEPT_FEATURE_LIMITS = { position: 200, features: 20 } as const;

@@ -145,4 +145,12 @@ describe('GarmentDetailsForm', () => {
     await save();
     expect(httpMock.expectOne('/api/garments/21').request.body).toEqual({ features: [{ kind: 'pocket', position: 'x'.repeat(200) }] });
   });
+
+  it('says the limit of a text field past it instead of refusing silently', async () => {
+    await open(shirt);
+    await (await input('Condition')).setValue('c'.repeat(2001));
+    await save();
+    httpMock.expectNone('/api/garments/21');
+    expect(await (await field('Condition')).getTextErrors()).toEqual(['At most 2000 characters']);
+  });
 });

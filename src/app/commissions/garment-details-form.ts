@@ -12,6 +12,7 @@ import {
   Construction,
   FEATURE,
   FIBRE,
+  GARMENT_TEXT_LIMITS,
   Fibre,
   PREWASH,
   PRINT,
@@ -55,20 +56,21 @@ export class GarmentDetailsForm implements OnInit {
   protected readonly colourRuns = COLOUR_RUN.options;
   protected readonly featureKinds = FEATURE.options;
   protected readonly positionLimit = POSITION_LIMIT;
+  protected readonly limits = GARMENT_TEXT_LIMITS;
 
   protected readonly form = new FormGroup({
-    description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(300)] }),
-    whose: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(200)] }),
-    story: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(5000)] }),
+    description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(GARMENT_TEXT_LIMITS.description)] }),
+    whose: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.whose)] }),
+    story: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.story)] }),
     fibre: new FormControl<Fibre | null>(null),
     construction: new FormControl<Construction | null>(null),
-    colour: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(100)] }),
+    colour: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.colour)] }),
     print: new FormControl<Print | null>(null),
-    condition: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
+    condition: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.condition)] }),
     features: new FormArray<KeptFeatureForm>([]),
     prewash: new FormControl<Prewash | null>(null),
     colourRun: new FormControl<ColourRun | null>(null),
-    returnsToClient: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(1000)] }),
+    returnsToClient: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.returnsToClient)] }),
   });
 
   protected readonly saving = signal(false);

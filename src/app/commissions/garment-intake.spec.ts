@@ -52,4 +52,21 @@ describe('GarmentIntake, kept features', () => {
     await step('Kept features');
     expect(await (await field('Where on the garment')).getTextErrors()).toEqual(['At most 200 characters.']);
   });
+
+  it('takes a description as long as the server keeps (300 characters) and says the limit past it', async () => {
+    await (await input('Description')).setValue('d'.repeat(301));
+    await (await input('Description')).blur();
+    expect(await (await field('Description')).getTextErrors()).toEqual(['At most 300 characters']);
+    await (await input('Description')).setValue('d'.repeat(300));
+    await step('Photos');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save garment' }))).click();
+    await fixture.whenStable();
+    expect(httpMock.expectOne('/api/commissions/3/garments').request.body.description).toBe('d'.repeat(300));
+  });
+
+  it('says the limit on the other text fields instead of refusing silently', async () => {
+    await (await input('Its story')).setValue('s'.repeat(5001));
+    await (await input('Its story')).blur();
+    expect(await (await field('Its story')).getTextErrors()).toEqual(['At most 5000 characters']);
+  });
 });

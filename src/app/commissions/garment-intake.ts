@@ -13,6 +13,7 @@ import {
   Construction,
   FEATURE,
   FIBRE,
+  GARMENT_TEXT_LIMITS,
   Fibre,
   PREWASH,
   PRINT,
@@ -61,21 +62,22 @@ export class GarmentIntake {
   protected readonly colourRuns = COLOUR_RUN.options;
   protected readonly featureKinds = FEATURE.options;
   protected readonly positionLimit = POSITION_LIMIT;
+  protected readonly limits = GARMENT_TEXT_LIMITS;
 
   protected readonly what = new FormGroup({
-    description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),
-    whose: new FormControl('', { nonNullable: true }),
-    story: new FormControl('', { nonNullable: true }),
-    colour: new FormControl('', { nonNullable: true }),
+    description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(GARMENT_TEXT_LIMITS.description)] }),
+    whose: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.whose)] }),
+    story: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.story)] }),
+    colour: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.colour)] }),
     print: new FormControl<Print | null>(null),
   });
   protected readonly care = new FormGroup({
     fibre: new FormControl<Fibre | null>(null),
     construction: new FormControl<Construction | null>(null),
-    condition: new FormControl('', { nonNullable: true }),
+    condition: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.condition)] }),
     prewash: new FormControl<Prewash | null>(null),
     colourRun: new FormControl<ColourRun | null>(null),
-    returnsToClient: new FormControl('', { nonNullable: true }),
+    returnsToClient: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.returnsToClient)] }),
   });
   protected readonly features = new FormArray<KeptFeatureForm>([]);
 
