@@ -1,14 +1,15 @@
 import { EnvironmentInjector, runInInjectionContext } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { ActivatedRouteSnapshot, CanActivateFn, Router, RouterStateSnapshot, UrlTree, provideRouter } from '@angular/router';
+import { RouterTestingHarness } from '@angular/router/testing';
 
 import { signedInAs } from '../testing/signed-in-as';
-import { routes } from './app.routes';
+import { pages, routes } from './app.routes';
 import { Role } from './core/user';
 
 describe('app routes', () => {
   function open(path: string, role: Role): string | boolean {
-    const guard = routes.find((r) => r.path === path)!.canActivate![0] as CanActivateFn;
+    const guard = pages.find((r) => r.path === path)!.canActivate![0] as CanActivateFn;
     TestBed.configureTestingModule({ providers: [provideRouter([]), signedInAs(role)] });
     const result = runInInjectionContext(TestBed.inject(EnvironmentInjector), () =>
       guard({} as ActivatedRouteSnapshot, { url: `/${path}` } as RouterStateSnapshot),
@@ -20,5 +21,13 @@ describe('app routes', () => {
     expect(open('stock', 'workroom')).toBeTrue();
     TestBed.resetTestingModule();
     expect(open('stock', 'client')).toBe('/portal');
+  });
+
+  it('shows every page inside the shell, even at an address that leads nowhere', async () => {
+    TestBed.configureTestingModule({ providers: [provideRouter(routes), signedInAs('owner')] });
+    const harness = await RouterTestingHarness.create('/no-such-page');
+    const root: HTMLElement = harness.fixture.nativeElement;
+    expect(root.querySelector('ks-shell header mat-toolbar')).not.toBeNull();
+    expect(root.querySelector('ks-shell main ks-not-found h1')?.textContent).toBe('Page not found');
   });
 });

@@ -1,9 +1,9 @@
 import { Routes } from '@angular/router';
 
-import { NotFound } from './core/not-found';
 import { homeGuard, roleGuard, signedOutGuard } from './core/role-guard';
 
-export const routes: Routes = [
+/** Every page, each lazy, with the roles that may open it. */
+export const pages: Routes = [
   { path: '', pathMatch: 'full', canActivate: [homeGuard], children: [] },
   {
     path: 'sign-in',
@@ -58,5 +58,18 @@ export const routes: Routes = [
     canActivate: [roleGuard('owner')],
     loadComponent: () => import('./mail/mail-page').then((m) => m.MailPage),
   },
-  { path: '**', title: 'Page not found', component: NotFound },
+  {
+    path: '**',
+    title: 'Page not found',
+    loadComponent: () => import('./core/not-found').then((m) => m.NotFound),
+  },
+];
+
+/** The pages inside the shell (toolbar and navigation), which is loaded with the first page. */
+export const routes: Routes = [
+  {
+    path: '',
+    loadComponent: () => import('./core/shell').then((m) => m.Shell),
+    children: pages,
+  },
 ];

@@ -1,11 +1,11 @@
 import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { RouterOutlet } from '@angular/router';
 
-import { Shell } from './core/shell';
-
+/** The root holds only the router: the shell around the pages is a lazy route (see app.routes.ts). */
 @Component({
   selector: 'ks-root',
-  imports: [Shell],
-  template: '<ks-shell />',
+  imports: [RouterOutlet],
+  template: '<router-outlet />',
   styles: ':host { display: block; height: 100%; }',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

@@ -36,6 +36,28 @@ describe('Auth', () => {
     expect(auth.user()).toBeNull();
   });
 
+  it('counts a reply that does not describe a user as nobody signed in', async () => {
+    const loaded = auth.load();
+    httpMock.expectOne('/api/auth/me').flush({ user: { ...testUsers.client, role: 'admin' } });
+    await loaded;
+    expect(auth.user()).toBeNull();
+  });
+
+  it('keeps only the known fields of the user the server names', async () => {
+    const loaded = auth.load();
+    httpMock.expectOne('/api/auth/me').flush({ user: { ...testUsers.client, passwordHash: 'x' } });
+    await loaded;
+    expect(auth.user()).toEqual(testUsers.client);
+  });
+
+  it('fails a sign-in whose reply does not name the user', () => {
+    const failed = jasmine.createSpy('failed');
+    auth.signIn('maker@studio.test', 'correct horse battery').subscribe({ error: failed });
+    httpMock.expectOne('/api/auth/sign-in').flush({ user: { id: 1, email: 'maker@studio.test' } });
+    expect(failed).toHaveBeenCalled();
+    expect(auth.user()).toBeNull();
+  });
+
   it('asks the server again after signing out, which brings a fresh security token', async () => {
     const loaded = auth.load();
     httpMock.expectOne('/api/auth/me').flush({ user: testUsers.owner });

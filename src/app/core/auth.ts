@@ -1,13 +1,17 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { Observable, catchError, firstValueFrom, from, map, of, switchMap, tap, throwError } from 'rxjs';
-import * as z from 'zod/mini';
 
 import { REPORT_API_ERRORS, apiErrorOf } from './api-error';
-import { User, homeFor, userSchema } from './user';
+import { User, homeFor, readUser } from './user';
 
-const meSchema = z.object({ user: z.nullable(userSchema) });
-const signInSchema = z.object({ user: userSchema });
+/** The `user` of an auth reply (`{ user: ... }`), not yet checked. */
+function userOf(body: unknown): unknown {
+  if (typeof body !== 'object' || body === null || !('user' in body)) {
+    throw new TypeError('The server sent an auth reply without a user.');
+  }
+  return body.user;
+}
 
 /** Who is signed in. Loaded once at start; changed by signing in and out. */
 @Injectable({ providedIn: 'root' })
@@ -25,7 +29,10 @@ export class Auth {
   /** Asks the server who this browser is signed in as (also refreshes the XSRF cookie). */
   load(): Promise<void> {
     const me$ = this.http.get<unknown>('/api/auth/me').pipe(
-      map((body) => meSchema.parse(body).user),
+      map((body) => {
+        const user = userOf(body);
+        return user === null ? null : readUser(user);
+      }),
       catchError(() => of(null)),
     );
     return firstValueFrom(me$).then((user) => this.currentUser.set(user));
@@ -49,7 +56,7 @@ export class Auth {
           ? from(this.load()).pipe(switchMap(() => attempt()))
           : throwError(() => error),
       ),
-      map((body) => signInSchema.parse(body).user),
+      map((body) => readUser(userOf(body))),
       tap((user) => this.currentUser.set(user)),
     );
   }

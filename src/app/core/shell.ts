@@ -1,5 +1,5 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { ChangeDetectionStrategy, Component, computed, inject, viewChild } from '@angular/core';
+import { ChangeDetectionStrategy, Component, afterNextRender, computed, inject, viewChild } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -10,6 +10,8 @@ import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/rou
 import { map } from 'rxjs';
 
 import { Auth } from './auth';
+import { provideMaterialDefaults } from './material-defaults';
+import { Notices } from './notices';
 import { Role, roleLabels } from './user';
 
 interface NavItem {
@@ -31,9 +33,14 @@ const navItems: readonly NavItem[] = [
   { path: '/my-details', label: 'My details', icon: 'badge', roles: ['client'] },
 ];
 
-/** The frame around every page: toolbar, navigation for the signed-in role, and the page. */
+/**
+ * The frame around every page: toolbar, navigation for the signed-in role, and
+ * the page. A lazy route (see app.routes.ts), so its Material parts are not in
+ * the first load.
+ */
 @Component({
   selector: 'ks-shell',
+  providers: [provideMaterialDefaults()],
   imports: [
     RouterOutlet,
     RouterLink,
@@ -51,6 +58,7 @@ const navItems: readonly NavItem[] = [
 export class Shell {
   private readonly auth = inject(Auth);
   private readonly router = inject(Router);
+  private readonly notices = inject(Notices);
   private readonly sidenav = viewChild(MatSidenav);
 
   protected readonly user = this.auth.user;
@@ -68,6 +76,10 @@ export class Shell {
       .pipe(map((state) => state.matches)),
     { initialValue: true },
   );
+
+  constructor() {
+    afterNextRender(() => this.notices.preload());
+  }
 
   protected toggleNavigation(): void {
     void this.sidenav()?.toggle();

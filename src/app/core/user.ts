@@ -1,18 +1,34 @@
-import * as z from 'zod/mini';
-
 /** The three kinds of sign-in. The server decides what each may do; the client only mirrors it. */
 export const roles = ['owner', 'workroom', 'client'] as const;
 export type Role = (typeof roles)[number];
 
-export const userSchema = z.object({
-  id: z.number(),
-  email: z.string(),
-  name: z.string(),
-  role: z.enum(roles),
-  clientId: z.nullable(z.number()),
-});
+export interface User {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  clientId: number | null;
+}
 
-export type User = z.infer<typeof userSchema>;
+/**
+ * Reads a user out of a server reply, or throws. A hand check rather than a
+ * schema: it runs at start, before any feature code (and its zod) is loaded.
+ */
+export function readUser(value: unknown): User {
+  if (typeof value === 'object' && value !== null) {
+    const { id, email, name, role, clientId } = value as Record<string, unknown>;
+    if (
+      typeof id === 'number' &&
+      typeof email === 'string' &&
+      typeof name === 'string' &&
+      roles.includes(role as Role) &&
+      (clientId === null || typeof clientId === 'number')
+    ) {
+      return { id, email, name, role: role as Role, clientId };
+    }
+  }
+  throw new TypeError('The server sent something that is not a user.');
+}
 
 /** The page a role lands on after signing in. */
 export function homeFor(role: Role): string {

@@ -3,8 +3,15 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import * as z from 'zod/mini';
 
-import { User, userSchema } from '../core/user';
+import { User, roles } from '../core/user';
 
+const userSchema: z.ZodMiniType<User> = z.object({
+  id: z.number(),
+  email: z.string(),
+  name: z.string(),
+  role: z.enum(roles),
+  clientId: z.nullable(z.number()),
+});
 const userListSchema = z.object({ items: z.array(userSchema) });
 
 /** What the owner sends to open a sign-in for an assistant or a client. */
