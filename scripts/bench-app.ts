@@ -8,7 +8,7 @@
  */
 import { execFileSync, spawn } from 'node:child_process';
 import { gzipSync } from 'node:zlib';
-import { existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, unlinkSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, symlinkSync, unlinkSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium } from 'playwright-core';
@@ -21,10 +21,26 @@ const BASE = `http://127.0.0.1:${PORT}`;
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
 const kb = (n: number) => `${(n / 1024).toFixed(1)} kB`;
 
-/** Initial JS (scripts and module preloads named in index.html) and the other chunks, gzip-compressed. */
+/** The files a module imports statically (not `import()`), from esbuild's minified output. */
+function staticImports(code: string): string[] {
+  return [...code.matchAll(/(?:import|export)(?:[^("'`;]*?from)?\s*["']\.\/([^"']+\.js)["']/g)].map((m) => m[1]!);
+}
+
+/**
+ * Initial JS: the scripts index.html names and every file they import
+ * statically, however many the builder lists as module preloads (it lists at
+ * most 10), gzip-compressed; the other chunks are lazy.
+ */
 function sizes(browserDir: string) {
   const html = readFileSync(path.join(browserDir, 'index.html'), 'utf8');
-  const initial = new Set([...html.matchAll(/(?:src|href)="([^"]+\.js)"/g)].map((m) => m[1]!));
+  const initial = new Set<string>();
+  const queue = [...html.matchAll(/(?:src|href)="([^"]+\.js)"/g)].map((m) => m[1]!);
+  while (queue.length) {
+    const file = queue.pop()!;
+    if (initial.has(file)) continue;
+    initial.add(file);
+    queue.push(...staticImports(readFileSync(path.join(browserDir, file), 'utf8')));
+  }
   const files = readdirSync(browserDir).filter((f) => f.endsWith('.js'));
   const gz = (f: string) => gzipSync(readFileSync(path.join(browserDir, f)), { level: 9 }).length;
   const initialBytes = [...initial].reduce((s, f) => s + gz(f), 0);
@@ -58,9 +74,8 @@ bootstrapApplication(App).catch((e) => console.error(e));
 }
 
 async function main(): Promise<void> {
-  if (!existsSync(path.join(ROOT, 'dist', 'keepstitch', 'browser', 'index.html'))) {
-    execFileSync(path.join(ROOT, 'node_modules', '.bin', 'ng'), ['build', '--progress=false'], { cwd: ROOT, stdio: 'inherit' });
-  }
+  // Always a fresh production build: sizes of an older one would say nothing about this tree.
+  execFileSync(path.join(ROOT, 'node_modules', '.bin', 'ng'), ['build', '--configuration', 'production', '--progress=false'], { cwd: ROOT, stdio: 'inherit' });
   const app = sizes(path.join(ROOT, 'dist', 'keepstitch', 'browser'));
   const floorDir = buildFloor();
   const floor = sizes(path.join(floorDir, 'dist', 'floor', 'browser'));
@@ -80,6 +95,7 @@ async function main(): Promise<void> {
   execFileSync(process.execPath, ['--import', 'tsx', 'scripts/db.ts', 'prepare'], { cwd: ROOT, env, stdio: 'pipe' });
   const server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: 'ignore' });
   const fcp: number[] = [];
+  const formShown: number[] = [];
   const listShown: number[] = [];
   try {
     for (let i = 0; i < 80 && !(await fetch(`${BASE}/api/health`).then((r) => r.ok, () => false)); i++) await new Promise((r) => setTimeout(r, 250));
@@ -89,7 +105,20 @@ async function main(): Promise<void> {
       const page = await context.newPage();
       await page.goto('/sign-in');
       await page.getByLabel('E-mail').waitFor();
-      fcp.push(await page.evaluate(() => performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? NaN));
+      formShown.push(await page.evaluate(() => performance.now()));
+      // The paint entry is recorded a frame after the paint itself: wait for it rather than read too early.
+      fcp.push(
+        await page.evaluate(
+          () =>
+            new Promise<number>((resolve) => {
+              new PerformanceObserver((list) => {
+                const entry = list.getEntriesByName('first-contentful-paint')[0];
+                if (entry) resolve(entry.startTime);
+              }).observe({ type: 'paint', buffered: true });
+              setTimeout(() => resolve(NaN), 5000);
+            }),
+        ),
+      );
       await page.getByLabel('E-mail').fill(DEMO_ACCOUNTS.owner.email);
       await page.getByLabel('Password').fill(DEMO_ACCOUNTS.owner.password);
       // Signed in, open the list afresh and time it from navigation to the first row shown.
@@ -109,6 +138,7 @@ async function main(): Promise<void> {
   console.log(`initial JS (gzip): app ${kb(app.initialBytes)} in ${app.initialFiles} files; empty Material app ${kb(floor.initialBytes)}; ratio ${ratio.toFixed(2)} ${ratio <= 1.5 ? 'PASS (at most 1.5x)' : 'OVER 1.5x'}`);
   console.log(`lazy chunks: ${app.lazyCount}, ${kb(app.lazyBytes)} gzip in all`);
   console.log(`first contentful paint of the sign-in page: median ${median(fcp).toFixed(0)} ms (${fcp.map((x) => x.toFixed(0)).join(', ')})`);
+  console.log(`sign-in form shown, from navigation: median ${median(formShown).toFixed(0)} ms (${formShown.map((x) => x.toFixed(0)).join(', ')})`);
   console.log(`commissions list shown, from navigation: median ${median(listShown).toFixed(0)} ms (${listShown.map((x) => x.toFixed(0)).join(', ')})`);
 }
 
