@@ -8,7 +8,7 @@ import { pages, routes } from './app.routes';
 import { Role } from './core/user';
 
 describe('app routes', () => {
-  function open(path: string, role: Role): string | boolean {
+  function open(path: string, role: Role | null): string | boolean {
     const guard = pages.find((r) => r.path === path)!.canActivate![0] as CanActivateFn;
     TestBed.configureTestingModule({ providers: [provideRouter([]), signedInAs(role)] });
     const result = runInInjectionContext(TestBed.inject(EnvironmentInjector), () =>
@@ -21,6 +21,14 @@ describe('app routes', () => {
     expect(open('stock', 'workroom')).toBeTrue();
     TestBed.resetTestingModule();
     expect(open('stock', 'client')).toBe('/portal');
+  });
+
+  it('opens the change-password page for anyone signed in, and asks others to sign in', () => {
+    for (const role of ['owner', 'workroom', 'client'] as const) {
+      expect(open('password', role)).withContext(role).toBeTrue();
+      TestBed.resetTestingModule();
+    }
+    expect(open('password', null)).toMatch(/^\/sign-in/);
   });
 
   it('shows every page inside the shell, even at an address that leads nowhere', async () => {

@@ -59,6 +59,12 @@ export const pages: Routes = [
     loadComponent: () => import('./mail/mail-page').then((m) => m.MailPage),
   },
   {
+    path: 'password',
+    title: 'Change password',
+    canActivate: [roleGuard('owner', 'workroom', 'client')],
+    loadComponent: () => import('./account/change-password').then((m) => m.ChangePassword),
+  },
+  {
     path: '**',
     title: 'Page not found',
     loadComponent: () => import('./core/not-found').then((m) => m.NotFound),

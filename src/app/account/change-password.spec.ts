@@ -63,6 +63,8 @@ describe('ChangePassword', () => {
     await fixture.whenStable();
     expect(text('password-changed')).toContain('Your password is changed');
     expect(await ((await (await field('Current password')).getControl()) as MatInputHarness).getValue()).toBe('');
+    expect(await (await field('New password')).isControlValid()).toBeFalse();
+    expect(await (await field('New password')).getTextErrors()).toEqual([]);
   });
 
   it('shows the server saying the current password is wrong under that field, keeping what was typed', async () => {

@@ -1,5 +1,5 @@
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { AbstractControl, FormControl, FormGroup, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, inject, signal, viewChild } from '@angular/core';
+import { AbstractControl, FormControl, FormGroup, FormGroupDirective, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -40,6 +40,7 @@ function sameAsNew(control: AbstractControl): ValidationErrors | null {
 })
 export class ChangePassword {
   private readonly api = inject(AccountApi);
+  private readonly formDirective = viewChild.required(FormGroupDirective);
 
   protected readonly length = PASSWORD_LENGTH;
   protected readonly form = new FormGroup({
@@ -77,7 +78,8 @@ export class ChangePassword {
       next: () => {
         this.submitting.set(false);
         this.form.enable();
-        this.form.reset();
+        // Through the directive, so the emptied fields are not shown as errors of a submitted form.
+        this.formDirective().resetForm();
         this.done.set(true);
       },
       error: (error: unknown) => {

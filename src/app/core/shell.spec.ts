@@ -46,7 +46,13 @@ describe('Shell navigation', () => {
   }
 
   it('offers studio fabric to the workroom as well as the owner', async () => {
-    expect(await navLabels('workroom')).toEqual(['Commissions', 'Clients', 'Studio fabric']);
+    expect(await navLabels('workroom')).toEqual(['Commissions', 'Clients', 'Studio fabric', 'Change password']);
+  });
+
+  it('lets every role change its own password', async () => {
+    expect(await navLabels('client')).toContain('Change password');
+    TestBed.resetTestingModule();
+    expect(await navLabels('owner')).toContain('Change password');
   });
 
   it('keeps studio fabric from a client', async () => {

@@ -31,6 +31,7 @@ const navItems: readonly NavItem[] = [
   { path: '/settings', label: 'Settings', icon: 'settings', roles: ['owner'] },
   { path: '/portal', label: 'My commissions', icon: 'assignment', roles: ['client'] },
   { path: '/my-details', label: 'My details', icon: 'badge', roles: ['client'] },
+  { path: '/password', label: 'Change password', icon: 'password', roles: ['owner', 'workroom', 'client'] },
 ];
 
 /**

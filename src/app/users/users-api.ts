@@ -1,6 +1,7 @@
 import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
+import { PASSWORD_LENGTH } from '@keepstitch/shared';
 import * as z from 'zod/mini';
 
 import { User, roles } from '../core/user';
@@ -23,7 +24,7 @@ export interface NewUser {
   password: string;
 }
 
-export const minPasswordLength = 10;
+export const minPasswordLength = PASSWORD_LENGTH.min;
 
 /** The owner's calls about sign-ins. */
 @Injectable({ providedIn: 'root' })
