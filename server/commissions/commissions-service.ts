@@ -5,7 +5,7 @@ import { pageOf } from '../core/paging';
 import { daysBetween, today } from '../core/calendar';
 import { ClientModel } from '../clients/client-model';
 import { GarmentModel, PanelModel } from '../garments/garment-model';
-import { custodyStates } from '../garments/custody';
+import { commissionCustodyEvents, custodyStates, statesFrom } from '../garments/custody';
 import { PhotoModel } from '../photos/photo-model';
 import { CommissionModel, HoursModel, StageMoveModel } from './commission-model';
 import type { CreateCommissionInput, ListCommissionsQuery, UpdateCommissionInput } from './commissions-schemas';
@@ -94,19 +94,41 @@ function factsFrom(states: Awaited<ReturnType<typeof custodyStates>>, money: Awa
   return { garmentCount: live.length, garmentsReceived: live.filter((s) => s.state.received).length, balanceDue: !!money && !money.balancePaid && money.balancePence > 0 };
 }
 
+/** Groups rows by a key, keeping their order. */
+function groupBy<T>(rows: T[], key: (row: T) => number | null): Map<number, T[]> {
+  const out = new Map<number, T[]>();
+  for (const row of rows) {
+    const k = key(row);
+    if (k === null) continue;
+    const list = out.get(k);
+    if (list) list.push(row);
+    else out.set(k, [row]);
+  }
+  return out;
+}
+
 export async function getCommission(user: Express.User, id: number) {
-  const c = await findVisible(user, id);
-  c.client = await ClientModel.query().select('id', 'name').findById(c.clientId);
-  const garments = await GarmentModel.query().where('commissionId', id).orderBy('id');
-  const ids = garments.map((g) => g.id);
-  const [states, panels, photos, moves, money] = await Promise.all([
-    custodyStates(ids),
-    PanelModel.query().whereIn('garmentId', ids).orderBy('id'),
+  const c = await CommissionModel.query()
+    .modify('visibleTo', user)
+    .join('clients as client', 'client.id', 'commissions.clientId')
+    .select('commissions.*', 'client.name as clientName')
+    .findById(id);
+  if (!c) throw AppError.notFound(NOT_FOUND);
+  c.client = ClientModel.fromJson({ id: c.clientId, name: (c as CommissionModel & { clientName: string }).clientName }, { skipValidation: true });
+  const staff = user.role !== 'client';
+  // Everything below depends only on the commission, so it is read at once rather than one query after another.
+  const [garments, events, panels, photos, moves, money, hours] = await Promise.all([
+    GarmentModel.query().where('commissionId', id).orderBy('id'),
+    commissionCustodyEvents(id),
+    staff ? PanelModel.query().select('panels.*').join('garments', 'garments.id', 'panels.garmentId').where('garments.commissionId', id).orderBy('panels.id') : Promise.resolve([]),
     PhotoModel.query().where('commissionId', id).orderBy('id'),
     StageMoveModel.query().where('commissionId', id).orderBy('movedAt').orderBy('id'),
     paymentState(id),
+    staff ? hoursView(id) : Promise.resolve(undefined),
   ]);
-  const staff = user.role !== 'client';
+  const states = statesFrom(garments.map((g) => g.id), events);
+  const panelsOf = groupBy(panels, (p) => p.garmentId);
+  const photosOf = groupBy(photos, (p) => p.garmentId);
   const facts = factsFrom(states, money);
   const garmentViews = garments.map((g) => {
     const custody = states.get(g.id)!;
@@ -117,8 +139,8 @@ export async function getCommission(user: Express.User, id: number) {
       washed: custody.state.washed,
       place: staff ? custody.state.place : undefined,
       removeForSafety: featuresToRemove(c.ageGroup, g.features),
-      panels: staff ? panels.filter((p) => p.garmentId === g.id) : undefined,
-      photos: photos.filter((p) => p.garmentId === g.id).map((p) => p.toPublic()),
+      panels: staff ? (panelsOf.get(g.id) ?? []) : undefined,
+      photos: (photosOf.get(g.id) ?? []).map((p) => p.toPublic()),
     };
   });
   return {
@@ -127,7 +149,7 @@ export async function getCommission(user: Express.User, id: number) {
     garments: garmentViews,
     progressPhotos: photos.filter((p) => p.kind === 'progress').map((p) => p.toPublic()),
     stageHistory: moves.map((m) => ({ id: m.id, fromStage: m.fromStage, toStage: m.toStage, note: staff ? m.note : undefined, movedAt: m.movedAt })),
-    hours: staff ? await hoursView(id) : undefined,
+    hours,
     nextStages: staff ? nextStages(c.stage, facts) : undefined,
     facts,
   };

@@ -2,16 +2,31 @@ import type { Knex } from 'knex';
 import { deriveCustody, type CustodyEvent, type CustodyState } from '@keepstitch/shared';
 import { CustodyEventModel } from './garment-model';
 
+export type CustodyStates = Map<number, { state: CustodyState; events: CustodyEventModel[] }>;
+
 /** The derived custody state of each garment, from its events. */
-export async function custodyStates(garmentIds: number[], trx?: Knex.Transaction): Promise<Map<number, { state: CustodyState; events: CustodyEventModel[] }>> {
-  const out = new Map<number, { state: CustodyState; events: CustodyEventModel[] }>();
-  if (!garmentIds.length) return out;
+export async function custodyStates(garmentIds: number[], trx?: Knex.Transaction): Promise<CustodyStates> {
+  if (!garmentIds.length) return new Map();
   const events = await CustodyEventModel.query(trx).whereIn('garmentId', garmentIds).orderBy('at').orderBy('id');
-  for (const id of garmentIds) out.set(id, { state: deriveCustody([]), events: [] });
-  for (const e of events) out.get(e.garmentId)!.events.push(e);
-  for (const [id, entry] of out) {
-    out.set(id, { events: entry.events, state: deriveCustody(entry.events.map(toCustodyEvent)) });
-  }
+  return statesFrom(garmentIds, events);
+}
+
+/** Every custody event of a commission's garments, in order: read beside the garments rather than after them. */
+export function commissionCustodyEvents(commissionId: number) {
+  return CustodyEventModel.query()
+    .select('custodyEvents.*')
+    .join('garments', 'garments.id', 'custodyEvents.garmentId')
+    .where('garments.commissionId', commissionId)
+    .orderBy('custodyEvents.at')
+    .orderBy('custodyEvents.id');
+}
+
+/** Each garment's state from the events read for them (events of other garments are ignored). */
+export function statesFrom(garmentIds: number[], events: CustodyEventModel[]): CustodyStates {
+  const byGarment = new Map<number, CustodyEventModel[]>(garmentIds.map((id) => [id, []]));
+  for (const e of events) byGarment.get(e.garmentId)?.push(e);
+  const out: CustodyStates = new Map();
+  for (const [id, list] of byGarment) out.set(id, { events: list, state: deriveCustody(list.map(toCustodyEvent)) });
   return out;
 }
 
