@@ -47,7 +47,6 @@ export interface AppDeps {
 export function createApp({ config, knex, sessionPool, log, kickMail = () => undefined, paymentProvider }: AppDeps): Express {
   const provider = paymentProvider ?? createPaymentProvider(config);
   Model.knex(knex);
-  const passport = configurePassport();
   const csrf = createCsrf(config.sessionSecret, config.secureCookies);
 
   const app = express();
@@ -84,11 +83,13 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
 
   app.use('/api', express.json({ limit: '200kb' }));
   app.use(cookieParser());
+  const sessionStore = new SessionStore({ pool: sessionPool, pruneSeconds: config.nodeEnv === 'test' ? false : 15 * 60, touchSeconds: config.sessionTouchSeconds });
+  const passport = configurePassport(sessionStore);
   app.use(
     session({
       name: SESSION_COOKIE,
       secret: config.sessionSecret,
-      store: new SessionStore({ pool: sessionPool, pruneSeconds: config.nodeEnv === 'test' ? false : 15 * 60, touchSeconds: config.sessionTouchSeconds }),
+      store: sessionStore,
       resave: false,
       saveUninitialized: false,
       // A session ends after this long without a request.
@@ -105,6 +106,7 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
       signInLimit: config.signInLimit,
       signInWindowMs: config.signInWindowMs,
       sessionCookieName: SESSION_COOKIE,
+      passport,
     }),
   );
   app.use(clientsRouter());

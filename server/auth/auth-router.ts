@@ -1,5 +1,4 @@
 import type { NextFunction, Request, Response } from 'express';
-import passport from 'passport';
 import rateLimit from 'express-rate-limit';
 import { AppError } from '../core/app-error';
 import { securedRouter } from '../core/secured-router';
@@ -7,15 +6,18 @@ import { parseInput } from '../core/validate';
 import { changePasswordSchema, signInSchema } from './auth-schemas';
 import { changeOwnPassword } from '../users/users-service';
 import type { createCsrf } from './csrf';
+import type { configurePassport } from './passport-setup';
 
 interface AuthRouterOptions {
   csrf: ReturnType<typeof createCsrf>;
   signInLimit: number;
   signInWindowMs: number;
   sessionCookieName: string;
+  /** The app's passport instance (server/auth/passport-setup.ts). */
+  passport: ReturnType<typeof configurePassport>;
 }
 
-export function authRouter({ csrf, signInLimit, signInWindowMs, sessionCookieName }: AuthRouterOptions) {
+export function authRouter({ csrf, signInLimit, signInWindowMs, sessionCookieName, passport }: AuthRouterOptions) {
   const r = securedRouter('/api/auth');
 
   const limiter = rateLimit({

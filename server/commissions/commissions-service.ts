@@ -2,6 +2,7 @@ import { cautionsFor, checkStageMove, featuresToRemove, nextStages, stageIndex, 
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
 import { pageOf } from '../core/paging';
+import { readTogether } from '../core/read-together';
 import { daysBetween, today } from '../core/calendar';
 import { ClientModel } from '../clients/client-model';
 import { GarmentModel, PanelModel } from '../garments/garment-model';
@@ -9,7 +10,7 @@ import { commissionCustodyEvents, custodyStates, statesFrom } from '../garments/
 import { PhotoModel } from '../photos/photo-model';
 import { CommissionModel, HoursModel, StageMoveModel } from './commission-model';
 import type { CreateCommissionInput, ListCommissionsQuery, UpdateCommissionInput } from './commissions-schemas';
-import { paymentState } from '../payments/payment-state';
+import { acceptedQuote, paidPayments, paymentState, paymentStateFrom } from '../payments/payment-state';
 import { enqueueMail } from '../mail/outbox-service';
 import { readyMail } from '../mail/mail-templates';
 import { StudioSettingsModel } from '../settings/settings-model';
@@ -108,24 +109,29 @@ function groupBy<T>(rows: T[], key: (row: T) => number | null): Map<number, T[]>
 }
 
 export async function getCommission(user: Express.User, id: number) {
-  const c = await CommissionModel.query()
-    .modify('visibleTo', user)
-    .join('clients as client', 'client.id', 'commissions.clientId')
-    .select('commissions.*', 'client.name as clientName')
-    .findById(id);
-  if (!c) throw AppError.notFound(NOT_FOUND);
-  c.client = ClientModel.fromJson({ id: c.clientId, name: (c as CommissionModel & { clientName: string }).clientName }, { skipValidation: true });
   const staff = user.role !== 'client';
-  // Everything below depends only on the commission, so it is read at once rather than one query after another.
-  const [garments, events, panels, photos, moves, money, hours] = await Promise.all([
+  // Everything the page shows, read in one round trip; the later reads are discarded when the commission is not visible.
+  const [found, garments, events, panels, photos, moves, quotes, paid, hourRows] = await readTogether([
+    CommissionModel.query()
+      .modify('visibleTo', user)
+      .join('clients as client', 'client.id', 'commissions.clientId')
+      .select('commissions.*', 'client.name as clientName')
+      .where('commissions.id', id),
     GarmentModel.query().where('commissionId', id).orderBy('id'),
     commissionCustodyEvents(id),
-    staff ? PanelModel.query().select('panels.*').join('garments', 'garments.id', 'panels.garmentId').where('garments.commissionId', id).orderBy('panels.id') : Promise.resolve([]),
+    // A client sees no panels and no hours: those reads come back empty.
+    PanelModel.query().select('panels.*').join('garments', 'garments.id', 'panels.garmentId').where('garments.commissionId', id).modify((q) => (staff ? q : q.whereRaw('false'))).orderBy('panels.id'),
     PhotoModel.query().where('commissionId', id).orderBy('id'),
     StageMoveModel.query().where('commissionId', id).orderBy('movedAt').orderBy('id'),
-    paymentState(id),
-    staff ? hoursView(id) : Promise.resolve(undefined),
+    acceptedQuote(id),
+    paidPayments(id),
+    hoursQuery(id).modify((q) => (staff ? q : q.whereRaw('false'))),
   ]);
+  const c = found[0];
+  if (!c) throw AppError.notFound(NOT_FOUND);
+  c.client = ClientModel.fromJson({ id: c.clientId, name: (c as CommissionModel & { clientName: string }).clientName }, { skipValidation: true });
+  const money = paymentStateFrom(quotes[0], paid);
+  const hours = staff ? hoursFrom(hourRows) : undefined;
   const states = statesFrom(garments.map((g) => g.id), events);
   const panelsOf = groupBy(panels, (p) => p.garmentId);
   const photosOf = groupBy(photos, (p) => p.garmentId);
@@ -155,13 +161,18 @@ export async function getCommission(user: Express.User, id: number) {
   };
 }
 
-async function hoursView(commissionId: number) {
-  const rows = await HoursModel.query()
+/** The hours logged on a commission, with who logged them, in the order worked. */
+function hoursQuery(commissionId: number) {
+  return HoursModel.query()
     .select('hoursLogged.*', 'users.name as userName')
     .leftJoin('users', 'users.id', 'hoursLogged.userId')
     .where('commissionId', commissionId)
     .orderBy('workedOn')
     .orderBy('hoursLogged.id');
+}
+
+/** Hours per stage and in all, two decimals. */
+function hoursFrom(rows: HoursModel[]) {
   const byStage: Record<string, string> = {};
   let total = 0;
   for (const r of rows) {

@@ -11,7 +11,17 @@ export function acceptedQuote(commissionId: number, trx?: Knex.Transaction) {
 export async function paymentState(commissionId: number, trx?: Knex.Transaction) {
   const quote = await acceptedQuote(commissionId, trx);
   if (!quote || quote.totalPence === null || quote.depositPence === null) return null;
-  const paid = await PaymentModel.query(trx).where({ commissionId, status: 'paid' });
+  return paymentStateFrom(quote, await paidPayments(commissionId, trx));
+}
+
+/** The payments made on a commission. */
+export function paidPayments(commissionId: number, trx?: Knex.Transaction) {
+  return PaymentModel.query(trx).where({ commissionId, status: 'paid' });
+}
+
+/** What is still owed, from the accepted quote and the payments made; null when no priced quote is accepted. */
+export function paymentStateFrom(quote: QuoteModel | undefined, paid: PaymentModel[]) {
+  if (!quote || quote.totalPence === null || quote.depositPence === null) return null;
   const depositPaid = paid.some((p) => p.kind === 'deposit');
   const balancePaid = paid.some((p) => p.kind === 'balance');
   const paidPence = paid.reduce((s, p) => s + p.amountPence, 0);

@@ -17,6 +17,8 @@ export interface TestApp {
   /** The test database's own address. */
   url: string;
   uploadDir: string;
+  /** The pool the session store reads and writes with. */
+  sessionPool: Pool;
   close(): Promise<void>;
 }
 
@@ -42,6 +44,7 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
     knex: db.knex,
     url: db.url,
     uploadDir,
+    sessionPool,
     async close() {
       await sessionPool.end();
       await db.drop();
