@@ -2,8 +2,11 @@
  * npm run bench:api — the commission detail route (50 garments, 500 panels)
  * and the commissions list (a page of 25 of 2,000, with filters) under 64
  * concurrent connections, against a bare Express route that runs one
- * equivalent pg query, in the same run. Prints requests/s, p50/p99 latency,
- * the ratios, and EXPLAIN ANALYZE of the list query. Figures, not a test.
+ * equivalent pg query, in the same run: after a warm-up of each, app and bare
+ * take turns for BENCH_ROUNDS rounds of BENCH_SECONDS, so a passing spell of
+ * load on the machine falls on both. Prints requests/s and p50/p99 latency
+ * of every round, their medians and ratios, and EXPLAIN ANALYZE of the list
+ * query. Figures, not a test.
  */
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -20,6 +23,9 @@ import { createTestDatabase } from '../server/testing/test-database';
 import migrateTemplate from '../server/testing/global-setup';
 
 const SECONDS = Number(process.env['BENCH_SECONDS'] ?? 10);
+/** Rounds per route, app and bare taking turns, after a warm-up of each that is not counted. */
+const ROUNDS = Number(process.env['BENCH_ROUNDS'] ?? 3);
+const WARM_UP_SECONDS = 2;
 const CONNECTIONS = 64;
 
 async function listen(app: express.Express): Promise<{ server: Server; url: string }> {
@@ -28,11 +34,21 @@ async function listen(app: express.Express): Promise<{ server: Server; url: stri
   return { server, url: `http://127.0.0.1:${(server.address() as AddressInfo).port}` };
 }
 
-function run(url: string, cookie: string): Promise<autocannon.Result> {
+function run(url: string, cookie: string, seconds = SECONDS): Promise<autocannon.Result> {
   return new Promise((resolve, reject) => {
     // The load comes from a worker thread, so it does not wait its turn on the server's event loop.
-    autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers: { cookie }, workers: 1 }, (err, result) => (err ? reject(err) : resolve(result)));
+    autocannon({ url, connections: CONNECTIONS, duration: seconds, headers: { cookie }, workers: 1 }, (err, result) => (err ? reject(err) : resolve(result)));
   });
+}
+
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  const mid = Math.floor(sorted.length / 2);
+  return sorted.length % 2 ? sorted[mid]! : (sorted[mid - 1]! + sorted[mid]!) / 2;
+}
+
+function figures(r: { rps: number; p50: number; p99: number }): string {
+  return String(Math.round(r.rps)).padStart(10) + `${r.p50}`.padStart(7) + `${r.p99}`.padStart(7);
 }
 
 async function main(): Promise<void> {
@@ -99,20 +115,37 @@ async function main(): Promise<void> {
   const check = await agent.get(listQuery);
   if (check.status !== 200) throw new Error(`list answered ${check.status}`);
 
-  console.log(`\n${new Date().toISOString()}, ${os.cpus().length} cores, ${CONNECTIONS} connections, ${SECONDS} s each, Node ${process.version}\n`);
-  console.log('route'.padEnd(46) + 'req/s app'.padStart(10) + 'p50'.padStart(7) + 'p99'.padStart(7) + ' | ' + 'req/s bare'.padStart(10) + 'p50'.padStart(7) + 'p99'.padStart(7) + ' | p99 ratio  errors');
+  console.log(`\n${new Date().toISOString()}, ${os.cpus().length} cores, load average ${os.loadavg().map((l) => l.toFixed(2)).join(' ')}, ${CONNECTIONS} connections, ${ROUNDS} rounds of ${SECONDS} s each for app and bare in turn after a ${WARM_UP_SECONDS} s warm-up of each, Node ${process.version}\n`);
+  const header = 'req/s'.padStart(10) + 'p50'.padStart(7) + 'p99'.padStart(7);
+  const summary: string[] = [];
   for (const c of cases) {
-    const a = await run(c.app, cookie);
-    const b = await run(c.bare, '');
-    const ratio = a.latency.p99 / Math.max(b.latency.p99, 1);
-    console.log(
-      c.name.padEnd(46) +
-        String(Math.round(a.requests.average)).padStart(10) + `${a.latency.p50}`.padStart(7) + `${a.latency.p99}`.padStart(7) + ' | ' +
-        String(Math.round(b.requests.average)).padStart(10) + `${b.latency.p50}`.padStart(7) + `${b.latency.p99}`.padStart(7) + ' | ' +
-        ratio.toFixed(2).padStart(9) + `  ${a.errors + a.non2xx}/${b.errors + b.non2xx}  ${ratio <= 3 ? 'PASS (p99 at most 3x the bare route)' : 'OVER 3x'}`,
+    console.log(c.name);
+    console.log('  round' + ' '.repeat(3) + 'app' + header.slice(3) + ' | bare' + header.slice(4) + ' | p99 ratio  errors');
+    // Warm-up: JIT, pool connections and PostgreSQL's caches, for both, not counted.
+    await run(c.app, cookie, WARM_UP_SECONDS);
+    await run(c.bare, '', WARM_UP_SECONDS);
+    const app: Array<{ rps: number; p50: number; p99: number }> = [];
+    const bare: typeof app = [];
+    let errors = 0;
+    for (let round = 1; round <= ROUNDS; round++) {
+      const a = await run(c.app, cookie);
+      const b = await run(c.bare, '');
+      errors += a.errors + a.non2xx + b.errors + b.non2xx;
+      app.push({ rps: a.requests.average, p50: a.latency.p50, p99: a.latency.p99 });
+      bare.push({ rps: b.requests.average, p50: b.latency.p50, p99: b.latency.p99 });
+      console.log(`  ${round}`.padEnd(8) + figures(app.at(-1)!) + ' | ' + figures(bare.at(-1)!) + ' | ' + (a.latency.p99 / Math.max(b.latency.p99, 1)).toFixed(2).padStart(9) + `  ${a.errors + a.non2xx}/${b.errors + b.non2xx}`);
+    }
+    const mid = (list: typeof app) => ({ rps: median(list.map((r) => r.rps)), p50: median(list.map((r) => r.p50)), p99: median(list.map((r) => r.p99)) });
+    const [ma, mb] = [mid(app), mid(bare)];
+    const ratio = ma.p99 / Math.max(mb.p99, 1);
+    summary.push(
+      c.name.padEnd(46) + figures(ma) + ' | ' + figures(mb) + ' | ' + ratio.toFixed(2).padStart(9) + (mb.rps / ma.rps).toFixed(2).padStart(11) + `  ${errors}  ${ratio <= 3 ? 'PASS (p99 at most 3x the bare route)' : 'OVER 3x'}`,
     );
   }
-  console.log('(latencies in ms; the bare routes skip sessions, access checks, validation and the derived garment state)\n');
+  console.log('\nMedians of the rounds:');
+  console.log('route'.padEnd(46) + 'app' + header.slice(3) + ' | bare' + header.slice(4) + ' | p99 ratio  rps ratio  errors');
+  for (const line of summary) console.log(line);
+  console.log('(latencies in ms; rps ratio is bare over app; the bare routes skip sessions, access checks, validation and the derived garment state)\n');
 
   const sql = knex('commissions')
     .join('clients', 'clients.id', 'commissions.client_id')

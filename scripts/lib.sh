@@ -111,3 +111,6 @@ chore_database() {
 chore_done() {
   if [ "$CHORE_STARTED_PG" = 1 ]; then pg_down "$DATA_DIR/pg" >/dev/null; fi
 }
+
+# Every TypeScript project of the repo, type-checked by `npm test` and `npm run typecheck`.
+TS_PROJECTS=(shared/tsconfig.json server/tsconfig.json tsconfig.app.json tsconfig.spec.json e2e/tsconfig.json)

@@ -50,7 +50,7 @@ counts() { # file kind
 }
 
 log "Type-checking every part"
-for project in shared/tsconfig.json server/tsconfig.json tsconfig.app.json tsconfig.spec.json e2e/tsconfig.json; do
+for project in "${TS_PROJECTS[@]}"; do
   if npx tsc --noEmit -p "$project"; then record "tsc $project" 1 0; else record "tsc $project" 0 1; fi
 done
 
