@@ -48,19 +48,40 @@ function sizes(browserDir: string) {
   return { initialBytes, initialFiles: initial.size, lazyCount: lazy.length, lazyBytes: lazy.reduce((s, f) => s + gz(f), 0) };
 }
 
-/** An empty Material app (one button) of the same versions, built with the project's own packages. */
-function buildFloor(): string {
-  const dir = mkdtempSync(path.join(os.tmpdir(), 'keepstitch-floor-'));
-  // A link to the project's packages, used read-only by the build (never install through it).
-  symlinkSync(path.join(ROOT, 'node_modules'), path.join(dir, 'node_modules'), 'dir');
-  mkdirSync(path.join(dir, 'src'));
-  writeFileSync(path.join(dir, 'src', 'main.ts'), `import { Component } from '@angular/core';
+const FLOORS = {
+  /** The floor the target is set against: an empty Material app, one button. */
+  empty: `import { Component } from '@angular/core';
 import { bootstrapApplication } from '@angular/platform-browser';
 import { MatButtonModule } from '@angular/material/button';
 @Component({ selector: 'app-root', imports: [MatButtonModule], template: '<button mat-flat-button>Hello</button>' })
 class App {}
 bootstrapApplication(App).catch((e) => console.error(e));
-`);
+`,
+  /** For comparison: the same with the router (one page) and HttpClient (one request at start), which any routed app that talks to an API carries. */
+  routed: `import { Component, inject } from '@angular/core';
+import { bootstrapApplication } from '@angular/platform-browser';
+import { HttpClient, provideHttpClient } from '@angular/common/http';
+import { RouterLink, RouterOutlet, provideRouter } from '@angular/router';
+import { MatButtonModule } from '@angular/material/button';
+@Component({ template: 'Page' })
+class Page {}
+@Component({ selector: 'app-root', imports: [MatButtonModule, RouterLink, RouterOutlet], template: '<a mat-flat-button routerLink="/">Hello</a><router-outlet />' })
+class App {
+  constructor() {
+    inject(HttpClient).get('/api/ping').subscribe({ error: () => undefined });
+  }
+}
+bootstrapApplication(App, { providers: [provideRouter([{ path: '', component: Page }]), provideHttpClient()] }).catch((e) => console.error(e));
+`,
+};
+
+/** A floor app of the same versions, built with the project's own packages. */
+function buildFloor(kind: keyof typeof FLOORS): string {
+  const dir = mkdtempSync(path.join(os.tmpdir(), 'keepstitch-floor-'));
+  // A link to the project's packages, used read-only by the build (never install through it).
+  symlinkSync(path.join(ROOT, 'node_modules'), path.join(dir, 'node_modules'), 'dir');
+  mkdirSync(path.join(dir, 'src'));
+  writeFileSync(path.join(dir, 'src', 'main.ts'), FLOORS[kind]);
   writeFileSync(path.join(dir, 'src', 'index.html'), '<!doctype html><html><head><base href="/"></head><body><app-root></app-root></body></html>');
   writeFileSync(path.join(dir, 'src', 'styles.scss'), `@use '@angular/material' as mat;\nhtml { color-scheme: light dark; @include mat.theme((color: mat.$azure-palette, typography: Roboto, density: 0)); }\n`);
   writeFileSync(path.join(dir, 'tsconfig.json'), JSON.stringify({ compilerOptions: { strict: true, target: 'ES2022', module: 'preserve', moduleResolution: 'bundler', skipLibCheck: true, experimentalDecorators: true }, files: ['src/main.ts'] }));
@@ -77,11 +98,16 @@ async function main(): Promise<void> {
   // Always a fresh production build: sizes of an older one would say nothing about this tree.
   execFileSync(path.join(ROOT, 'node_modules', '.bin', 'ng'), ['build', '--configuration', 'production', '--progress=false'], { cwd: ROOT, stdio: 'inherit' });
   const app = sizes(path.join(ROOT, 'dist', 'keepstitch', 'browser'));
-  const floorDir = buildFloor();
-  const floor = sizes(path.join(floorDir, 'dist', 'floor', 'browser'));
-  // Drop the link first, so removing the folder can never reach the project's packages.
-  unlinkSync(path.join(floorDir, 'node_modules'));
-  rmSync(floorDir, { recursive: true, force: true });
+  const floorSizes = (kind: keyof typeof FLOORS) => {
+    const dir = buildFloor(kind);
+    const found = sizes(path.join(dir, 'dist', 'floor', 'browser'));
+    // Drop the link first, so removing the folder can never reach the project's packages.
+    unlinkSync(path.join(dir, 'node_modules'));
+    rmSync(dir, { recursive: true, force: true });
+    return found;
+  };
+  const floor = floorSizes('empty');
+  const routed = floorSizes('routed');
 
   const url = new URL(process.env['DATABASE_URL']!);
   url.pathname = '/keepstitch_bench_app';
@@ -136,6 +162,7 @@ async function main(): Promise<void> {
   const ratio = app.initialBytes / floor.initialBytes;
   console.log(`\n${new Date().toISOString()}, ${os.cpus().length} cores, Node ${process.version}`);
   console.log(`initial JS (gzip): app ${kb(app.initialBytes)} in ${app.initialFiles} files; empty Material app ${kb(floor.initialBytes)}; ratio ${ratio.toFixed(2)} ${ratio <= 1.5 ? 'PASS (at most 1.5x)' : 'OVER 1.5x'}`);
+  console.log(`  for comparison: the empty Material app with the router and HttpClient ${kb(routed.initialBytes)}; ratio ${(app.initialBytes / routed.initialBytes).toFixed(2)}`);
   console.log(`lazy chunks: ${app.lazyCount}, ${kb(app.lazyBytes)} gzip in all`);
   console.log(`first contentful paint of the sign-in page: median ${median(fcp).toFixed(0)} ms (${fcp.map((x) => x.toFixed(0)).join(', ')})`);
   console.log(`sign-in form shown, from navigation: median ${median(formShown).toFixed(0)} ms (${formShown.map((x) => x.toFixed(0)).join(', ')})`);
