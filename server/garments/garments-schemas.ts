@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import Decimal from 'decimal.js';
-import { COLOUR_RUN, CONSTRUCTION, FEATURE, FIBRE, GARMENT_TEXT_LIMITS as TEXT, GRAIN, KEPT_FEATURE_LIMITS, Length, PREWASH, PRINT, formatLength, type PanelFeature } from '@keepstitch/shared';
+import { COLOUR_RUN, CONSTRUCTION, CUSTODY_TEXT_LIMITS as CUSTODY, FEATURE, FIBRE, GARMENT_TEXT_LIMITS as TEXT, GRAIN, KEPT_FEATURE_LIMITS, Length, PREWASH, PRINT, formatLength, type PanelFeature } from '@keepstitch/shared';
 import { optionalText } from '../core/validate';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 
@@ -43,26 +43,26 @@ export const custodyEventSchema = z
   .discriminatedUnion(
     'kind',
     [
-      z.object({ kind: z.literal('received'), note: optionalText(TEXT.returnsToClient, 'Note'), place: optionalText(60, 'Place') }).strict(),
-      z.object({ kind: z.literal('washed'), note: optionalText(TEXT.returnsToClient, 'Note') }).strict(),
-      z.object({ kind: z.literal('stored'), place: z.string({ message: 'Say where it is stored (box or shelf).' }).trim().min(1, 'Say where it is stored (box or shelf).').max(60), note: optionalText(TEXT.returnsToClient, 'Note') }).strict(),
-      z.object({ kind: z.literal('moved'), place: z.string({ message: 'Say where it was moved to.' }).trim().min(1, 'Say where it was moved to.').max(60), note: optionalText(TEXT.returnsToClient, 'Note') }).strict(),
-      z.object({ kind: z.literal('cut'), note: optionalText(TEXT.returnsToClient, 'Note') }).strict(),
+      z.object({ kind: z.literal('received'), note: optionalText(CUSTODY.note, 'Note'), place: optionalText(CUSTODY.place, 'Place') }).strict(),
+      z.object({ kind: z.literal('washed'), note: optionalText(CUSTODY.note, 'Note') }).strict(),
+      z.object({ kind: z.literal('stored'), place: z.string({ message: 'Say where it is stored (box or shelf).' }).trim().min(1, 'Say where it is stored (box or shelf).').max(CUSTODY.place, `A place can be at most ${CUSTODY.place} characters.`), note: optionalText(CUSTODY.note, 'Note') }).strict(),
+      z.object({ kind: z.literal('moved'), place: z.string({ message: 'Say where it was moved to.' }).trim().min(1, 'Say where it was moved to.').max(CUSTODY.place, `A place can be at most ${CUSTODY.place} characters.`), note: optionalText(CUSTODY.note, 'Note') }).strict(),
+      z.object({ kind: z.literal('cut'), note: optionalText(CUSTODY.note, 'Note') }).strict(),
       z
         .object({
           kind: z.literal('returned'),
           returnMethod: z.enum(['in_person', 'post'], { message: 'Say how it was returned: in person or by post.' }),
-          trackingRef: optionalText(60, 'Tracking reference'),
-          note: optionalText(TEXT.returnsToClient, 'Note'),
+          trackingRef: optionalText(CUSTODY.trackingRef, 'Tracking reference'),
+          note: optionalText(CUSTODY.note, 'Note'),
         })
         .strict()
         .refine((v) => v.returnMethod !== 'post' || !!v.trackingRef, { path: ['trackingRef'], message: 'Give the tracking reference for a garment sent by post.' }),
-      z.object({ kind: z.literal('withdrawn'), note: optionalText(TEXT.returnsToClient, 'Note') }).strict(),
+      z.object({ kind: z.literal('withdrawn'), note: optionalText(CUSTODY.note, 'Note') }).strict(),
       z
         .object({
           kind: z.literal('correction'),
           correctsEventId: z.number({ message: 'Say which entry this corrects.' }).int().positive(),
-          note: z.string({ message: 'Say what was wrong.' }).trim().min(1, 'Say what was wrong.').max(1000),
+          note: z.string({ message: 'Say what was wrong.' }).trim().min(1, 'Say what was wrong.').max(CUSTODY.note, `A note can be at most ${CUSTODY.note} characters.`),
         })
         .strict(),
     ],

@@ -1,4 +1,4 @@
-import { KEPT_FEATURE_LIMITS } from '@keepstitch/shared';
+import { CUSTODY_TEXT_LIMITS, KEPT_FEATURE_LIMITS } from '@keepstitch/shared';
 import { ApiAgent, addUser, signedIn, startTestApp, type TestApp } from '../testing/test-app';
 import { addCommission } from '../testing/fixtures';
 
@@ -79,6 +79,20 @@ describe('garments, custody and panels', () => {
     const over = await workroom.patch(`/api/garments/${ok.body.id}`, { features: [{ kind: 'pocket', position: `${at}x` }] });
     expect(over.status).toBe(400);
     expect(over.body.error.fields['features.0.position']).toBe('A position can be at most 200 characters.');
+  });
+
+  it('keeps a storage place up to the limit the form shares, and refuses a longer one with a message', async () => {
+    // CUSTODY_TEXT_LIMITS in shared/: the garment page's entry form holds the same 60 characters as the column.
+    expect(CUSTODY_TEXT_LIMITS.place).toBe(60);
+    const g = (await owner.post(`/api/commissions/${commissionA}/garments`, { description: 'Long-shelved scarf' })).body;
+    const event = (body: object) => workroom.post(`/api/garments/${g.id}/events`, body);
+    expect((await event({ kind: 'received' })).status).toBe(201);
+    const over = await event({ kind: 'stored', place: 'p'.repeat(61) });
+    expect(over.status).toBe(400);
+    expect(over.body.error.fields.place).toBe('A place can be at most 60 characters.');
+    const ok = await event({ kind: 'stored', place: 'p'.repeat(60) });
+    expect(ok.status).toBe(201);
+    expect(ok.body.state.place).toBe('p'.repeat(60));
   });
 
   it('lets the studio mark a fibre as not known', async () => {

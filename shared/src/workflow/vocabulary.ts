@@ -72,3 +72,6 @@ export const GARMENT_TEXT_LIMITS = { description: 300, whose: 200, story: 5000, 
 
 /** Limits on a garment's kept features, the same for the forms and the server: characters of a position, features a garment. */
 export const KEPT_FEATURE_LIMITS = { position: 200, features: 20 } as const;
+
+/** The longest text of a custody entry, the same for the forms and the server: where it is kept, a tracking reference, a note. */
+export const CUSTODY_TEXT_LIMITS = { place: 60, trackingRef: 60, note: 1000 } as const;

@@ -108,6 +108,25 @@ describe('GarmentPage custody', () => {
     httpMock.expectOne('/api/garments/21').flush({ ...garment, status: 'returned', place: null });
   });
 
+  it('takes a place as long as the server keeps, and marks a longer one without sending it', async () => {
+    await chooseEvent('Stored');
+    await type('Place', 'S'.repeat(61));
+    await record();
+    httpMock.expectNone('/api/garments/21/events');
+    const place = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Place' }));
+    expect(await place.getTextErrors()).toEqual(['At most 60 characters']);
+
+    await type('Place', 'Shelf B2, the long cedar box under the window'.padEnd(60, '.'));
+    await record();
+    const request = httpMock.expectOne('/api/garments/21/events');
+    expect(request.request.body.place.length).toBe(60);
+    request.flush(
+      { event: { id: 4, kind: 'stored', at: '2026-11-05T09:00:00Z' }, state: { status: 'in_studio', received: true, washed: false, place: 'Shelf B2' } },
+      { status: 201, statusText: 'Created' },
+    );
+    httpMock.expectOne('/api/garments/21').flush(garment);
+  });
+
   it('corrects a listed entry with a note, and shows a refusal from the server', async () => {
     await chooseEvent('Correction');
     const entry = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Entry to correct' }));

@@ -13,6 +13,7 @@ import {
   COLOUR_RUN,
   CONSTRUCTION,
   CUSTODY_LABELS,
+  CUSTODY_TEXT_LIMITS,
   FEATURE,
   FIBRE,
   GARMENT_STATUS_LABELS,
@@ -86,12 +87,13 @@ export class GarmentPage {
 
   protected readonly eventForm = new FormGroup({
     kind: new FormControl<RecordableKind>('received', { nonNullable: true }),
-    place: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(40)] }),
+    place: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(CUSTODY_TEXT_LIMITS.place)] }),
     returnMethod: new FormControl<ReturnMethod>('in_person', { nonNullable: true }),
-    trackingRef: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(60)] }),
+    trackingRef: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(CUSTODY_TEXT_LIMITS.trackingRef)] }),
     correctsEventId: new FormControl<number | null>(null),
-    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(500)] }),
+    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(CUSTODY_TEXT_LIMITS.note)] }),
   });
+  protected readonly limits = CUSTODY_TEXT_LIMITS;
   protected readonly kind = toSignal(this.eventForm.controls.kind.valueChanges, { initialValue: this.eventForm.controls.kind.value });
   protected readonly returnMethod = toSignal(this.eventForm.controls.returnMethod.valueChanges, {
     initialValue: this.eventForm.controls.returnMethod.value,
@@ -142,6 +144,15 @@ export class GarmentPage {
     const v = this.eventForm.getRawValue();
     const c = this.eventForm.controls;
     this.eventError.set(null);
+    // Text over its limit, in a field this kind of entry shows, is marked on its field and not sent.
+    const shown = [c.note];
+    if (v.kind === 'received' || v.kind === 'stored' || v.kind === 'moved') shown.push(c.place);
+    if (v.kind === 'returned' && v.returnMethod === 'post') shown.push(c.trackingRef);
+    const tooLong = shown.filter((control) => control.hasError('maxlength'));
+    if (tooLong.length) {
+      for (const control of tooLong) control.markAsTouched();
+      return;
+    }
     const note = v.note.trim() || undefined;
     const place = v.place.trim();
     let draft: CustodyEventDraft;
