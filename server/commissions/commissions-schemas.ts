@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { AGE_GROUP, COMMISSION_KIND, STAGES, ALL_STAGES } from '@keepstitch/shared';
+import { AGE_GROUP, COMMISSION_KIND, COMMISSION_TEXT_LIMITS as TEXT, STAGES, ALL_STAGES } from '@keepstitch/shared';
 import { optionalText } from '../core/validate';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 
@@ -24,7 +24,7 @@ const commissionFields = {
   unit: lengthUnitSchema.default('in'),
   deadline: isoDate.nullable().optional(),
   budgetPence: z.number({ message: 'Budget must be an amount in pence.' }).int('Budget must be whole pence.').min(0, 'Budget cannot be negative.').max(100_000_00, 'Budget is too large.').nullable().optional(),
-  notes: optionalText(5000, 'Notes'),
+  notes: optionalText(TEXT.notes, 'Notes'),
 };
 
 /** Turns typed width/length into exact millimetres. */
@@ -65,7 +65,7 @@ export const listCommissionsQuerySchema = z
 export const stageMoveSchema = z
   .object({
     to: z.enum(ALL_STAGES as unknown as [string, ...string[]], { message: 'Choose the stage to move to.' }),
-    note: optionalText(1000, 'Note'),
+    note: optionalText(TEXT.moveNote, 'Note'),
   })
   .strict();
 
@@ -74,7 +74,7 @@ export const hoursSchema = z
     stage: z.enum(STAGES as unknown as [string, ...string[]], { message: 'Choose the stage the hours were for.' }),
     hours: z.number({ message: 'Hours must be a number.' }).positive('Hours must be more than 0.').max(24, 'At most 24 hours in one entry.').multipleOf(0.25, 'Log hours in quarters (0.25).'),
     workedOn: isoDate,
-    note: optionalText(1000, 'Note'),
+    note: optionalText(TEXT.hoursNote, 'Note'),
   })
   .strict();
 

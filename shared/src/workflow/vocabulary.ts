@@ -73,5 +73,8 @@ export const GARMENT_TEXT_LIMITS = { description: 300, whose: 200, story: 5000, 
 /** Limits on a garment's kept features, the same for the forms and the server: characters of a position, features a garment. */
 export const KEPT_FEATURE_LIMITS = { position: 200, features: 20 } as const;
 
+/** The longest text of a commission's notes, a stage move's note and an hours entry's note, the same for the forms and the server. */
+export const COMMISSION_TEXT_LIMITS = { notes: 5000, moveNote: 1000, hoursNote: 1000 } as const;
+
 /** The longest text of a custody entry, the same for the forms and the server: where it is kept, a tracking reference, a note. */
 export const CUSTODY_TEXT_LIMITS = { place: 60, trackingRef: 60, note: 1000 } as const;

@@ -9,7 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
-import { AGE_GROUP, AgeGroup, COMMISSION_KIND, CommissionKind, cautionsFor } from '@keepstitch/shared';
+import { AGE_GROUP, AgeGroup, COMMISSION_KIND, COMMISSION_TEXT_LIMITS, CommissionKind, cautionsFor } from '@keepstitch/shared';
 import { catchError, map, of } from 'rxjs';
 
 import { ClientRow } from '../clients/client';
@@ -70,6 +70,8 @@ export class CommissionForm {
   protected readonly backLink = computed(() => (this.isEdit() ? ['/commissions', this.id()] : ['/commissions']));
 
   private readonly unitOf = () => this.form.controls.unit.value;
+  /** The server's limit on notes; the field stops taking text there, as the shorter fields do at theirs. */
+  protected readonly notesLimit = COMMISSION_TEXT_LIMITS.notes;
   protected readonly form = new FormGroup({
     clientId: new FormControl<number | null>(null, [Validators.required]),
     title: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),
@@ -83,7 +85,7 @@ export class CommissionForm {
     unit: new FormControl<'in' | 'cm'>('in', { nonNullable: true }),
     deadline: new FormControl('', { nonNullable: true }),
     budget: new FormControl('', { nonNullable: true, validators: [Validators.pattern(POUNDS)] }),
-    notes: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(5000)] }),
+    notes: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(COMMISSION_TEXT_LIMITS.notes)] }),
   });
 
   private readonly value = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });

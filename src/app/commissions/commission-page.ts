@@ -13,6 +13,7 @@ import {
   AGE_GROUP,
   ALL_STAGES,
   COMMISSION_KIND,
+  COMMISSION_TEXT_LIMITS,
   FIBRE,
   GARMENT_STATUS_LABELS,
   STAGE_LABELS,
@@ -89,8 +90,9 @@ export class CommissionPage {
 
   protected readonly stageForm = new FormGroup({
     to: new FormControl<Stage | null>(null, [Validators.required]),
-    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(1000)] }),
+    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(COMMISSION_TEXT_LIMITS.moveNote)] }),
   });
+  protected readonly limits = COMMISSION_TEXT_LIMITS;
   protected readonly movingStage = signal(false);
   protected readonly stageError = signal<string | null>(null);
 
@@ -98,7 +100,7 @@ export class CommissionPage {
     stage: new FormControl<Stage>('enquiry', { nonNullable: true }),
     hours: new FormControl<number | null>(null, [Validators.required, Validators.min(0.25), Validators.max(24), quarterHours]),
     workedOn: new FormControl(todayIso(), { nonNullable: true, validators: [Validators.required] }),
-    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(500)] }),
+    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(COMMISSION_TEXT_LIMITS.hoursNote)] }),
   });
   protected readonly loggingHours = signal(false);
   protected readonly hoursError = signal<string | null>(null);

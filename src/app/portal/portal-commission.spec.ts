@@ -94,6 +94,9 @@ describe('PortalCommission', () => {
       (await (await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }))).getControl(MatInputHarness))!.setValue(text);
     await type('What it is', 'Grey wool cardigan');
     await type('Its story', 'Knitted for the allotment.');
+    // The fields stop at the server's own limits, so a long story is never refused in silence.
+    const limit = (name: string) => page.querySelector<HTMLInputElement | HTMLTextAreaElement>(`[formcontrolname="${name}"]`)!.maxLength;
+    expect([limit('description'), limit('whose'), limit('story'), limit('colour')]).toEqual([300, 200, 5000, 100]);
 
     const photo = new File([new Uint8Array(500)], 'cardigan.jpg', { type: 'image/jpeg' });
     const input = page.querySelector<HTMLInputElement>('input[type=file]')!;

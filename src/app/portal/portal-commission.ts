@@ -7,7 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { FIBRE, Fibre, GARMENT_STATUS_LABELS, STAGES, STAGE_LABELS } from '@keepstitch/shared';
+import { FIBRE, Fibre, GARMENT_STATUS_LABELS, GARMENT_TEXT_LIMITS, STAGES, STAGE_LABELS } from '@keepstitch/shared';
 
 import { CommissionDetail, GarmentDetail, orNull, showDate } from '../commissions/commission';
 import { CommissionsApi } from '../commissions/commissions-api';
@@ -73,12 +73,14 @@ export class PortalCommission {
     return garment ? `/api/garments/${garment.id}/photos` : null;
   });
   protected readonly form = new FormGroup({
-    description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),
-    whose: new FormControl('', { nonNullable: true }),
-    story: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
+    description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(GARMENT_TEXT_LIMITS.description)] }),
+    whose: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.whose)] }),
+    story: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.story)] }),
     fibre: new FormControl<Fibre | null>(null),
-    colour: new FormControl('', { nonNullable: true }),
+    colour: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.colour)] }),
   });
+  /** The server's limits: the fields stop taking text there. */
+  protected readonly limits = GARMENT_TEXT_LIMITS;
 
   constructor() {
     effect(() => {
