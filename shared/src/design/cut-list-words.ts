@@ -4,7 +4,8 @@
 
 import type { CutRegion, CutStep } from '../cut-plan/cut-plan-types';
 import type { DerivedPiece } from './derive-design';
-import { keptFeatureNote, type KeptFeaturePiece, type KeptFeaturePlace } from './kept-feature-places';
+import { keptFeatureNote, type KeptFeaturePlace } from './kept-feature-places';
+import type { KeptFeaturePiece } from './plan-design';
 
 /** The number a cut list gives a piece kind: its derived id without the "p". */
 export const pieceNumber = (id: string): string => id.replace(/^p/, '');

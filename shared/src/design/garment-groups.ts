@@ -4,7 +4,6 @@
 // list existed, whose assignments wrote each group's name and garments out in full.
 
 import { fabricKey, type AssignmentTarget, type DesignBody, type FabricRef, type GarmentGroup } from './design-body';
-import type { DesignDerivation } from './derive-design';
 import { groupStripes, meanColour } from './fabric-colour';
 
 /** Limits on a design's groups, the same for the form and the server. */
@@ -87,6 +86,13 @@ const isInline = (f: StoredFabricRef | null | undefined): f is InlineGroupRef =>
 /** Older designs told groups apart by their garments alone. */
 const inlineKey = (f: InlineGroupRef) => [...f.garmentIds].sort((a, b) => a - b).join(',');
 
+/** The parts of a stored derivation (see derive-design.ts) that name fabrics. */
+interface FabricsNamed {
+  positions: Array<{ fabrics: Record<string, StoredFabricRef | null> }>;
+  pieces: Array<{ fabric: StoredFabricRef | null }>;
+  layoutFabrics: Record<string, StoredFabricRef | null>;
+}
+
 /**
  * A stored design with its list of groups. One saved with the list comes back
  * as it is (with an empty list when it had none to keep). One saved before
@@ -94,7 +100,7 @@ const inlineKey = (f: InlineGroupRef) => [...f.garmentIds].sort((a, b) => a - b)
  * order first given, with ids g1, g2...; its assignments, and the derivation
  * stored with it, then name them by id.
  */
-export function upgradeStoredDesign<D extends DesignDerivation | undefined>(stored: StoredDesignBody, derived: D): { body: DesignBody; derived: D } {
+export function upgradeStoredDesign<D extends FabricsNamed | undefined>(stored: StoredDesignBody, derived: D): { body: DesignBody; derived: D } {
   const inline = stored.assignments.map((a) => a.fabric).filter(isInline);
   if (inline.length === 0) {
     return { body: { ...stored, groups: stored.groups ?? [] } as DesignBody, derived };
@@ -112,7 +118,7 @@ export function upgradeStoredDesign<D extends DesignDerivation | undefined>(stor
   const body: DesignBody = { ...stored, groups, assignments: stored.assignments.map((a) => ({ ...a, fabric: ref(a.fabric)! })) };
   if (!derived) return { body, derived };
   const refs = (record: Record<string, StoredFabricRef | null>) => Object.fromEntries(Object.entries(record).map(([k, f]) => [k, ref(f)]));
-  const upgraded: DesignDerivation = {
+  const upgraded: FabricsNamed = {
     ...derived,
     positions: derived.positions.map((p) => ({ ...p, fabrics: refs(p.fabrics) })),
     pieces: derived.pieces.map((p) => ({ ...p, fabric: ref(p.fabric) })),

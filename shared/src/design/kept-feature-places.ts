@@ -5,23 +5,7 @@
 
 import { fabricKey, type DesignBody } from './design-body';
 import type { DesignDerivation } from './derive-design';
-import { keptFeatureId, type DesignPlanSummary } from './plan-design';
-
-/** A kept feature the plan holds whole, and the copy of the block piece cut centred on it. */
-export interface KeptFeaturePiece {
-  /** The planner's id of the feature (keptFeatureId). */
-  featureId: string;
-  /** The feature's name as measured, e.g. "breast pocket". */
-  feature: string;
-  garmentId: number;
-  /** The garment's description. */
-  garment: string;
-  /** The panel's name. */
-  panel: string;
-  /** The derived piece, and which copy of it (from 1). */
-  pieceId: string;
-  copy: number;
-}
+import { keptFeatureId, type DesignPlanSummary, type KeptFeaturePiece } from './plan-design';
 
 /** Where a kept feature sits in the top: its block position, and in a block of rails which rail (0 at the top). */
 export interface KeptFeaturePlace {

@@ -19,7 +19,6 @@ import { DomainError } from '../errors';
 import type { BlockKind, DesignBody, FabricRef } from './design-body';
 import type { DerivedPiece, DesignDerivation } from './derive-design';
 import { groupOf } from './garment-groups';
-import type { KeptFeaturePiece } from './kept-feature-places';
 
 /**
  * A kept feature measured on a panel (a pocket, a label, embroidery): its top-left
@@ -135,6 +134,22 @@ function sourceOf(fabric: FabricRef | null, body: DesignBody): PieceSource {
     case 'stock':
       return { kind: 'studio-fabric', fabricId: stockFabricId(fabric.stockId) };
   }
+}
+
+/** A kept feature the plan holds whole, and the copy of the block piece cut centred on it. */
+export interface KeptFeaturePiece {
+  /** The planner's id of the feature (keptFeatureId). */
+  featureId: string;
+  /** The feature's name as measured, e.g. "breast pocket". */
+  feature: string;
+  garmentId: number;
+  /** The garment's description. */
+  garment: string;
+  /** The panel's name. */
+  panel: string;
+  /** The derived piece, and which copy of it (from 1). */
+  pieceId: string;
+  copy: number;
 }
 
 /** The planner's id of the i-th kept feature (0-based) of a panel. */
