@@ -10,7 +10,6 @@ import {
   CONSTRUCTION,
   ColourRun,
   Construction,
-  FEATURE,
   FIBRE,
   GARMENT_TEXT_LIMITS,
   Fibre,
@@ -22,9 +21,10 @@ import {
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
-import { Feature, GarmentDetail, GarmentDraft, orNull } from './commission';
+import { GarmentDetail, GarmentDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
-import { KeptFeatureForm, POSITION_LIMIT, keptFeatureForm } from './kept-feature-form';
+import { KeptFeatureForm, keptFeatureForm } from './kept-feature-form';
+import { KeptFeaturesEditor } from './kept-features-editor';
 
 const TEXT_FIELDS = ['description', 'whose', 'story', 'colour', 'condition', 'returnsToClient'] as const;
 const CHOICE_FIELDS = ['fibre', 'construction', 'print', 'prewash', 'colourRun'] as const;
@@ -36,7 +36,7 @@ const CHOICE_FIELDS = ['fibre', 'construction', 'print', 'prewash', 'colourRun']
  */
 @Component({
   selector: 'ks-garment-details-form',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, KeptFeaturesEditor],
   templateUrl: './garment-details-form.html',
   styleUrl: './garment-details-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -54,8 +54,6 @@ export class GarmentDetailsForm implements OnInit {
   protected readonly prints = PRINT.options;
   protected readonly prewashes = PREWASH.options;
   protected readonly colourRuns = COLOUR_RUN.options;
-  protected readonly featureKinds = FEATURE.options;
-  protected readonly positionLimit = POSITION_LIMIT;
   protected readonly limits = GARMENT_TEXT_LIMITS;
 
   protected readonly form = new FormGroup({
@@ -91,7 +89,7 @@ export class GarmentDetailsForm implements OnInit {
       colourRun: g.colourRun ?? null,
       returnsToClient: g.returnsToClient ?? '',
     });
-    for (const f of g.features ?? []) this.addFeature(f);
+    for (const f of g.features ?? []) this.form.controls.features.push(keptFeatureForm(f));
   }
 
   /** True when the garment came without this choice, so leaving it unset is allowed. */
@@ -100,14 +98,6 @@ export class GarmentDetailsForm implements OnInit {
     return value === null || value === undefined;
   }
 
-  protected addFeature(feature?: Feature): void {
-    this.form.controls.features.push(keptFeatureForm(feature));
-  }
-
-  protected removeFeature(index: number): void {
-    this.form.controls.features.removeAt(index);
-    this.form.controls.features.markAsDirty();
-  }
 
   protected saveGarment(): void {
     this.error.set(null);

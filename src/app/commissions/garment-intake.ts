@@ -11,7 +11,6 @@ import {
   CONSTRUCTION,
   ColourRun,
   Construction,
-  FEATURE,
   FIBRE,
   GARMENT_TEXT_LIMITS,
   Fibre,
@@ -26,7 +25,8 @@ import { PhotoUpload } from '../shared/photo-upload';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { GarmentDetail, GarmentDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
-import { KeptFeatureForm, POSITION_LIMIT, keptFeatureForm } from './kept-feature-form';
+import { KeptFeatureForm } from './kept-feature-form';
+import { KeptFeaturesEditor } from './kept-features-editor';
 
 /**
  * Logging a garment in four short steps: what it is, fibre and care, the
@@ -35,6 +35,7 @@ import { KeptFeatureForm, POSITION_LIMIT, keptFeatureForm } from './kept-feature
 @Component({
   selector: 'ks-garment-intake',
   imports: [
+    KeptFeaturesEditor,
     ReactiveFormsModule,
     MatStepperModule,
     MatFormFieldModule,
@@ -60,8 +61,6 @@ export class GarmentIntake {
   protected readonly prints = PRINT.options;
   protected readonly prewashes = PREWASH.options;
   protected readonly colourRuns = COLOUR_RUN.options;
-  protected readonly featureKinds = FEATURE.options;
-  protected readonly positionLimit = POSITION_LIMIT;
   protected readonly limits = GARMENT_TEXT_LIMITS;
 
   protected readonly what = new FormGroup({
@@ -92,14 +91,6 @@ export class GarmentIntake {
 
   constructor() {
     this.care.controls.construction.valueChanges.subscribe((c) => this.isKnit.set(c === 'knit'));
-  }
-
-  protected addFeature(): void {
-    this.features.push(keptFeatureForm());
-  }
-
-  protected removeFeature(index: number): void {
-    this.features.removeAt(index);
   }
 
   protected saveGarment(): void {
