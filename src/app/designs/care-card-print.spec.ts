@@ -38,7 +38,8 @@ describe('CareCardPrint', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     httpMock = TestBed.inject(HttpTestingController);
     page = fixture.nativeElement as HTMLElement;
-    await fixture.whenStable();
+    // Not whenStable: the page stays busy until its request is answered, and the test answers it next.
+    fixture.detectChanges();
   }
 
   afterEach(() => httpMock.verify());
@@ -66,11 +67,11 @@ describe('CareCardPrint', () => {
   it('takes the client back to their commission in the portal, and the studio back to the design', async () => {
     await open('client');
     await flush();
-    expect(page.querySelector('[data-testid="care-card-back"]')!.getAttribute('href')).toBe('/portal/5');
+    expect(page.querySelector('[data-testid="print-back"]')!.getAttribute('href')).toBe('/portal/5');
     TestBed.resetTestingModule();
     await open('workroom');
     await flush();
-    expect(page.querySelector('[data-testid="care-card-back"]')!.getAttribute('href')).toBe('/designs/5');
+    expect(page.querySelector('[data-testid="print-back"]')!.getAttribute('href')).toBe('/designs/5');
   });
 
   it('shows no safety section when no notice applies', async () => {
@@ -90,10 +91,23 @@ describe('CareCardPrint', () => {
     expect(await (await (await loader.getHarness(MatButtonHarness.with({ text: 'PDF' }))).host()).getAttribute('href')).toBe('/api/commissions/5/care-card.pdf');
   });
 
-  it('says when the care card cannot be loaded', async () => {
+  it('shows progress while loading, says when the care card cannot be loaded, and tries again on request', async () => {
     await open('client');
+    // The DOM directly while a request is open: harnesses wait for the page to settle, which it does only once answered.
+    const printButton = () => [...page.querySelectorAll('button')].find((b) => b.textContent!.includes('Print'))!;
+    expect(page.querySelector('mat-progress-bar')).not.toBeNull();
+    expect(printButton().disabled).toBeTrue();
     httpMock.expectOne('/api/commissions/5/care-card').flush({ error: { code: 'not-found', message: 'That commission was not found.' } }, { status: 404, statusText: 'Not Found' });
     await fixture.whenStable();
     expect(page.querySelector('[role="alert"]')!.textContent).toContain('The care card could not be loaded.');
+    expect(page.querySelector('mat-progress-bar')).toBeNull();
+
+    [...page.querySelectorAll<HTMLButtonElement>('[role="alert"] button')].find((b) => b.textContent!.includes('Try again'))!.click();
+    fixture.detectChanges();
+    expect(page.querySelector('mat-progress-bar')).not.toBeNull();
+    await flush();
+    expect(page.querySelector('[role="alert"]')).toBeNull();
+    expect(page.querySelector('h1')!.textContent).toContain('Caring for your');
+    expect(printButton().disabled).toBeFalse();
   });
 });

@@ -1,17 +1,17 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
-import { MatIconModule } from '@angular/material/icon';
-import { RouterLink } from '@angular/router';
 import { COMMISSION_KIND, FIBRE } from '@keepstitch/shared';
 
 import { Auth } from '../core/auth';
 import { CareCard } from './design';
 import { DesignsApi } from './designs-api';
+import { PrintBar, printState } from './print-bar';
 
 /** The care card for the finished piece as a page for paper; the client reaches it from the portal. */
 @Component({
   selector: 'ks-care-card-print',
-  imports: [RouterLink, MatButtonModule, MatIconModule],
+  imports: [MatButtonModule, PrintBar],
   templateUrl: './care-card-print.html',
   styleUrl: './care-card-print.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -21,8 +21,9 @@ export class CareCardPrint {
   private readonly auth = inject(Auth);
   readonly id = input.required<string>();
   protected readonly commissionId = computed(() => Number(this.id()));
-  protected readonly card = signal<CareCard | null>(null);
-  protected readonly failed = signal(false);
+  protected readonly loaded = rxResource({ params: () => this.commissionId(), stream: ({ params }) => this.api.careCard(params) });
+  protected readonly card = computed<CareCard | null>(() => (this.loaded.hasValue() ? this.loaded.value() : null));
+  protected readonly state = computed(() => printState(this.loaded));
   /** Clients came from their portal; the studio from the design. */
   protected readonly back = computed(() =>
     this.auth.role() === 'client'
@@ -34,18 +35,8 @@ export class CareCardPrint {
     return k ? ((COMMISSION_KIND.labels as Record<string, string>)[k] ?? 'piece').toLowerCase() : 'piece';
   });
 
-  constructor() {
-    effect(() =>
-      this.api.careCard(this.commissionId()).subscribe({ next: (c) => this.card.set(c), error: () => this.failed.set(true) }),
-    );
-  }
-
   protected fibre(f: string): string {
     return f === 'unknown' ? 'Fibre not known' : ((FIBRE.labels as Record<string, string>)[f] ?? f);
-  }
-
-  protected print(): void {
-    window.print();
   }
 
   protected pdf(): string {

@@ -1,12 +1,12 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
-import { MatIconModule } from '@angular/material/icon';
-import { RouterLink } from '@angular/router';
 import { CutRegion, Length, PanelPlan, designDrawing, formatCutSize, formatFinishedSize, keptFeatureId, keptFeaturePieces, keptFeaturePlaces, keptLines, pieceLine, pieceNumber, stepText } from '@keepstitch/shared';
 
 import { DesignScreen, swatchOf } from './design';
 import { DesignsApi } from './designs-api';
+import { PrintBar, printState } from './print-bar';
 import { QuiltDrawing } from './quilt-drawing';
 
 interface Rect {
@@ -37,7 +37,7 @@ interface SourceSection {
  */
 @Component({
   selector: 'ks-cut-list-print',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule, QuiltDrawing],
+  imports: [DatePipe, MatButtonModule, PrintBar, QuiltDrawing],
   templateUrl: './cut-list-print.html',
   styleUrl: './cut-list-print.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -46,8 +46,9 @@ export class CutListPrint {
   private readonly api = inject(DesignsApi);
   readonly id = input.required<string>();
   protected readonly commissionId = computed(() => Number(this.id()));
-  protected readonly screen = signal<DesignScreen | null>(null);
-  protected readonly failed = signal(false);
+  protected readonly loaded = rxResource({ params: () => this.commissionId(), stream: ({ params }) => this.api.screen(params) });
+  protected readonly screen = computed<DesignScreen | null>(() => (this.loaded.hasValue() ? this.loaded.value() : null));
+  protected readonly state = computed(() => printState(this.loaded));
   protected readonly today = new Date();
   protected readonly Math = Math;
   protected readonly swatch = swatchOf;
@@ -126,16 +127,6 @@ export class CutListPrint {
     }
     return out;
   });
-
-  constructor() {
-    effect(() =>
-      this.api.screen(this.commissionId()).subscribe({ next: (s) => this.screen.set(s), error: () => this.failed.set(true) }),
-    );
-  }
-
-  protected print(): void {
-    window.print();
-  }
 
   protected pdf(): string {
     return this.api.pdf(this.commissionId(), 'cut-list');

@@ -22,7 +22,8 @@ describe('SewingOrderPrint', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     httpMock = TestBed.inject(HttpTestingController);
     page = fixture.nativeElement as HTMLElement;
-    await fixture.whenStable();
+    // Not whenStable: the page stays busy until its request is answered, and the test answers it next.
+    fixture.detectChanges();
   });
 
   afterEach(() => httpMock.verify());
@@ -60,7 +61,7 @@ describe('SewingOrderPrint', () => {
     const pdf = await (await loader.getHarness(MatButtonHarness.with({ text: 'PDF' }))).host();
     expect(await pdf.getAttribute('href')).toBe('/api/commissions/5/design/sewing-order.pdf');
     // The buttons stay off the paper.
-    expect(page.querySelector('.actions')!.classList).toContain('ks-no-print');
+    expect(page.querySelector('ks-print-bar')!.classList).toContain('ks-no-print');
   });
 
   it('says when there is no saved design', async () => {

@@ -33,7 +33,8 @@ describe('TemplatesPrint', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     httpMock = TestBed.inject(HttpTestingController);
     page = fixture.nativeElement as HTMLElement;
-    await fixture.whenStable();
+    // Not whenStable: the page stays busy until its request is answered, and the test answers it next.
+    fixture.detectChanges();
   });
 
   afterEach(() => httpMock.verify());

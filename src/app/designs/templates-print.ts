@@ -1,11 +1,11 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
+import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
-import { MatIconModule } from '@angular/material/icon';
-import { RouterLink } from '@angular/router';
 
 import { DesignScreen } from './design';
 import { DesignsApi } from './designs-api';
+import { PrintBar, printState } from './print-bar';
 import { SHEET_AREA_MM, TemplateOutline, templateOutline, templateSizes } from './template-outline';
 
 /** Space round each drawing for its line widths, and below it for its name, mm. */
@@ -28,7 +28,7 @@ interface TemplateSheet {
 /** The full-size templates as a page for paper: each outline at 1:1 in CSS millimetres, with check squares. */
 @Component({
   selector: 'ks-templates-print',
-  imports: [DatePipe, RouterLink, MatButtonModule, MatIconModule],
+  imports: [DatePipe, MatButtonModule, PrintBar],
   templateUrl: './templates-print.html',
   styleUrl: './templates-print.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -37,8 +37,9 @@ export class TemplatesPrint {
   private readonly api = inject(DesignsApi);
   readonly id = input.required<string>();
   protected readonly commissionId = computed(() => Number(this.id()));
-  protected readonly screen = signal<DesignScreen | null>(null);
-  protected readonly failed = signal(false);
+  protected readonly loaded = rxResource({ params: () => this.commissionId(), stream: ({ params }) => this.api.screen(params) });
+  protected readonly screen = computed<DesignScreen | null>(() => (this.loaded.hasValue() ? this.loaded.value() : null));
+  protected readonly state = computed(() => printState(this.loaded));
   protected readonly today = new Date();
   protected readonly pad = PAD_MM;
 
@@ -60,16 +61,6 @@ export class TemplatesPrint {
       };
     }),
   );
-
-  constructor() {
-    effect(() =>
-      this.api.screen(this.commissionId()).subscribe({ next: (s) => this.screen.set(s), error: () => this.failed.set(true) }),
-    );
-  }
-
-  protected print(): void {
-    window.print();
-  }
 
   protected pdf(paper: 'a4' | 'letter'): string {
     return this.api.pdf(this.commissionId(), paper === 'a4' ? 'templates-a4' : 'templates-letter');
