@@ -38,8 +38,7 @@ describe('CareCardPrint', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     httpMock = TestBed.inject(HttpTestingController);
     page = fixture.nativeElement as HTMLElement;
-    // Not whenStable: the page stays busy until its request is answered, and the test answers it next.
-    fixture.detectChanges();
+    await fixture.whenStable();
   }
 
   afterEach(() => httpMock.verify());
@@ -93,7 +92,6 @@ describe('CareCardPrint', () => {
 
   it('shows progress while loading, says when the care card cannot be loaded, and tries again on request', async () => {
     await open('client');
-    // The DOM directly while a request is open: harnesses wait for the page to settle, which it does only once answered.
     const printButton = () => [...page.querySelectorAll('button')].find((b) => b.textContent!.includes('Print'))!;
     expect(page.querySelector('mat-progress-bar')).not.toBeNull();
     expect(printButton().disabled).toBeTrue();

@@ -1,12 +1,11 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
-import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { COMMISSION_KIND, FIBRE } from '@keepstitch/shared';
 
 import { Auth } from '../core/auth';
 import { CareCard } from './design';
 import { DesignsApi } from './designs-api';
-import { PrintBar, printState } from './print-bar';
+import { PrintBar, PrintLoad } from './print-bar';
 
 /** The care card for the finished piece as a page for paper; the client reaches it from the portal. */
 @Component({
@@ -21,9 +20,8 @@ export class CareCardPrint {
   private readonly auth = inject(Auth);
   readonly id = input.required<string>();
   protected readonly commissionId = computed(() => Number(this.id()));
-  protected readonly loaded = rxResource({ params: () => this.commissionId(), stream: ({ params }) => this.api.careCard(params) });
-  protected readonly card = computed<CareCard | null>(() => (this.loaded.hasValue() ? this.loaded.value() : null));
-  protected readonly state = computed(() => printState(this.loaded));
+  protected readonly loaded = new PrintLoad<CareCard>(() => this.api.careCard(this.commissionId()));
+  protected readonly card = this.loaded.value;
   /** Clients came from their portal; the studio from the design. */
   protected readonly back = computed(() =>
     this.auth.role() === 'client'

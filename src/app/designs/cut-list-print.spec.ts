@@ -39,8 +39,7 @@ describe('CutListPrint', () => {
     fixture.componentRef.setInput('id', '5');
     httpMock = TestBed.inject(HttpTestingController);
     page = fixture.nativeElement as HTMLElement;
-    // Not whenStable: the page stays busy until its request is answered, and the test answers it next.
-    fixture.detectChanges();
+    await fixture.whenStable();
     const fabrics = [...shirts.fabrics, groupFabric(body.groups![0]!, shirts.fabrics)];
     httpMock.expectOne('/api/commissions/5/design').flush(designScreen(version(3, body, { plan }), [], { garments, fabrics }));
     await fixture.whenStable();

@@ -1,12 +1,11 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
-import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { CutRegion, Length, PanelPlan, designDrawing, formatCutSize, formatFinishedSize, keptFeatureId, keptFeaturePieces, keptFeaturePlaces, keptLines, pieceLine, pieceNumber, stepText } from '@keepstitch/shared';
 
 import { DesignScreen, swatchOf } from './design';
 import { DesignsApi } from './designs-api';
-import { PrintBar, printState } from './print-bar';
+import { PrintBar, PrintLoad } from './print-bar';
 import { QuiltDrawing } from './quilt-drawing';
 
 interface Rect {
@@ -46,9 +45,8 @@ export class CutListPrint {
   private readonly api = inject(DesignsApi);
   readonly id = input.required<string>();
   protected readonly commissionId = computed(() => Number(this.id()));
-  protected readonly loaded = rxResource({ params: () => this.commissionId(), stream: ({ params }) => this.api.screen(params) });
-  protected readonly screen = computed<DesignScreen | null>(() => (this.loaded.hasValue() ? this.loaded.value() : null));
-  protected readonly state = computed(() => printState(this.loaded));
+  protected readonly loaded = new PrintLoad<DesignScreen>(() => this.api.screen(this.commissionId()));
+  protected readonly screen = this.loaded.value;
   protected readonly today = new Date();
   protected readonly Math = Math;
   protected readonly swatch = swatchOf;

@@ -1,4 +1,5 @@
-import { ChangeDetectionStrategy, Component, Resource, input, output } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, input, output, signal, untracked } from '@angular/core';
+import type { Observable, Subscription } from 'rxjs';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -72,8 +73,37 @@ export class PrintBar {
   }
 }
 
-/** A print page's load, as the bar shows it. */
-export function printState(loaded: Resource<unknown>): 'loading' | 'ready' | 'failed' {
-  if (loaded.status() === 'error') return 'failed';
-  return loaded.hasValue() ? 'ready' : 'loading';
+/**
+ * What a print page loads, with the state its bar shows and a way to load it
+ * again. Create it in a field initialiser: it loads at once and again when
+ * what `fetch` reads changes (the commission id), and stops with the page.
+ */
+export class PrintLoad<T> {
+  readonly value = signal<T | null>(null);
+  readonly state = signal<'loading' | 'ready' | 'failed'>('loading');
+  private running?: Subscription;
+
+  constructor(private readonly fetch: () => Observable<T>) {
+    effect(() => {
+      const request = this.fetch();
+      untracked(() => this.start(request));
+    });
+    inject(DestroyRef).onDestroy(() => this.running?.unsubscribe());
+  }
+
+  reload(): void {
+    this.start(untracked(() => this.fetch()));
+  }
+
+  private start(request: Observable<T>): void {
+    this.running?.unsubscribe();
+    this.state.set('loading');
+    this.running = request.subscribe({
+      next: (v) => {
+        this.value.set(v);
+        this.state.set('ready');
+      },
+      error: () => this.state.set('failed'),
+    });
+  }
 }

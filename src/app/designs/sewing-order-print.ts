@@ -1,11 +1,10 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
-import { rxResource } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 
 import { DesignScreen } from './design';
 import { DesignsApi } from './designs-api';
-import { PrintBar, printState } from './print-bar';
+import { PrintBar, PrintLoad } from './print-bar';
 
 /** The piecing sequence of each block kind, then the top, with counts and pressing notes, as a page for paper. */
 @Component({
@@ -19,9 +18,8 @@ export class SewingOrderPrint {
   private readonly api = inject(DesignsApi);
   readonly id = input.required<string>();
   protected readonly commissionId = computed(() => Number(this.id()));
-  protected readonly loaded = rxResource({ params: () => this.commissionId(), stream: ({ params }) => this.api.screen(params) });
-  protected readonly screen = computed<DesignScreen | null>(() => (this.loaded.hasValue() ? this.loaded.value() : null));
-  protected readonly state = computed(() => printState(this.loaded));
+  protected readonly loaded = new PrintLoad<DesignScreen>(() => this.api.screen(this.commissionId()));
+  protected readonly screen = this.loaded.value;
   protected readonly today = new Date();
   protected readonly sections = computed(() => this.screen()?.current?.derived.sewing ?? []);
 

@@ -33,8 +33,7 @@ describe('TemplatesPrint', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     httpMock = TestBed.inject(HttpTestingController);
     page = fixture.nativeElement as HTMLElement;
-    // Not whenStable: the page stays busy until its request is answered, and the test answers it next.
-    fixture.detectChanges();
+    await fixture.whenStable();
   });
 
   afterEach(() => httpMock.verify());
