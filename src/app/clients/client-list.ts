@@ -10,7 +10,6 @@ import {
   signal,
   viewChild,
 } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -21,21 +20,10 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
-import {
-  Subject,
-  catchError,
-  debounceTime,
-  distinctUntilChanged,
-  map,
-  merge,
-  of,
-  share,
-  startWith,
-  switchMap,
-  tap,
-} from 'rxjs';
+import { debounceTime, distinctUntilChanged, map, tap } from 'rxjs';
 
 import { Auth } from '../core/auth';
+import { ServerPage } from '../shared/server-page';
 import { ClientRow, ClientSortField } from './client';
 import { ClientsApi } from './clients-api';
 
@@ -76,7 +64,7 @@ export class ClientList implements AfterViewInit {
   private readonly route = inject(ActivatedRoute);
   private readonly destroyRef = inject(DestroyRef);
   private readonly filterDelay = inject(CLIENT_FILTER_DELAY);
-  private readonly retry = new Subject<void>();
+  private readonly page = new ServerPage<ClientRow>();
 
   protected readonly paginator = viewChild.required(MatPaginator);
   protected readonly sort = viewChild.required(MatSort);
@@ -88,10 +76,10 @@ export class ClientList implements AfterViewInit {
     this.isOwner() ? ['name', 'email', 'phone', 'createdAt'] : ['name'],
   );
 
-  protected readonly rows = signal<ClientRow[]>([]);
-  protected readonly total = signal(0);
-  protected readonly loading = signal(true);
-  protected readonly failed = signal(false);
+  protected readonly rows = this.page.rows;
+  protected readonly total = this.page.total;
+  protected readonly loading = this.page.loading;
+  protected readonly failed = this.page.failed;
   /** The filter text of the last request sent (not what is being typed). */
   protected readonly appliedFilter = signal('');
 
@@ -111,51 +99,20 @@ export class ClientList implements AfterViewInit {
   });
 
   ngAfterViewInit(): void {
-    const sort = this.sort();
-    const paginator = this.paginator();
-
     const filterChange = this.filter.valueChanges.pipe(
       debounceTime(this.filterDelay),
       map((text) => text.trim()),
       distinctUntilChanged(),
       tap((text) => this.appliedFilter.set(text)),
-      share(),
     );
-
-    // A new order or a new filter starts again from the first page.
-    merge(sort.sortChange, filterChange)
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe(() => (paginator.pageIndex = 0));
-
-    merge(sort.sortChange, filterChange, paginator.page, this.retry)
-      .pipe(
-        startWith(null),
-        switchMap(() => {
-          this.loading.set(true);
-          this.failed.set(false);
-          const active = sortFields.find((field) => field === sort.active) ?? 'name';
-          return this.api
-            .list({
-              page: paginator.pageIndex,
-              pageSize: paginator.pageSize,
-              sort: active,
-              dir: sort.direction === 'desc' ? 'desc' : 'asc',
-              q: this.appliedFilter(),
-            })
-            .pipe(catchError(() => of(null)));
-        }),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe((page) => {
-        this.loading.set(false);
-        if (page === null) {
-          this.failed.set(true);
-          this.rows.set([]);
-          return;
-        }
-        this.rows.set(page.items);
-        this.total.set(page.total);
-      });
+    this.page.connect(
+      this.sort(),
+      this.paginator(),
+      filterChange,
+      ({ page, pageSize, sortBy, dir }) =>
+        this.api.list({ page, pageSize, sort: sortFields.find((field) => field === sortBy) ?? 'name', dir, q: this.appliedFilter() }),
+      this.destroyRef,
+    );
   }
 
   /** A click anywhere on an owner's row opens the record; the name link is the keyboard way in. */
@@ -176,6 +133,6 @@ export class ClientList implements AfterViewInit {
   }
 
   protected loadAgain(): void {
-    this.retry.next();
+    this.page.reload();
   }
 }

@@ -9,7 +9,6 @@ import {
   signal,
   viewChild,
 } from '@angular/core';
-import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -22,21 +21,10 @@ import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { Router, RouterLink } from '@angular/router';
 import { ALL_STAGES, COMMISSION_KIND, STAGE_LABELS, Stage } from '@keepstitch/shared';
-import {
-  Subject,
-  catchError,
-  debounceTime,
-  distinctUntilChanged,
-  map,
-  merge,
-  of,
-  share,
-  startWith,
-  switchMap,
-  tap,
-} from 'rxjs';
+import { debounceTime, distinctUntilChanged, map, merge } from 'rxjs';
 
 import { Auth } from '../core/auth';
+import { ServerPage } from '../shared/server-page';
 import { Commission, CommissionSortField, daysLeftText, showDate } from './commission';
 import { CommissionsApi } from './commissions-api';
 
@@ -73,7 +61,7 @@ export class CommissionList implements AfterViewInit {
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
   private readonly filterDelay = inject(COMMISSION_FILTER_DELAY);
-  private readonly retry = new Subject<void>();
+  private readonly page = new ServerPage<Commission>();
 
   protected readonly paginator = viewChild.required(MatPaginator);
   protected readonly sort = viewChild.required(MatSort);
@@ -91,10 +79,10 @@ export class CommissionList implements AfterViewInit {
   protected readonly dueWithin = new FormControl<number | null>(null);
 
   protected readonly isOwner = computed(() => this.auth.role() === 'owner');
-  protected readonly rows = signal<Commission[]>([]);
-  protected readonly total = signal(0);
-  protected readonly loading = signal(true);
-  protected readonly failed = signal(false);
+  protected readonly rows = this.page.rows;
+  protected readonly total = this.page.total;
+  protected readonly loading = this.page.loading;
+  protected readonly failed = this.page.failed;
   protected readonly filtered = signal(false);
 
   protected readonly nothingYet = computed(
@@ -113,55 +101,24 @@ export class CommissionList implements AfterViewInit {
   });
 
   ngAfterViewInit(): void {
-    const sort = this.sort();
-    const paginator = this.paginator();
-
     const filterChange = merge(
       this.filter.valueChanges.pipe(debounceTime(this.filterDelay), map((t) => t.trim()), distinctUntilChanged()),
       this.stages.valueChanges,
       this.dueWithin.valueChanges.pipe(debounceTime(this.filterDelay), distinctUntilChanged()),
-    ).pipe(share());
-
-    merge(sort.sortChange, filterChange)
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe(() => (paginator.pageIndex = 0));
-
-    merge(sort.sortChange, filterChange, paginator.page, this.retry)
-      .pipe(
-        startWith(null),
-        tap(() => {
-          this.loading.set(true);
-          this.failed.set(false);
-        }),
-        switchMap(() => {
-          const q = this.filter.value.trim();
-          const due = this.dueWithin.value;
-          const dueWithinDays = due !== null && Number.isInteger(due) && due >= 0 ? due : null;
-          this.filtered.set(q !== '' || this.stages.value.length > 0 || dueWithinDays !== null);
-          return this.api
-            .list({
-              page: paginator.pageIndex,
-              pageSize: paginator.pageSize,
-              sort: sortFields.find((f) => f === sort.active) ?? 'deadline',
-              dir: sort.direction === 'desc' ? 'desc' : 'asc',
-              stages: this.stages.value,
-              q,
-              dueWithinDays,
-            })
-            .pipe(catchError(() => of(null)));
-        }),
-        takeUntilDestroyed(this.destroyRef),
-      )
-      .subscribe((page) => {
-        this.loading.set(false);
-        if (page === null) {
-          this.failed.set(true);
-          this.rows.set([]);
-          return;
-        }
-        this.rows.set(page.items);
-        this.total.set(page.total);
-      });
+    );
+    this.page.connect(
+      this.sort(),
+      this.paginator(),
+      filterChange,
+      ({ page, pageSize, sortBy, dir }) => {
+        const q = this.filter.value.trim();
+        const due = this.dueWithin.value;
+        const dueWithinDays = due !== null && Number.isInteger(due) && due >= 0 ? due : null;
+        this.filtered.set(q !== '' || this.stages.value.length > 0 || dueWithinDays !== null);
+        return this.api.list({ page, pageSize, sort: sortFields.find((f) => f === sortBy) ?? 'deadline', dir, stages: this.stages.value, q, dueWithinDays });
+      },
+      this.destroyRef,
+    );
   }
 
   protected openFromRow(row: Commission, event: MouseEvent): void {
@@ -180,6 +137,6 @@ export class CommissionList implements AfterViewInit {
   }
 
   protected loadAgain(): void {
-    this.retry.next();
+    this.page.reload();
   }
 }
