@@ -34,8 +34,13 @@ export async function signIn(page: Page, email: string, password: string): Promi
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
 }
 
+/** A picture of the page once its transitions have ended (a field's error fades in), so it shows what a person sees. */
 export async function screenshot(page: Page, name: string): Promise<void> {
   mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  // Endless animations (progress bars, spinners) never finish: only those with an end are awaited.
+  await page.evaluate(() =>
+    Promise.all(document.getAnimations().filter((a) => Number.isFinite(a.effect?.getComputedTiming().endTime ?? Infinity)).map((a) => a.finished.catch(() => undefined))),
+  );
   await page.screenshot({ path: path.join(SCREENSHOT_DIR, `${name}.png`), fullPage: true });
 }
 
