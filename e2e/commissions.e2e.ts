@@ -43,6 +43,9 @@ describe('commissions and garment intake, end to end', () => {
     await signIn(page, DEMO_ACCOUNTS.clientA.email, DEMO_ACCOUNTS.clientA.password);
     await page.waitForURL(/\/portal$/);
     await page.getByRole('link', { name: 'Work-shirt memory quilt' }).click();
+    // The quote and its payments load after the page and push the garments down: let them arrive first,
+    // or the click can land where the button was a moment before.
+    await page.getByRole('heading', { name: 'Payments' }).waitFor();
     await page.getByRole('button', { name: 'Add a garment' }).click();
     await page.getByLabel('What it is').fill('Tartan wool scarf');
     await page.getByLabel('Whose it was').fill('Edmund');
