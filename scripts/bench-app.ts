@@ -45,7 +45,33 @@ function sizes(browserDir: string) {
   const gz = (f: string) => gzipSync(readFileSync(path.join(browserDir, f)), { level: 9 }).length;
   const initialBytes = [...initial].reduce((s, f) => s + gz(f), 0);
   const lazy = files.filter((f) => !initial.has(f));
-  return { initialBytes, initialFiles: initial.size, lazyCount: lazy.length, lazyBytes: lazy.reduce((s, f) => s + gz(f), 0) };
+  return {
+    initialBytes,
+    initialFiles: initial.size,
+    lazyCount: lazy.length,
+    lazyBytes: lazy.reduce((s, f) => s + gz(f), 0),
+    initialByPackage: byPackage(path.join(browserDir, '..', 'stats.json'), initial),
+  };
+}
+
+/**
+ * Minified bytes in the initial files by where they come from (a package, or
+ * the app's own code), from the metafile `--stats-json` writes. Gzip cannot be
+ * shared out among sources, so these are before compression.
+ */
+function byPackage(statsFile: string, initial: Set<string>): Map<string, number> {
+  const stats = JSON.parse(readFileSync(statsFile, 'utf8')) as { outputs: Record<string, { inputs: Record<string, { bytesInOutput: number }> }> };
+  const found = new Map<string, number>();
+  for (const [output, { inputs }] of Object.entries(stats.outputs)) {
+    if (!initial.has(output.replace(/^browser\//, ''))) continue;
+    for (const [input, { bytesInOutput }] of Object.entries(inputs)) {
+      const parts = input.split('node_modules/');
+      const inPackage = parts.length > 1 ? parts[parts.length - 1]!.split('/') : null;
+      const from = inPackage ? inPackage.slice(0, inPackage[0]!.startsWith('@') ? 2 : 1).join('/') : "the app's own code";
+      found.set(from, (found.get(from) ?? 0) + bytesInOutput);
+    }
+  }
+  return found;
 }
 
 const FLOORS = {
@@ -90,13 +116,13 @@ function buildFloor(kind: keyof typeof FLOORS): string {
     cli: { analytics: false },
     projects: { floor: { projectType: 'application', root: '', sourceRoot: 'src', architect: { build: { builder: '@angular/build:application', options: { outputPath: 'dist/floor', browser: 'src/main.ts', index: 'src/index.html', tsConfig: 'tsconfig.json', styles: ['src/styles.scss'], optimization: { scripts: true, styles: { minify: true, inlineCritical: false }, fonts: false } } } } } },
   }));
-  execFileSync(path.join(ROOT, 'node_modules', '.bin', 'ng'), ['build', '--progress=false'], { cwd: dir, stdio: 'pipe', env: { ...process.env, NG_CLI_ANALYTICS: 'false' } });
+  execFileSync(path.join(ROOT, 'node_modules', '.bin', 'ng'), ['build', '--progress=false', '--stats-json'], { cwd: dir, stdio: 'pipe', env: { ...process.env, NG_CLI_ANALYTICS: 'false' } });
   return dir;
 }
 
 async function main(): Promise<void> {
   // Always a fresh production build: sizes of an older one would say nothing about this tree.
-  execFileSync(path.join(ROOT, 'node_modules', '.bin', 'ng'), ['build', '--configuration', 'production', '--progress=false'], { cwd: ROOT, stdio: 'inherit' });
+  execFileSync(path.join(ROOT, 'node_modules', '.bin', 'ng'), ['build', '--configuration', 'production', '--progress=false', '--stats-json'], { cwd: ROOT, stdio: 'inherit' });
   const app = sizes(path.join(ROOT, 'dist', 'keepstitch', 'browser'));
   const floorSizes = (kind: keyof typeof FLOORS) => {
     const dir = buildFloor(kind);
@@ -163,6 +189,12 @@ async function main(): Promise<void> {
   console.log(`\n${new Date().toISOString()}, ${os.cpus().length} cores, Node ${process.version}`);
   console.log(`initial JS (gzip): app ${kb(app.initialBytes)} in ${app.initialFiles} files; empty Material app ${kb(floor.initialBytes)}; ratio ${ratio.toFixed(2)} ${ratio <= 1.5 ? 'PASS (at most 1.5x)' : 'OVER 1.5x'}`);
   console.log(`  for comparison: the empty Material app with the router and HttpClient ${kb(routed.initialBytes)}; ratio ${(app.initialBytes / routed.initialBytes).toFixed(2)}`);
+  console.log('  initial JS by where it comes from (minified, before gzip): app / with router and HttpClient / empty');
+  const sources = [...app.initialByPackage.entries()].sort((x, y) => y[1] - x[1]).map(([from]) => from);
+  for (const from of [...sources, ...[...routed.initialByPackage.keys(), ...floor.initialByPackage.keys()].filter((f) => !app.initialByPackage.has(f))].filter((f, i, all) => all.indexOf(f) === i)) {
+    const cell = (m: Map<string, number>) => kb(m.get(from) ?? 0).padStart(9);
+    console.log(`    ${from.padEnd(28)} ${cell(app.initialByPackage)} ${cell(routed.initialByPackage)} ${cell(floor.initialByPackage)}`);
+  }
   console.log(`lazy chunks: ${app.lazyCount}, ${kb(app.lazyBytes)} gzip in all`);
   console.log(`first contentful paint of the sign-in page: median ${median(fcp).toFixed(0)} ms (${fcp.map((x) => x.toFixed(0)).join(', ')})`);
   console.log(`sign-in form shown, from navigation: median ${median(formShown).toFixed(0)} ms (${formShown.map((x) => x.toFixed(0)).join(', ')})`);

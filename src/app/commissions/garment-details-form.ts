@@ -98,7 +98,6 @@ export class GarmentDetailsForm implements OnInit {
     return value === null || value === undefined;
   }
 
-
   protected saveGarment(): void {
     this.error.set(null);
     if (this.form.invalid) {

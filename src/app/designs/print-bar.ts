@@ -5,6 +5,9 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 
+/** Where a print page's loading stands. */
+export type PrintState = 'loading' | 'ready' | 'failed';
+
 /**
  * The strip above a page made for paper: back, Print, the page's PDF links
  * (projected), then while it loads a progress bar, and if it could not be
@@ -65,7 +68,7 @@ export class PrintBar {
   readonly backLabel = input('Back to the design');
   /** What the page is, in a sentence: "cut list", "care card". */
   readonly what = input.required<string>();
-  readonly state = input.required<'loading' | 'ready' | 'failed'>();
+  readonly state = input.required<PrintState>();
   readonly retry = output<void>();
 
   protected print(): void {
@@ -80,7 +83,7 @@ export class PrintBar {
  */
 export class PrintLoad<T> {
   readonly value = signal<T | null>(null);
-  readonly state = signal<'loading' | 'ready' | 'failed'>('loading');
+  readonly state = signal<PrintState>('loading');
   private running?: Subscription;
 
   constructor(private readonly fetch: () => Observable<T>) {
