@@ -48,6 +48,30 @@ describe('clients, end to end', () => {
     await page.context().close();
   });
 
+  it('says when the list could not be loaded, and loads it on Try again', async () => {
+    const { page, problems } = await openPage(browser);
+    await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    await page.waitForURL(/\/commissions/);
+    // The server is unwell for the first request of the list, then well again.
+    const listUrl = /\/api\/clients\?/;
+    await page.route(listUrl, (route) =>
+      route.fulfill({ status: 503, contentType: 'application/json', body: JSON.stringify({ error: { code: 'unavailable', message: 'The database is not answering just now.' } }) }),
+    );
+    await page.getByRole('link', { name: 'Clients' }).click();
+    const alert = page.getByRole('alert').filter({ hasText: 'The clients could not be loaded.' });
+    await alert.waitFor();
+    await screenshot(page, 'clients-list-failed');
+    expect(await page.getByTestId('client-row').count()).toBe(0);
+
+    await page.unroute(listUrl);
+    await alert.getByRole('button', { name: 'Try again' }).click();
+    await page.getByTestId('client-row').first().waitFor();
+    expect(await alert.count()).toBe(0);
+    // The refused request is the only problem the browser reported.
+    expect(problems.filter((p) => !/status of 503/.test(p))).toEqual([]);
+    await page.context().close();
+  });
+
   it('shows a signed-in client only their own record', async () => {
     const { page, problems } = await openPage(browser);
     await signIn(page, DEMO_ACCOUNTS.clientA.email, DEMO_ACCOUNTS.clientA.password);

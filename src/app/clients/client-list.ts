@@ -16,13 +16,13 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { debounceTime, distinctUntilChanged, map, tap } from 'rxjs';
 
 import { Auth } from '../core/auth';
+import { LoadStatus } from '../shared/load-status';
 import { ServerPage } from '../shared/server-page';
 import { ClientRow, ClientSortField } from './client';
 import { ClientsApi } from './clients-api';
@@ -47,11 +47,11 @@ export const CLIENT_FILTER_DELAY = new InjectionToken<number>('CLIENT_FILTER_DEL
     MatTableModule,
     MatSortModule,
     MatPaginatorModule,
-    MatProgressBarModule,
     MatFormFieldModule,
     MatInputModule,
     MatButtonModule,
     MatIconModule,
+    LoadStatus,
   ],
   templateUrl: './client-list.html',
   styleUrl: './client-list.scss',

@@ -4,7 +4,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { ALL_STAGES, STAGES, STAGE_LABELS, Stage, WorkStage, stageIndex } from '@keepstitch/shared';
 import { Observable, of } from 'rxjs';
@@ -12,6 +11,7 @@ import { Observable, of } from 'rxjs';
 import { messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
+import { LoadStatus } from '../shared/load-status';
 import { Commission, daysLeftText } from './commission';
 import { CommissionsApi } from './commissions-api';
 import { MoveNoteDialog, MoveNoteDialogData } from './move-note-dialog';
@@ -30,7 +30,7 @@ export function needsNote(from: Stage, to: Stage): boolean {
  */
 @Component({
   selector: 'ks-commission-board',
-  imports: [DragDropModule, RouterLink, MatButtonModule, MatIconModule, MatMenuModule, MatProgressBarModule],
+  imports: [DragDropModule, RouterLink, MatButtonModule, MatIconModule, MatMenuModule, LoadStatus],
   templateUrl: './commission-board.html',
   styleUrl: './commission-board.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

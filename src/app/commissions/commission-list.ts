@@ -15,7 +15,6 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatPaginator, MatPaginatorModule } from '@angular/material/paginator';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSort, MatSortModule } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
@@ -24,6 +23,7 @@ import { ALL_STAGES, COMMISSION_KIND, STAGE_LABELS, Stage } from '@keepstitch/sh
 import { debounceTime, distinctUntilChanged, map, merge } from 'rxjs';
 
 import { Auth } from '../core/auth';
+import { LoadStatus } from '../shared/load-status';
 import { ServerPage } from '../shared/server-page';
 import { Commission, CommissionSortField, daysLeftText, showDate } from './commission';
 import { CommissionsApi } from './commissions-api';
@@ -44,12 +44,12 @@ export const COMMISSION_FILTER_DELAY = new InjectionToken<number>('COMMISSION_FI
     MatTableModule,
     MatSortModule,
     MatPaginatorModule,
-    MatProgressBarModule,
     MatFormFieldModule,
     MatInputModule,
     MatSelectModule,
     MatButtonModule,
     MatIconModule,
+    LoadStatus,
   ],
   templateUrl: './commission-list.html',
   styleUrl: './commission-list.scss',

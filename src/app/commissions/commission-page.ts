@@ -5,7 +5,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
@@ -26,6 +25,7 @@ import { Notices } from '../core/notices';
 import { QuoteSection } from '../quotes/quote-section';
 import { CautionCards } from '../shared/caution-cards';
 import { showMillimetres } from '../shared/length-text';
+import { LoadStatus } from '../shared/load-status';
 import { Photo } from '../shared/photo';
 import { PhotoGallery } from '../shared/photo-gallery';
 import { PhotoUpload } from '../shared/photo-upload';
@@ -49,12 +49,12 @@ type LoadState = 'loading' | 'ready' | 'missing' | 'failed';
     MatSelectModule,
     MatButtonModule,
     MatIconModule,
-    MatProgressBarModule,
     CautionCards,
     PhotoGallery,
     PhotoUpload,
     GarmentIntake,
     QuoteSection,
+    LoadStatus,
   ],
   templateUrl: './commission-page.html',
   styleUrl: './commission-page.scss',

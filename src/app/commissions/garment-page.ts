@@ -6,7 +6,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import {
@@ -25,6 +24,7 @@ import {
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
+import { LoadStatus } from '../shared/load-status';
 import { Photo } from '../shared/photo';
 import { PhotoGallery } from '../shared/photo-gallery';
 import { PhotoUpload } from '../shared/photo-upload';
@@ -50,11 +50,11 @@ const RECORDABLE: readonly RecordableKind[] = ['received', 'washed', 'stored', '
     MatSelectModule,
     MatButtonModule,
     MatIconModule,
-    MatProgressBarModule,
     PanelsEditor,
     GarmentDetailsForm,
     PhotoGallery,
     PhotoUpload,
+    LoadStatus,
   ],
   templateUrl: './garment-page.html',
   styleUrl: './garment-page.scss',

@@ -6,7 +6,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { DesignBody, DesignDerivation, DesignPlanSummary, DomainError, Length, deriveDesign, formatFabricLength, formatLength, keptFeaturePieces, keptFeaturePlaces } from '@keepstitch/shared';
 import { Subject, debounceTime, switchMap, catchError, of } from 'rxjs';
@@ -14,6 +13,7 @@ import { Subject, debounceTime, switchMap, catchError, of } from 'rxjs';
 import { messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
+import { LoadStatus } from '../shared/load-status';
 import { DesignScreen, DesignVersion, Fabric, starterDesign } from './design';
 import { DesignForm } from './design-form';
 import { DesignVersionView } from './design-version-view';
@@ -26,7 +26,7 @@ type LoadState = 'loading' | 'ready' | 'missing' | 'failed';
 /** A commission's design: the form, the live drawing, who gives which fabric, and what the plan says. */
 @Component({
   selector: 'ks-design-page',
-  imports: [DatePipe, PercentPipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, MatProgressBarModule, DesignForm, QuiltDrawing, FabricBoard, DesignVersionView],
+  imports: [DatePipe, PercentPipe, ReactiveFormsModule, RouterLink, MatButtonModule, MatIconModule, MatFormFieldModule, MatInputModule, DesignForm, QuiltDrawing, FabricBoard, DesignVersionView, LoadStatus],
   templateUrl: './design-page.html',
   styleUrl: './design-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -8,6 +8,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { showDateTime } from '../quotes/quote';
+import { LoadStatus } from '../shared/load-status';
 import { MailApi, OutboxMail, SentMail } from './mail-api';
 
 type SentState = 'loading' | 'ready' | 'not-here' | 'failed';
@@ -15,7 +16,7 @@ type SentState = 'loading' | 'ready' | 'not-here' | 'failed';
 /** Mail not delivered yet (with a retry), and in development the mails the local mail server caught. */
 @Component({
   selector: 'ks-mail-page',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatExpansionModule],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatExpansionModule, LoadStatus],
   templateUrl: './mail-page.html',
   styleUrl: './mail-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

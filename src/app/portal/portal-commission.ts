@@ -4,7 +4,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { FIBRE, Fibre, GARMENT_STATUS_LABELS, GARMENT_TEXT_LIMITS, STAGES, STAGE_LABELS } from '@keepstitch/shared';
@@ -15,6 +14,7 @@ import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { ClientQuote } from '../quotes/client-quote';
 import { CautionCards } from '../shared/caution-cards';
+import { LoadStatus } from '../shared/load-status';
 import { PhotoGallery } from '../shared/photo-gallery';
 import { PhotoUpload } from '../shared/photo-upload';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
@@ -30,11 +30,11 @@ import { applyServerFieldErrors } from '../shared/server-field-errors';
     MatSelectModule,
     MatButtonModule,
     MatIconModule,
-    MatProgressBarModule,
     CautionCards,
     PhotoGallery,
     PhotoUpload,
     ClientQuote,
+    LoadStatus,
   ],
   templateUrl: './portal-commission.html',
   styleUrl: './portal-commission.scss',

@@ -1,32 +1,22 @@
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { COMMISSION_KIND, STAGE_LABELS } from '@keepstitch/shared';
 
 import { Commission, showDate } from '../commissions/commission';
 import { CommissionsApi } from '../commissions/commissions-api';
+import { LoadStatus } from '../shared/load-status';
 
 /** A client's own commissions. The server sends only theirs. */
 @Component({
   selector: 'ks-portal-list',
-  imports: [RouterLink, MatCardModule, MatButtonModule, MatProgressBarModule],
+  imports: [RouterLink, MatCardModule, MatButtonModule, LoadStatus],
   template: `
     <section aria-labelledby="portal-heading" class="portal-list">
       <h1 id="portal-heading">My commissions</h1>
-      <div class="loading-slot" aria-live="polite">
-        @if (loading()) {
-          <mat-progress-bar mode="indeterminate" aria-label="Loading your commissions" />
-          <span class="ks-visually-hidden">Loading your commissions…</span>
-        }
-      </div>
-      @if (failed()) {
-        <div class="message" role="alert">
-          <p>Your commissions could not be loaded.</p>
-          <button mat-stroked-button type="button" (click)="load()">Try again</button>
-        </div>
-      } @else if (!loading() && items().length === 0) {
+      <ks-load-status what="your commissions" [loading]="loading()" [failed]="failed()" (retry)="load()" />
+      @if (!failed() && !loading() && items().length === 0) {
         <div class="message" role="status">
           <p>You have no commissions yet. Once the studio opens one for you, it appears here.</p>
         </div>
@@ -53,7 +43,6 @@ import { CommissionsApi } from '../commissions/commissions-api';
   `,
   styles: `
     h1 { font: var(--mat-sys-headline-medium); margin: 0; }
-    .loading-slot { height: 4px; margin: 0.5rem 0 1rem; }
     .cards { list-style: none; padding: 0; margin: 0; display: grid; gap: 1rem; grid-template-columns: repeat(auto-fill, minmax(18rem, 1fr)); }
     .message { padding: 1rem; border-radius: var(--mat-sys-corner-medium); background: var(--mat-sys-surface-container-low); }
   `,

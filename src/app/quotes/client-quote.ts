@@ -27,6 +27,7 @@ import { messageFor } from '../core/api-error';
 import { ExternalNavigation } from '../core/external-navigation';
 import { Notices } from '../core/notices';
 import { CautionCards, CautionView } from '../shared/caution-cards';
+import { LoadStatus } from '../shared/load-status';
 import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, Quote, showDateTime } from './quote';
 import { QuoteSummary } from './quote-summary';
 import { QuotesApi } from './quotes-api';
@@ -52,6 +53,7 @@ type PaymentNotice = 'confirming' | 'confirmed' | 'slow' | 'cancelled' | null;
     MatProgressBarModule,
     CautionCards,
     QuoteSummary,
+    LoadStatus,
   ],
   templateUrl: './client-quote.html',
   styleUrl: './client-quote.scss',

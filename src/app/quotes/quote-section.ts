@@ -2,7 +2,6 @@ import { ChangeDetectionStrategy, Component, computed, effect, inject, input, ou
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Stage, formatPounds } from '@keepstitch/shared';
 import { filter, forkJoin, switchMap } from 'rxjs';
 
@@ -10,6 +9,7 @@ import { showDate } from '../commissions/commission';
 import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { SettingsApi } from '../settings/settings-api';
+import { LoadStatus } from '../shared/load-status';
 import { ConfirmDialog, ConfirmDialogData } from './confirm-dialog';
 import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft, showDateTime } from './quote';
 import { QuoteEditor } from './quote-editor';
@@ -23,7 +23,7 @@ import { QuotesApi } from './quotes-api';
  */
 @Component({
   selector: 'ks-quote-section',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, QuoteEditor, QuoteSummary],
+  imports: [MatButtonModule, MatIconModule, QuoteEditor, QuoteSummary, LoadStatus],
   templateUrl: './quote-section.html',
   styleUrl: './quote-section.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

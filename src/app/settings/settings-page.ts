@@ -4,7 +4,6 @@ import { AbstractControl, FormControl, FormGroup, ReactiveFormsModule, Validatio
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
@@ -12,6 +11,7 @@ import { formatPounds, parsePounds } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
+import { LoadStatus } from '../shared/load-status';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { SettingsApi } from './settings-api';
 import { BLOCK_KINDS, BLOCK_KIND_LABELS, BlockKind, StudioSettings, StudioSettingsPatch, VAT_RATE_LABELS } from './studio-settings';
@@ -48,7 +48,7 @@ function minutesControl(): FormControl<number | null> {
     MatSlideToggleModule,
     MatRadioModule,
     MatButtonModule,
-    MatProgressBarModule,
+    LoadStatus,
   ],
   templateUrl: './settings-page.html',
   styleUrl: './settings-page.scss',

@@ -6,7 +6,6 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { FIBRE, Fibre, Length, formatFabricLength } from '@keepstitch/shared';
@@ -15,6 +14,7 @@ import { apiErrorOf, messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
 import { lengthText, readingText, showMillimetres } from '../shared/length-text';
+import { LoadStatus } from '../shared/load-status';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { DeleteStockDialog, DeleteStockDialogData } from './delete-stock-dialog';
 import { StockApi } from './stock-api';
@@ -45,7 +45,7 @@ function orNull(value: string): string | null {
     MatSelectModule,
     MatButtonModule,
     MatIconModule,
-    MatProgressBarModule,
+    LoadStatus,
   ],
   templateUrl: './stock-list.html',
   styleUrl: './stock-list.scss',

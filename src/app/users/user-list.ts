@@ -2,7 +2,6 @@ import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@a
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatTableModule } from '@angular/material/table';
 import { Router } from '@angular/router';
 import { catchError, forkJoin, map, of } from 'rxjs';
@@ -10,13 +9,14 @@ import { catchError, forkJoin, map, of } from 'rxjs';
 import { Notices } from '../core/notices';
 import { User, roleLabels } from '../core/user';
 import { ClientsApi } from '../clients/clients-api';
+import { LoadStatus } from '../shared/load-status';
 import { ResetPasswordDialog, ResetPasswordDialogData } from './reset-password-dialog';
 import { UsersApi } from './users-api';
 
 /** Everyone who can sign in to the studio's Keepstitch. */
 @Component({
   selector: 'ks-user-list',
-  imports: [MatTableModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [MatTableModule, MatButtonModule, MatIconModule, LoadStatus],
   templateUrl: './user-list.html',
   styleUrl: './user-list.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
