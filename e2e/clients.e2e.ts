@@ -72,6 +72,46 @@ describe('clients, end to end', () => {
     await page.context().close();
   });
 
+  it('asks before leaving a form with typed work, and keeps it when the owner stays', async () => {
+    const { page, problems } = await openPage(browser);
+    await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    await page.waitForURL(/\/commissions/);
+    await page.goto('/clients/new');
+    await page.getByLabel('Name').fill('Perpetua Ashgrove');
+    await page.getByRole('link', { name: 'Commissions' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Leave without saving?' });
+    await dialog.waitFor();
+    await screenshot(page, 'leave-without-saving');
+    await dialog.getByRole('button', { name: 'Stay on this page' }).click();
+    await dialog.waitFor({ state: 'detached' });
+    expect(page.url()).toMatch(/\/clients\/new$/);
+    expect(await page.getByLabel('Name').inputValue()).toBe('Perpetua Ashgrove');
+
+    await page.getByRole('link', { name: 'Commissions' }).click();
+    await dialog.getByRole('button', { name: 'Leave without saving' }).click();
+    await page.waitForURL(/\/commissions$/);
+
+    // Signing out asks before the session ends, once, and staying keeps the owner signed in.
+    await page.goto('/clients/new');
+    await page.getByLabel('Name').fill('Perpetua Ashgrove');
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await dialog.getByRole('button', { name: 'Stay on this page' }).click();
+    await dialog.waitFor({ state: 'detached' });
+    await page.getByRole('button', { name: 'Save' }).click();
+    await page.waitForURL(/\/clients$/);
+    await page.getByLabel('Filter clients').fill('Ashgrove');
+    await page.getByTestId('client-row').filter({ hasText: 'Perpetua Ashgrove' }).waitFor();
+
+    await page.goto('/clients/new');
+    await page.getByLabel('Name').fill('Someone not kept');
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await dialog.getByRole('button', { name: 'Leave without saving' }).click();
+    await page.waitForURL(/\/sign-in/);
+    expect(await dialog.count()).toBe(0);
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
+
   it('shows a signed-in client only their own record', async () => {
     const { page, problems } = await openPage(browser);
     await signIn(page, DEMO_ACCOUNTS.clientA.email, DEMO_ACCOUNTS.clientA.password);

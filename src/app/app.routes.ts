@@ -50,7 +50,7 @@ export const pages: Routes = [
     path: 'settings',
     title: 'Settings',
     canActivate: [roleGuard('owner')],
-    loadComponent: () => import('./settings/settings-page').then((m) => m.SettingsPage),
+    loadChildren: () => import('./settings/settings.routes').then((m) => m.settingsRoutes),
   },
   {
     path: 'mail',
@@ -62,7 +62,7 @@ export const pages: Routes = [
     path: 'password',
     title: 'Change password',
     canActivate: [roleGuard('owner', 'workroom', 'client')],
-    loadComponent: () => import('./account/change-password').then((m) => m.ChangePassword),
+    loadChildren: () => import('./account/account.routes').then((m) => m.accountRoutes),
   },
   {
     path: '**',

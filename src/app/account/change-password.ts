@@ -11,6 +11,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { PASSWORD_LENGTH } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { AccountApi } from './account-api';
 
@@ -57,6 +58,7 @@ export class ChangePassword {
   protected readonly done = signal(false);
 
   constructor() {
+    keepUnsavedWork(() => this.form.dirty);
     // Typing a new password again re-checks the repeat against it.
     this.form.controls.newPassword.valueChanges.subscribe(() => this.form.controls.repeatPassword.updateValueAndValidity({ emitEvent: false }));
   }

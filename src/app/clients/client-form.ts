@@ -22,6 +22,7 @@ import { filter, switchMap, tap } from 'rxjs';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { Client, ClientDraft } from './client';
 import { ClientsApi } from './clients-api';
@@ -104,6 +105,10 @@ export class ClientForm implements OnInit {
   protected readonly saving = signal(false);
   protected readonly deleting = signal(false);
   protected readonly formError = signal<string | null>(null);
+
+  constructor() {
+    keepUnsavedWork(() => this.form.dirty);
+  }
 
   ngOnInit(): void {
     if (!this.editing()) {

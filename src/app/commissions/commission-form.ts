@@ -16,6 +16,7 @@ import { ClientRow } from '../clients/client';
 import { ClientsApi } from '../clients/clients-api';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { lengthText, readingText, typedLength, unitForMillimetres } from '../shared/length-text';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { Commission, CommissionChanges, CommissionDraft, orNull } from './commission';
@@ -98,6 +99,7 @@ export class CommissionForm {
   private prefilled: ReturnType<typeof sentValues> | null = null;
 
   constructor() {
+    keepUnsavedWork(() => this.form.dirty);
     this.form.controls.unit.valueChanges.subscribe(() => {
       this.form.controls.width.updateValueAndValidity();
       this.form.controls.length.updateValueAndValidity();
@@ -189,6 +191,7 @@ export class CommissionForm {
     this.api.create(draft).subscribe({
       next: (commission) => {
         this.notices.info(`Commission “${commission.title}” opened.`);
+        this.form.markAsPristine();
         void this.router.navigate(['/commissions', commission.id]);
       },
       error: (error: unknown) => this.showRefusal(error),
@@ -215,6 +218,7 @@ export class CommissionForm {
     this.api.update(original.id, changes).subscribe({
       next: (commission) => {
         this.notices.info(`Changes to “${commission.title}” saved.`);
+        this.form.markAsPristine();
         void this.router.navigate(['/commissions', commission.id]);
       },
       error: (error: unknown) => this.showRefusal(error),

@@ -22,6 +22,7 @@ import {
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { QuoteSection } from '../quotes/quote-section';
 import { CautionCards } from '../shared/caution-cards';
 import { showMillimetres } from '../shared/length-text';
@@ -119,6 +120,7 @@ export class CommissionPage {
   );
 
   constructor() {
+    keepUnsavedWork(() => this.stageForm.dirty || this.hoursForm.dirty);
     effect(() => {
       const id = this.commissionId();
       untracked(() => this.load(id));

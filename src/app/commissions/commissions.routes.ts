@@ -1,6 +1,7 @@
 import { Routes } from '@angular/router';
 
 import { roleGuard } from '../core/role-guard';
+import { unsavedWorkGuard } from '../core/unsaved-work';
 import { CommissionBoard } from './commission-board';
 import { CommissionForm } from './commission-form';
 import { CommissionList } from './commission-list';
@@ -10,8 +11,8 @@ import { GarmentPage } from './garment-page';
 export const commissionsRoutes: Routes = [
   { path: '', title: 'Commissions', component: CommissionList },
   { path: 'board', title: 'Commissions board', component: CommissionBoard },
-  { path: 'new', title: 'New commission', canActivate: [roleGuard('owner')], component: CommissionForm },
-  { path: ':id', title: 'Commission', component: CommissionPage },
-  { path: ':id/edit', title: 'Edit commission', canActivate: [roleGuard('owner')], component: CommissionForm },
-  { path: ':id/garments/:garmentId', title: 'Garment', component: GarmentPage },
+  { path: 'new', title: 'New commission', canActivate: [roleGuard('owner')], canDeactivate: [unsavedWorkGuard], component: CommissionForm },
+  { path: ':id', title: 'Commission', canDeactivate: [unsavedWorkGuard], component: CommissionPage },
+  { path: ':id/edit', title: 'Edit commission', canActivate: [roleGuard('owner')], canDeactivate: [unsavedWorkGuard], component: CommissionForm },
+  { path: ':id/garments/:garmentId', title: 'Garment', canDeactivate: [unsavedWorkGuard], component: GarmentPage },
 ];

@@ -20,6 +20,7 @@ import {
 } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { GarmentDetail, GarmentDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
@@ -55,6 +56,10 @@ export class GarmentDetailsForm implements OnInit {
   protected readonly prewashes = PREWASH.options;
   protected readonly colourRuns = COLOUR_RUN.options;
   protected readonly limits = GARMENT_TEXT_LIMITS;
+
+  constructor() {
+    keepUnsavedWork(() => this.form.dirty);
+  }
 
   protected readonly form = new FormGroup({
     description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(GARMENT_TEXT_LIMITS.description)] }),
@@ -128,6 +133,7 @@ export class GarmentDetailsForm implements OnInit {
     this.api.updateGarment(g.id, changes).subscribe({
       next: (garment) => {
         this.saving.set(false);
+        this.form.markAsPristine();
         this.saved.emit(garment);
       },
       error: (error: unknown) => {

@@ -21,6 +21,7 @@ import {
 } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { PhotoUpload } from '../shared/photo-upload';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { GarmentDetail, GarmentDraft, orNull } from './commission';
@@ -90,6 +91,7 @@ export class GarmentIntake {
   protected readonly isKnit = signal(false);
 
   constructor() {
+    keepUnsavedWork(() => !this.saved() && (this.what.dirty || this.care.dirty || this.features.dirty));
     this.care.controls.construction.valueChanges.subscribe((c) => this.isKnit.set(c === 'knit'));
   }
 

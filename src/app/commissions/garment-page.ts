@@ -24,6 +24,7 @@ import {
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { LoadStatus } from '../shared/load-status';
 import { Photo } from '../shared/photo';
 import { PhotoGallery } from '../shared/photo-gallery';
@@ -112,6 +113,7 @@ export class GarmentPage {
   );
 
   constructor() {
+    keepUnsavedWork(() => this.eventForm.dirty);
     effect(() => {
       const id = Number(this.garmentId());
       untracked(() => this.load(id));

@@ -12,6 +12,7 @@ import { map } from 'rxjs';
 import { Auth } from './auth';
 import { provideMaterialDefaults } from './material-defaults';
 import { Notices } from './notices';
+import { LEAVING_UNSAVED, UnsavedWork } from './unsaved-work';
 import { Role, roleLabels } from './user';
 
 interface NavItem {
@@ -60,6 +61,7 @@ export class Shell {
   private readonly auth = inject(Auth);
   private readonly router = inject(Router);
   private readonly notices = inject(Notices);
+  private readonly unsavedWork = inject(UnsavedWork);
   private readonly sidenav = viewChild(MatSidenav);
 
   protected readonly user = this.auth.user;
@@ -97,10 +99,13 @@ export class Shell {
     main.focus();
   }
 
+  /** Asks first if the page holds unsaved work: once signed out, it could not be saved. */
   protected signOut(): void {
-    this.auth.signOut().subscribe({
-      complete: () => void this.router.navigateByUrl('/sign-in'),
-      error: () => void this.router.navigateByUrl('/sign-in'),
+    const leave = this.unsavedWork.any() ? this.unsavedWork.askToLeave() : Promise.resolve(true);
+    void leave.then((yes) => {
+      if (!yes) return;
+      const toSignIn = () => void this.router.navigateByUrl('/sign-in', { state: LEAVING_UNSAVED });
+      this.auth.signOut().subscribe({ complete: toSignIn, error: toSignIn });
     });
   }
 }

@@ -13,6 +13,7 @@ import { Subject, debounceTime, switchMap, catchError, of } from 'rxjs';
 import { messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { LoadStatus } from '../shared/load-status';
 import { DesignScreen, DesignVersion, Fabric, starterDesign } from './design';
 import { DesignForm } from './design-form';
@@ -50,6 +51,8 @@ export class DesignPage {
   protected readonly planning = signal(false);
   protected readonly planError = signal<string | null>(null);
   protected readonly saving = signal(false);
+  /** Changed here since it was loaded or saved. */
+  protected readonly edited = signal(false);
   protected readonly note = new FormControl('', { nonNullable: true });
   /** An earlier version opened for reading. */
   protected readonly viewing = signal<DesignVersion | null>(null);
@@ -89,6 +92,7 @@ export class DesignPage {
   private readonly replan$ = new Subject<DesignBody>();
 
   constructor() {
+    keepUnsavedWork(() => this.edited());
     effect(() => this.load(this.commissionId()));
     this.replan$
       .pipe(
@@ -118,6 +122,7 @@ export class DesignPage {
         this.fabrics.set(s.fabrics);
         this.body.set(s.current?.body ?? starterDesign(s.commission.widthMm, s.commission.lengthMm));
         this.plan.set(s.current?.plan ?? null);
+        this.edited.set(false);
         this.state.set('ready');
         if (!s.current && this.isOwner()) this.replan$.next(this.body()!);
       },
@@ -127,6 +132,7 @@ export class DesignPage {
 
   protected designChanged(b: DesignBody): void {
     this.body.set(b);
+    this.edited.set(true);
     if (this.isOwner() && !this.derivationOf(b).error) this.replan$.next(b);
   }
 
@@ -152,6 +158,7 @@ export class DesignPage {
       next: (v) => {
         this.saving.set(false);
         this.note.reset('');
+        this.edited.set(false);
         this.notices.info(`Saved as version ${v.version}.`);
         this.load();
       },

@@ -1,6 +1,7 @@
 import { Routes } from '@angular/router';
 
 import { roleGuard } from '../core/role-guard';
+import { unsavedWorkGuard } from '../core/unsaved-work';
 import { CareCardPrint } from './care-card-print';
 import { CutListPrint } from './cut-list-print';
 import { DesignPage } from './design-page';
@@ -9,7 +10,7 @@ import { SewingOrderPrint } from './sewing-order-print';
 import { TemplatesPrint } from './templates-print';
 
 export const designsRoutes: Routes = [
-  { path: ':id', title: 'Design', canActivate: [roleGuard('owner', 'workroom')], component: DesignPage },
+  { path: ':id', title: 'Design', canActivate: [roleGuard('owner', 'workroom')], canDeactivate: [unsavedWorkGuard], component: DesignPage },
   { path: ':id/cut-list', title: 'Cut list', canActivate: [roleGuard('owner', 'workroom')], component: CutListPrint },
   { path: ':id/sewing-order', title: 'Sewing order', canActivate: [roleGuard('owner', 'workroom')], component: SewingOrderPrint },
   { path: ':id/templates', title: 'Templates', canActivate: [roleGuard('owner', 'workroom')], component: TemplatesPrint },

@@ -12,6 +12,7 @@ import { CommissionDetail, GarmentDetail, orNull, showDate } from '../commission
 import { CommissionsApi } from '../commissions/commissions-api';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { ClientQuote } from '../quotes/client-quote';
 import { CautionCards } from '../shared/caution-cards';
 import { LoadStatus } from '../shared/load-status';
@@ -83,6 +84,7 @@ export class PortalCommission {
   protected readonly limits = GARMENT_TEXT_LIMITS;
 
   constructor() {
+    keepUnsavedWork(() => this.formOpen() && !this.added() && this.form.dirty);
     effect(() => {
       const id = Number(this.id());
       untracked(() => this.load(id));

@@ -13,7 +13,8 @@ import Decimal from 'decimal.js';
 import { Observable, filter, of, switchMap } from 'rxjs';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
-import { ConfirmDialog, ConfirmDialogData } from './confirm-dialog';
+import { keepUnsavedWork } from '../core/unsaved-work';
+import { ConfirmDialog, ConfirmDialogData } from '../shared/confirm-dialog';
 import { LINE_KINDS, LINE_KIND_LABELS, LineKind, Quote, QuoteDraft, QuoteLine, vatLabel } from './quote';
 import { QuoteTotalsList, TotalsView } from './quote-totals-list';
 import { QuotesApi } from './quotes-api';
@@ -126,6 +127,7 @@ export class QuoteEditor {
   });
 
   constructor() {
+    keepUnsavedWork(() => this.form.dirty);
     this.form.valueChanges.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => this.edits.update((n) => n + 1));
     effect(() => {
       const quote = this.quote();

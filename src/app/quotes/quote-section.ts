@@ -10,7 +10,7 @@ import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { SettingsApi } from '../settings/settings-api';
 import { LoadStatus } from '../shared/load-status';
-import { ConfirmDialog, ConfirmDialogData } from './confirm-dialog';
+import { ConfirmDialog, ConfirmDialogData } from '../shared/confirm-dialog';
 import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft, showDateTime } from './quote';
 import { QuoteEditor } from './quote-editor';
 import { QuoteSummary } from './quote-summary';

@@ -11,6 +11,7 @@ import { formatPounds, parsePounds } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { LoadStatus } from '../shared/load-status';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { SettingsApi } from './settings-api';
@@ -87,6 +88,7 @@ export class SettingsPage {
   protected readonly vatRegistered = toSignal(this.form.controls.vatRegistered.valueChanges, { initialValue: false });
 
   constructor() {
+    keepUnsavedWork(() => this.form.dirty);
     this.load();
   }
 

@@ -14,6 +14,7 @@ import { catchError, map, of, startWith } from 'rxjs';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { ClientsApi } from '../clients/clients-api';
+import { keepUnsavedWork } from '../core/unsaved-work';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { NewUser, UsersApi, minPasswordLength } from './users-api';
 
@@ -71,6 +72,7 @@ export class UserForm {
   protected readonly formError = signal<string | null>(null);
 
   constructor() {
+    keepUnsavedWork(() => this.form.dirty);
     // A client record is asked for (and required) only for a client sign-in.
     this.form.controls.role.valueChanges.subscribe((role) => {
       const clientId = this.form.controls.clientId;
@@ -106,6 +108,7 @@ export class UserForm {
       next: (created) => {
         this.saving.set(false);
         this.notices.info(`${created.name} can now sign in`);
+        this.form.markAsPristine();
         void this.router.navigateByUrl('/users');
       },
       error: (error: unknown) => {
