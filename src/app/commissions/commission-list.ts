@@ -25,7 +25,8 @@ import { debounceTime, distinctUntilChanged, map, merge } from 'rxjs';
 import { Auth } from '../core/auth';
 import { LoadStatus } from '../shared/load-status';
 import { ServerPage } from '../shared/server-page';
-import { Commission, CommissionSortField, daysLeftText, showDate } from './commission';
+import { Commission, CommissionSortField, daysLeftText } from './commission';
+import { showDate } from '../shared/dates';
 import { CommissionsApi } from './commissions-api';
 
 const sortFields: readonly CommissionSortField[] = ['deadline', 'createdAt', 'title', 'stage'];

@@ -242,18 +242,3 @@ export function daysLeftText(row: Pick<Commission, 'deadline' | 'daysLeft' | 'ov
   }
   return `${d} day${d === 1 ? '' : 's'} left`;
 }
-
-/** "2026-12-24" shown as "24 Dec 2026" without going through local time zones. */
-export function showDate(isoDate: string | null | undefined): string {
-  if (!isoDate) return '';
-  const [y, m, d] = isoDate.slice(0, 10).split('-').map(Number);
-  const months = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-  return `${d} ${months[m - 1]} ${y}`;
-}
-
-/** Today's date in the browser's own calendar, as YYYY-MM-DD. */
-export function todayIso(): string {
-  const now = new Date();
-  const pad = (n: number) => String(n).padStart(2, '0');
-  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
-}

@@ -33,7 +33,7 @@ export class UnsavedWork {
 
   /** True to leave. The dialog is fetched only when it is needed, and asked once however many navigations wait. */
   askToLeave(): Promise<boolean> {
-    this.asking ??= Promise.all([import('@angular/material/dialog'), import('../shared/confirm-dialog')])
+    this.asking ??= Promise.all([import('@angular/material/dialog'), import('./confirm-dialog')])
       .then(([{ MatDialog }, { ConfirmDialog }]) =>
         new Promise<boolean>((resolve) => {
           this.injector

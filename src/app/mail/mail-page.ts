@@ -7,7 +7,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 
 import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
-import { showDateTime } from '../quotes/quote';
+import { showDateTime } from '../shared/dates';
 import { LoadStatus } from '../shared/load-status';
 import { MailApi, OutboxMail, SentMail } from './mail-api';
 

@@ -8,7 +8,8 @@ import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import { FIBRE, Fibre, GARMENT_STATUS_LABELS, GARMENT_TEXT_LIMITS, STAGES, STAGE_LABELS } from '@keepstitch/shared';
 
-import { CommissionDetail, GarmentDetail, orNull, showDate } from '../commissions/commission';
+import { CommissionDetail, GarmentDetail, orNull } from '../commissions/commission';
+import { showDate } from '../shared/dates';
 import { CommissionsApi } from '../commissions/commissions-api';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';

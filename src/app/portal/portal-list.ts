@@ -4,7 +4,8 @@ import { MatCardModule } from '@angular/material/card';
 import { RouterLink } from '@angular/router';
 import { COMMISSION_KIND, STAGE_LABELS } from '@keepstitch/shared';
 
-import { Commission, showDate } from '../commissions/commission';
+import { Commission } from '../commissions/commission';
+import { showDate } from '../shared/dates';
 import { CommissionsApi } from '../commissions/commissions-api';
 import { LoadStatus } from '../shared/load-status';
 

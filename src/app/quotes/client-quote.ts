@@ -22,13 +22,13 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { formatPounds } from '@keepstitch/shared';
 import { forkJoin } from 'rxjs';
 
-import { showDate } from '../commissions/commission';
+import { showDate, showDateTime } from '../shared/dates';
 import { messageFor } from '../core/api-error';
 import { ExternalNavigation } from '../core/external-navigation';
 import { Notices } from '../core/notices';
 import { CautionCards, CautionView } from '../shared/caution-cards';
 import { LoadStatus } from '../shared/load-status';
-import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, Quote, showDateTime } from './quote';
+import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, Quote } from './quote';
 import { QuoteSummary } from './quote-summary';
 import { QuotesApi } from './quotes-api';
 

@@ -14,7 +14,7 @@ import { Observable, filter, of, switchMap } from 'rxjs';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { keepUnsavedWork } from '../core/unsaved-work';
-import { ConfirmDialog, ConfirmDialogData } from '../shared/confirm-dialog';
+import { ConfirmDialog, ConfirmDialogData } from '../core/confirm-dialog';
 import { LINE_KINDS, LINE_KIND_LABELS, LineKind, Quote, QuoteDraft, QuoteLine, vatLabel } from './quote';
 import { QuoteTotalsList, TotalsView } from './quote-totals-list';
 import { QuotesApi } from './quotes-api';

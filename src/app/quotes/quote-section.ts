@@ -5,13 +5,13 @@ import { MatIconModule } from '@angular/material/icon';
 import { Stage, formatPounds } from '@keepstitch/shared';
 import { filter, forkJoin, switchMap } from 'rxjs';
 
-import { showDate } from '../commissions/commission';
+import { showDate, showDateTime } from '../shared/dates';
 import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { SettingsApi } from '../settings/settings-api';
 import { LoadStatus } from '../shared/load-status';
-import { ConfirmDialog, ConfirmDialogData } from '../shared/confirm-dialog';
-import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft, showDateTime } from './quote';
+import { ConfirmDialog, ConfirmDialogData } from '../core/confirm-dialog';
+import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft } from './quote';
 import { QuoteEditor } from './quote-editor';
 import { QuoteSummary } from './quote-summary';
 import { QuotesApi } from './quotes-api';

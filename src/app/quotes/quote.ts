@@ -124,12 +124,6 @@ export const suggestionSchema = z.object({
 });
 export type QuoteSuggestion = z.infer<typeof suggestionSchema>;
 
-/** "Sent 3 Jun 2026, 14:05" style date and time from an ISO timestamp, in the browser's time zone. */
-export function showDateTime(iso: string | null | undefined): string {
-  if (!iso) return '';
-  return new Date(iso).toLocaleString('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' });
-}
-
 /** "20% VAT per line", "VAT on the total", or null when no VAT is charged. */
 export function vatLabel(q: Pick<Quote, 'vatRate' | 'vatMode'>): string | null {
   if (q.vatRate === null) return null;
