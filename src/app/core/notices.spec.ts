@@ -1,3 +1,4 @@
+import { EnvironmentInjector, createEnvironmentInjector } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { MatSnackBar } from '@angular/material/snack-bar';
 
@@ -26,5 +27,20 @@ describe('Notices', () => {
         { duration: 8000, politeness: 'assertive', panelClass: 'ks-error-snackbar' },
       ],
     ]);
+  });
+
+  it('drops a message still on its way when the app is torn down, without an error', async () => {
+    const open = spyOn(TestBed.inject(MatSnackBar), 'open');
+    const failed = spyOn(console, 'error');
+    const app = createEnvironmentInjector([Notices], TestBed.inject(EnvironmentInjector));
+    app.get(Notices).info('Client saved');
+    app.destroy();
+
+    // A message sent by a live app is still shown, so the wait below is long enough to notice.
+    TestBed.inject(Notices).info('Still here');
+    await until(() => open.calls.count() === 1);
+    await new Promise((resolve) => setTimeout(resolve, 20));
+    expect(open.calls.allArgs().map(([message]) => message)).toEqual(['Still here']);
+    expect(failed).not.toHaveBeenCalled();
   });
 });

@@ -1,4 +1,4 @@
-import { EnvironmentInjector, Injectable, inject } from '@angular/core';
+import { DestroyRef, EnvironmentInjector, Injectable, inject } from '@angular/core';
 import type { MatSnackBar, MatSnackBarConfig } from '@angular/material/snack-bar';
 
 /**
@@ -10,7 +10,13 @@ import type { MatSnackBar, MatSnackBarConfig } from '@angular/material/snack-bar
 @Injectable({ providedIn: 'root' })
 export class Notices {
   private readonly injector = inject(EnvironmentInjector);
-  private snackBar?: Promise<MatSnackBar>;
+  private snackBar?: Promise<typeof MatSnackBar>;
+  /** Set when the app is torn down: a message still on its way is then dropped, not shown. */
+  private closed = false;
+
+  constructor() {
+    inject(DestroyRef).onDestroy(() => (this.closed = true));
+  }
 
   info(message: string): void {
     this.show(message, { duration: 4000, politeness: 'polite' });
@@ -27,14 +33,16 @@ export class Notices {
 
   private show(message: string, config: MatSnackBarConfig): void {
     this.load().then(
-      (snackBar) => snackBar.open(message, 'Close', config),
+      (snackBar) => {
+        if (!this.closed) this.injector.get(snackBar).open(message, 'Close', config);
+      },
       (error: unknown) => console.error('Could not show the message', JSON.stringify(message), error),
     );
   }
 
-  private load(): Promise<MatSnackBar> {
+  private load(): Promise<typeof MatSnackBar> {
     this.snackBar ??= import('@angular/material/snack-bar').then(
-      (m) => this.injector.get(m.MatSnackBar),
+      (m) => m.MatSnackBar,
       (error: unknown) => {
         this.snackBar = undefined; // try again with the next message
         throw error;
