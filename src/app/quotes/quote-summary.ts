@@ -18,7 +18,7 @@ import { QuoteTotalsList } from './quote-totals-list';
         <thead>
           <tr>
             <th scope="col">Item</th>
-            <th scope="col">Kind</th>
+            <th scope="col" class="kind">Kind</th>
             <th scope="col" class="num">Quantity</th>
             <th scope="col" class="num">Price each</th>
             <th scope="col" class="num">Amount</th>
@@ -27,8 +27,11 @@ import { QuoteTotalsList } from './quote-totals-list';
         <tbody>
           @for (line of quote().lines; track $index) {
             <tr data-testid="quote-line">
-              <td>{{ line.description }}</td>
-              <td>{{ kindLabels[line.kind] }}</td>
+              <td>
+                {{ line.description }}
+                <span class="kind-inline">{{ kindLabels[line.kind] }}</span>
+              </td>
+              <td class="kind">{{ kindLabels[line.kind] }}</td>
               <td class="num">{{ line.quantity }} {{ line.unit }}</td>
               <td class="num">{{ pounds(line.unitPricePence) }}</td>
               <td class="num">{{ line.netPence === null || line.netPence === undefined ? '' : pounds(line.netPence) }}</td>
@@ -69,6 +72,30 @@ import { QuoteTotalsList } from './quote-totals-list';
         text-align: right;
         white-space: nowrap;
         font-variant-numeric: tabular-nums;
+      }
+      .kind-inline {
+        display: none;
+      }
+    }
+    /* On a phone the kind moves under the item, so the amounts fit without scrolling sideways. */
+    @media (max-width: 599px) {
+      .lines {
+        th,
+        td {
+          padding-right: 0.5rem;
+        }
+        th:last-child,
+        td:last-child {
+          padding-right: 0;
+        }
+        .kind {
+          display: none;
+        }
+        .kind-inline {
+          display: block;
+          font: var(--mat-sys-body-small);
+          color: var(--mat-sys-on-surface-variant);
+        }
       }
     }
   `,
