@@ -33,7 +33,7 @@ export function demoDesign(garments: number[], stock: { calico: number; navy: nu
   });
   return {
     units: 'imperial',
-    target: { preset: 'uk-double', dropMm: inch(12), widthMm: inch(72), lengthMm: inch(88) },
+    target: { preset: null, dropMm: null, widthMm: inch(72), lengthMm: inch(88) },
     layout: { setting: 'straight', rows: 5, columns: 4, blockMm: inch(12), sashing: { widthMm: inch(2), cornerstones: true }, borders: [inch(2), inch(7)] },
     blocks: [
       { id: 'A', name: 'Shirt plate', kind: 'plate', blades: 20, outerRadiusMm: inch(5), innerRadiusMm: inch(1.5) },

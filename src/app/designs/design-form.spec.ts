@@ -166,6 +166,30 @@ describe('DesignForm', () => {
       expect(await (await input('Target width')).getValue()).toBe('78');
     });
 
+    it('shows a metric bed in inches as a ruler reads it, and sends the exact size', async () => {
+      await create();
+      await (await bed()).open();
+      await (await bed()).clickOptions({ text: 'UK double' });
+      await (await input('Drop each side')).setValue('12');
+      await settle();
+      // Published: UK double 135 x 190 cm, 1 in = 25.4 mm. Derived: 1350 + 2 x 304.8 = 1959.6 mm = 77.1496 in,
+      // read on the ruler as 77 1/8; 1900 + 304.8 = 2204.8 mm = 86.8031 in, read as 86 3/4.
+      expect(await (await input('Target width')).getValue()).toBe('77 1/8');
+      expect(await (await input('Target length')).getValue()).toBe('86 3/4');
+      expect(last().target).toEqual({ preset: 'uk-double', dropMm: '304.8', widthMm: '1959.6', lengthMm: '2204.8' });
+    });
+
+    it('opens a stored size that the bed and drop do not give as the typed size it is, and keeps it', async () => {
+      const body = starterDesign('1828.8', '2235.2');
+      // A UK double with a 12 in drop is 77 1/8 in wide, not 72: the stored 72 x 88 in is kept as typed.
+      await create({ ...body, target: { preset: 'uk-double', dropMm: '304.8', widthMm: '1828.8', lengthMm: '2235.2' } });
+      expect(await (await bed()).getValueText()).not.toContain('UK double');
+      expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="bed-hint"]')).toBeNull();
+      expect(await (await input('Target width')).isDisabled()).toBeFalse();
+      expect(await (await input('Target width')).getValue()).toBe('72');
+      expect(fixture.componentInstance.value()?.target).toEqual({ preset: null, dropMm: null, widthMm: '1828.8', lengthMm: '2235.2' });
+    });
+
     it('refuses a drop over 100 cm and sends nothing', async () => {
       await create();
       await (await bed()).open();

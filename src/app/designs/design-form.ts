@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { BLOCK_KINDS, BLOCK_KIND_LABELS, BedRegion, BlockKind, DesignBody, DomainError, Length, LengthUnit, MATTRESS_PRESETS, MattressPreset, Size, TYPICAL_DROP, formatLength, quiltSizeForBed, tryParseLength } from '@keepstitch/shared';
+import { BLOCK_KINDS, BLOCK_KIND_LABELS, BedRegion, BlockKind, DesignBody, DomainError, Length, LengthUnit, MATTRESS_PRESETS, MattressPreset, Size, TYPICAL_DROP, formatInches, formatLength, formatMetric, quiltSizeForBed, tryParseLength } from '@keepstitch/shared';
 import { debounceTime } from 'rxjs';
 
 import { StockSource } from './design';
@@ -28,6 +28,14 @@ const unitOf = (units: 'imperial' | 'metric'): LengthUnit => (units === 'imperia
 export function lengthForEditing(mm: string | undefined | null, units: 'imperial' | 'metric'): string {
   if (!mm) return '';
   return Length.millimetres(mm).to(unitOf(units)).toDecimalPlaces(4).toString();
+}
+
+/**
+ * A worked-out length as a ruler or tape reads it, for a field that only shows it:
+ * "77 1/8" (nearest 1/8 in) rather than "77.1496", or "196" cm to the millimetre.
+ */
+export function lengthAsMeasured(length: Length, units: 'imperial' | 'metric'): string {
+  return units === 'imperial' ? formatInches(length, 'nearest', '') : formatMetric(length, 'cm').replace(/ cm$/, '');
 }
 
 /** Typed text to exact millimetres, or null when it cannot be read. */
@@ -199,8 +207,9 @@ export class DesignForm {
     const size = this.bedSize();
     if (size) {
       const u = c.units.value;
-      c.targetWidth.setValue(lengthForEditing(size.width.mm.toString(), u), quiet);
-      c.targetLength.setValue(lengthForEditing(size.height.mm.toString(), u), quiet);
+      // Shown only: with a bed chosen, the target sent is the bed maths' exact size, not this text.
+      c.targetWidth.setValue(lengthAsMeasured(size.width, u), quiet);
+      c.targetLength.setValue(lengthAsMeasured(size.height, u), quiet);
     }
     c.targetWidth.disable(quiet);
     c.targetLength.disable(quiet);
@@ -246,10 +255,15 @@ export class DesignForm {
   private load(d: DesignBody): void {
     this.loadedFrom = d;
     const u = d.units;
-    const preset = presetOf(d.target.preset);
     // The tuck is not stored: it is what the length has beyond the mattress and the drop at the foot.
-    const dropMm = preset ? Length.millimetres(d.target.dropMm ?? '0') : Length.zero;
-    const tuck = preset ? Length.millimetres(d.target.lengthMm).minus(preset.size.height).minus(dropMm) : Length.zero;
+    // A stored size that the bed and drop do not give (a tuck below nothing, or a width that is not
+    // the mattress plus two drops) is shown as the typed size it is, so opening and saving never changes it.
+    const named = presetOf(d.target.preset);
+    const namedDrop = named ? Length.millimetres(d.target.dropMm ?? '0') : Length.zero;
+    const namedTuck = named ? Length.millimetres(d.target.lengthMm).minus(named.size.height).minus(namedDrop) : Length.zero;
+    const preset = named && !namedTuck.isNegative() && bedQuiltSize(named.id, namedDrop, namedTuck).width.mm.eq(d.target.widthMm) ? named : undefined;
+    const dropMm = preset ? namedDrop : Length.zero;
+    const tuck = preset ? namedTuck : Length.zero;
     this.blocks.clear({ emitEvent: false });
     for (const b of d.blocks) this.blocks.push(this.blockGroup(b, u), { emitEvent: false });
     this.form.patchValue(
