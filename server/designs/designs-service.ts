@@ -258,19 +258,17 @@ export async function careCard(user: Express.User, commissionId: number) {
   const c = await findVisibleCommission(user, commissionId);
   const garments = await GarmentModel.query().where('commissionId', c.id).orderBy('id');
   const v = await latestVersion(c.id);
-  const fibres = new Map<string, string[]>();
-  for (const g of garments) {
-    // A garment whose fibre is not known yet is listed as such, not guessed.
-    const fibre = g.fibre ?? 'unknown';
-    fibres.set(fibre, [...(fibres.get(fibre) ?? []), g.description]);
-  }
-  const stockUsed: { name: string; fibre: string }[] = [];
+  // One line per fibre: the client's garments first, then the studio's own fabrics of that fibre.
+  const fibres = new Map<string, { fibre: string; garments: string[]; studio: string[] }>();
+  const groupOf = (fibre: string) => fibres.get(fibre) ?? fibres.set(fibre, { fibre, garments: [], studio: [] }).get(fibre)!;
+  // A garment whose fibre is not known yet is listed as such, not guessed.
+  for (const g of garments) groupOf(g.fibre ?? 'unknown').garments.push(g.description);
   if (v) {
     const ids = new Set<number>();
     for (const p of v.derived.pieces) if (p.fabric?.kind === 'stock') ids.add(p.fabric.stockId);
     for (const k of ['bindingStockId', 'backingStockId', 'waddingStockId'] as const) if (v.body.finishing[k] !== null) ids.add(v.body.finishing[k]!);
     const rows = ids.size ? await StockFabricModel.query().whereIn('id', [...ids]).orderBy('id') : [];
-    stockUsed.push(...rows.map((s) => ({ name: s.name, fibre: s.fibre })));
+    for (const s of rows) groupOf(s.fibre).studio.push(s.name);
   }
   const maker = v?.createdBy ? await UserModel.query().findById(v.createdBy) : await UserModel.query().where('role', 'owner').orderBy('id').first();
   const knit = garments.some((g) => g.construction === 'knit');
@@ -278,8 +276,7 @@ export async function careCard(user: Express.User, commissionId: number) {
     commission: { id: c.id, title: c.title, kind: c.kind, ageGroup: c.ageGroup },
     maker: maker?.name ?? 'The maker',
     washing: knit ? [...WASHING, 'Knit pieces are backed with a fusible stabiliser: do not wring or stretch them.'] : WASHING,
-    fibres: [...fibres].map(([fibre, from]) => ({ fibre, garments: from })),
-    studioFabrics: stockUsed,
+    fibres: [...fibres.values()],
     cautions: cautionsFor(c.ageGroup),
     deferNote: 'These notes are guidance. Where local guidance, a health visitor or a doctor advises differently, follow their advice.',
   };

@@ -222,8 +222,13 @@ describe('designs', () => {
       expect(res.status).toBe(200);
       const { text } = readPdf(res.body as Buffer);
       expect(text).toContain('colour-catcher');
-      expect(text).toContain('Cotton: Blue shirt');
+      // One line per fibre: the studio's navy cotton joins the client's cotton shirt.
+      expect(text).toContain('Cotton: Blue shirt; studio fabric: Navy cotton');
       expect(text).toContain('Flannel: Green flannel shirt');
+      expect((await client.get(`/api/commissions/${commissionId}/care-card`)).body.fibres).toEqual([
+        { fibre: 'cotton', garments: ['Blue shirt'], studio: ['Navy cotton'] },
+        { fibre: 'flannel', garments: ['Green flannel shirt'], studio: [] },
+      ]);
       expect(text).toMatch(/Made by owner \d+/);
       expect(text).toContain('Safe sleep for babies under 12 months');
       expect(text).toContain('follow their advice');

@@ -1,10 +1,8 @@
-import { FIBRE, COMMISSION_KIND } from '@keepstitch/shared';
+import { COMMISSION_KIND, fibreLine, fibreName } from '@keepstitch/shared';
 import { heading, newDocument, toBuffer } from './pdf-document';
 import type { careCard } from '../designs-service';
 
 type CareCard = Awaited<ReturnType<typeof careCard>>;
-
-const fibreLabel = (f: string) => (f === 'unknown' ? 'Fibre not known' : ((FIBRE.labels as Record<string, string>)[f] ?? f));
 
 /** The care card that goes with the finished piece. */
 export async function careCardPdf(card: CareCard): Promise<Buffer> {
@@ -16,8 +14,7 @@ export async function careCardPdf(card: CareCard): Promise<Buffer> {
   doc.moveDown(0.6);
   doc.font('Lato-Bold').fontSize(12).text('What went into it');
   doc.font('Lato').fontSize(10);
-  for (const f of card.fibres) doc.text(`\u2022 ${fibreLabel(f.fibre)}: ${f.garments.join(', ')}`, { indent: 6 });
-  for (const s of card.studioFabrics) doc.text(`\u2022 ${fibreLabel(s.fibre)}: ${s.name}`, { indent: 6 });
+  for (const f of card.fibres) doc.text(`\u2022 ${fibreName(f.fibre)}: ${fibreLine(f)}`, { indent: 6 });
   if (card.cautions.length) {
     doc.moveDown(0.6);
     doc.font('Lato-Bold').fontSize(12).fillColor('#8a1c1c').text('Safety').fillColor('#000');

@@ -78,3 +78,21 @@ export const COMMISSION_TEXT_LIMITS = { notes: 5000, moveNote: 1000, hoursNote: 
 
 /** The longest text of a custody entry, the same for the forms and the server: where it is kept, a tracking reference, a note. */
 export const CUSTODY_TEXT_LIMITS = { place: 60, trackingRef: 60, note: 1000 } as const;
+
+/** A fibre's name on a card or label; a garment not yet identified reads "Fibre not known". */
+export function fibreName(fibre: string): string {
+  return fibre === 'unknown' ? 'Fibre not known' : ((FIBRE.labels as Record<string, string>)[fibre] ?? fibre);
+}
+
+/** What of one fibre went into a piece, for the care card: the client's garments, then the studio's fabrics. */
+export interface FibreGroup {
+  fibre: string;
+  garments: string[];
+  studio: string[];
+}
+
+/** "Blue shirt, Check shirt; studio fabric: Navy binding cotton". */
+export function fibreLine(group: Pick<FibreGroup, 'garments' | 'studio'>): string {
+  const studio = group.studio.length ? `studio fabric: ${group.studio.join(', ')}` : '';
+  return [group.garments.join(', '), studio].filter(Boolean).join('; ');
+}

@@ -17,10 +17,10 @@ const card: CareCard = {
   maker: 'Ottilie Marsh',
   washing: ['Wash cool (30 °C at most) on a gentle cycle, with a mild detergent and no bleach.', 'Add a colour-catcher sheet to each wash: the piece mixes fabrics from different garments.'],
   fibres: [
-    { fibre: 'cotton', garments: ['Blue oxford work shirt', 'Check flannel shirt'] },
-    { fibre: 'unknown', garments: ['Old band T-shirt'] },
+    { fibre: 'cotton', garments: ['Blue oxford work shirt', 'Check flannel shirt'], studio: ['Navy binding cotton'] },
+    { fibre: 'unknown', garments: ['Old band T-shirt'], studio: [] },
+    { fibre: 'blend', garments: [], studio: ['Cotton wadding 80/20'] },
   ],
-  studioFabrics: [{ name: 'Navy binding cotton', fibre: 'cotton' }],
   cautions: [SAFE_SLEEP, SMALL_PARTS],
   deferNote: 'These notes are guidance. Where local guidance, a health visitor or a doctor advises differently, follow their advice.',
 };
@@ -56,7 +56,11 @@ describe('CareCardPrint', () => {
     expect(page.querySelectorAll('[data-testid="washing"] li').length).toBe(2);
     expect(page.querySelector('[data-testid="washing"]')!.textContent).toContain('colour-catcher');
     const fibres = [...page.querySelectorAll('[data-testid="fibres"] li')].map((li) => li.textContent!.trim());
-    expect(fibres).toEqual(['Cotton: Blue oxford work shirt, Check flannel shirt', 'Fibre not known: Old band T-shirt', 'Cotton: Navy binding cotton']);
+    expect(fibres).toEqual([
+      'Cotton: Blue oxford work shirt, Check flannel shirt; studio fabric: Navy binding cotton',
+      'Fibre not known: Old band T-shirt',
+      'Blend: studio fabric: Cotton wadding 80/20',
+    ]);
     const cautions = [...page.querySelectorAll('[data-testid="caution"]')];
     expect(cautions.map((c) => c.querySelector('h3')!.textContent)).toEqual([SAFE_SLEEP.title, SMALL_PARTS.title]);
     expect(cautions[0]!.textContent).toContain(SAFE_SLEEP.source);

@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { COMMISSION_KIND, FIBRE } from '@keepstitch/shared';
+import { COMMISSION_KIND, fibreLine, fibreName } from '@keepstitch/shared';
 
 import { Auth } from '../core/auth';
 import { CareCard } from './design';
@@ -33,9 +33,8 @@ export class CareCardPrint {
     return k ? ((COMMISSION_KIND.labels as Record<string, string>)[k] ?? 'piece').toLowerCase() : 'piece';
   });
 
-  protected fibre(f: string): string {
-    return f === 'unknown' ? 'Fibre not known' : ((FIBRE.labels as Record<string, string>)[f] ?? f);
-  }
+  protected readonly fibre = fibreName;
+  protected readonly line = fibreLine;
 
   protected pdf(): string {
     return this.api.pdf(this.commissionId(), 'care-card');

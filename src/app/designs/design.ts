@@ -101,8 +101,7 @@ export const careCardSchema = z.object({
   commission: z.object({ id: z.number(), title: z.string(), kind: z.string(), ageGroup: z.string() }),
   maker: z.string(),
   washing: z.array(z.string()),
-  fibres: z.array(z.object({ fibre: z.string(), garments: z.array(z.string()) })),
-  studioFabrics: z.array(z.object({ name: z.string(), fibre: z.string() })),
+  fibres: z.array(z.object({ fibre: z.string(), garments: z.array(z.string()), studio: z.array(z.string()) })),
   cautions: z.array(z.object({ code: z.string(), title: z.string(), text: z.string(), source: z.string() })),
   deferNote: z.string(),
 });
