@@ -223,7 +223,7 @@ describe('designs', () => {
       const { text } = readPdf(res.body as Buffer);
       expect(text).toContain('colour-catcher');
       // One line per fibre: the studio's navy cotton joins the client's cotton shirt.
-      expect(text).toContain('Cotton: Blue shirt; studio fabric: Navy cotton');
+      expect(text).toContain('Cotton: Blue shirt; Navy cotton (studio fabric)');
       expect(text).toContain('Flannel: Green flannel shirt');
       expect((await client.get(`/api/commissions/${commissionId}/care-card`)).body.fibres).toEqual([
         { fibre: 'cotton', garments: ['Blue shirt'], studio: ['Navy cotton'] },

@@ -16,8 +16,8 @@ describe('vocabularies', () => {
   });
 
   it('list what of one fibre went in: the garments, then the studio fabrics', () => {
-    expect(fibreLine({ garments: ['Blue shirt', 'Check shirt'], studio: ['Navy binding cotton'] })).toBe('Blue shirt, Check shirt; studio fabric: Navy binding cotton');
+    expect(fibreLine({ garments: ['Blue shirt', 'Check shirt'], studio: ['Navy binding cotton'] })).toBe('Blue shirt, Check shirt; Navy binding cotton (studio fabric)');
     expect(fibreLine({ garments: ['Blue shirt'], studio: [] })).toBe('Blue shirt');
-    expect(fibreLine({ garments: [], studio: ['Unbleached calico', 'Navy cotton'] })).toBe('studio fabric: Unbleached calico, Navy cotton');
+    expect(fibreLine({ garments: [], studio: ['Unbleached calico', 'Navy cotton'] })).toBe('Unbleached calico, Navy cotton (studio fabrics)');
   });
 });

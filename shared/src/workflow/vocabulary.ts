@@ -91,8 +91,8 @@ export interface FibreGroup {
   studio: string[];
 }
 
-/** "Blue shirt, Check shirt; studio fabric: Navy binding cotton". */
+/** "Blue shirt, Check shirt; Navy binding cotton (studio fabric)". */
 export function fibreLine(group: Pick<FibreGroup, 'garments' | 'studio'>): string {
-  const studio = group.studio.length ? `studio fabric: ${group.studio.join(', ')}` : '';
+  const studio = group.studio.length ? `${group.studio.join(', ')} (studio fabric${group.studio.length > 1 ? 's' : ''})` : '';
   return [group.garments.join(', '), studio].filter(Boolean).join('; ');
 }

@@ -57,9 +57,9 @@ describe('CareCardPrint', () => {
     expect(page.querySelector('[data-testid="washing"]')!.textContent).toContain('colour-catcher');
     const fibres = [...page.querySelectorAll('[data-testid="fibres"] li')].map((li) => li.textContent!.trim());
     expect(fibres).toEqual([
-      'Cotton: Blue oxford work shirt, Check flannel shirt; studio fabric: Navy binding cotton',
+      'Cotton: Blue oxford work shirt, Check flannel shirt; Navy binding cotton (studio fabric)',
       'Fibre not known: Old band T-shirt',
-      'Blend: studio fabric: Cotton wadding 80/20',
+      'Blend: Cotton wadding 80/20 (studio fabric)',
     ]);
     const cautions = [...page.querySelectorAll('[data-testid="caution"]')];
     expect(cautions.map((c) => c.querySelector('h3')!.textContent)).toEqual([SAFE_SLEEP.title, SMALL_PARTS.title]);
