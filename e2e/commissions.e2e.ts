@@ -135,7 +135,7 @@ describe('commissions and garment intake, end to end', () => {
     await page.mouse.up();
     await target.getByTestId('board-card').filter({ hasText: title }).waitFor();
 
-    await target.getByTestId('board-card').filter({ hasText: title }).getByRole('button', { name: /to another stage/ }).click();
+    await target.getByTestId('board-card').filter({ hasText: title }).getByRole('button', { name: /Move to… another stage/ }).click();
     await page.getByRole('menuitem', { name: 'Booked' }).click();
     await page.getByTestId('board-column-booked').getByTestId('board-card').filter({ hasText: title }).waitFor();
     await screenshot(page, 'commission-board');

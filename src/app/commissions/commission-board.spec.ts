@@ -70,7 +70,7 @@ describe('CommissionBoard', () => {
   }
 
   async function moveByMenu(title: string, stage: string): Promise<void> {
-    const menu = await loader.getHarness(MatMenuHarness.with({ selector: `[aria-label="Move “${title}” to another stage"]` }));
+    const menu = await loader.getHarness(MatMenuHarness.with({ selector: `[aria-label="Move to… another stage: “${title}”"]` }));
     await menu.clickItem({ text: stage });
     await fixture.whenStable();
   }
