@@ -29,7 +29,7 @@ import { QuoteTotalsList } from './quote-totals-list';
             <tr data-testid="quote-line">
               <td>
                 {{ line.description }}
-                <span class="kind-inline">{{ kindLabels[line.kind] }}</span>
+                <span class="ks-phone-line">{{ kindLabels[line.kind] }}</span>
               </td>
               <td class="kind">{{ kindLabels[line.kind] }}</td>
               <td class="num">{{ line.quantity }} {{ line.unit }}</td>
@@ -73,9 +73,6 @@ import { QuoteTotalsList } from './quote-totals-list';
         white-space: nowrap;
         font-variant-numeric: tabular-nums;
       }
-      .kind-inline {
-        display: none;
-      }
     }
     /* On a phone the kind moves under the item, so the amounts fit without scrolling sideways. */
     @media (max-width: 599px) {
@@ -90,11 +87,6 @@ import { QuoteTotalsList } from './quote-totals-list';
         }
         .kind {
           display: none;
-        }
-        .kind-inline {
-          display: block;
-          font: var(--mat-sys-body-small);
-          color: var(--mat-sys-on-surface-variant);
         }
       }
     }
