@@ -23,7 +23,7 @@ describe('own password, end to end', () => {
     await owner.page.getByLabel('Password').fill(first);
     await owner.page.getByRole('button', { name: 'Create user' }).click();
     await owner.page.waitForURL(/\/users$/);
-    await owner.page.getByText(email).waitFor();
+    await owner.page.getByRole('cell', { name: email }).waitFor();
 
     // Signed in on two browsers; the first changes the password.
     const elsewhere = await openPage(browser);

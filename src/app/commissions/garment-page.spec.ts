@@ -78,11 +78,12 @@ describe('GarmentPage custody', () => {
   }
   const record = async () => (await loader.getHarness(MatButtonHarness.with({ text: 'Record event' }))).click();
 
-  it('lists the log newest first', () => {
+  it('lists the log newest first, numbered down from the latest', () => {
+    expect((fixture.nativeElement as HTMLElement).querySelector<HTMLOListElement>('[data-testid="custody-log"]')!.reversed).toBeTrue();
     const entries = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('[data-testid="custody-event"]'));
     expect(entries.map((e) => e.textContent)).toEqual([
       jasmine.stringContaining('Stored at Box 3'),
-      jasmine.stringContaining('Received'),
+      jasmine.stringContaining('Received — Arrived by post'),
       jasmine.stringContaining('Announced by the client'),
     ]);
   });
