@@ -90,6 +90,15 @@ export function bedQuiltSize(presetId: string, drop: Length, pillowTuck: Length)
   return quiltSizeForBed({ mattress: preset.size, drop, pillowTuck }).size;
 }
 
+/** Whether a bed with this drop and tuck is the stored width; false when the bed maths refuses them. */
+function bedGives(presetId: string, drop: Length, tuck: Length, widthMm: string): boolean {
+  try {
+    return bedQuiltSize(presetId, drop, tuck).width.mm.eq(widthMm);
+  } catch {
+    return false;
+  }
+}
+
 /** The design's size, layout, blocks and finishing, as a typed form; emits a design body while valid. */
 @Component({
   selector: 'ks-design-form',
@@ -261,7 +270,7 @@ export class DesignForm {
     const named = presetOf(d.target.preset);
     const namedDrop = named ? Length.millimetres(d.target.dropMm ?? '0') : Length.zero;
     const namedTuck = named ? Length.millimetres(d.target.lengthMm).minus(named.size.height).minus(namedDrop) : Length.zero;
-    const preset = named && !namedTuck.isNegative() && bedQuiltSize(named.id, namedDrop, namedTuck).width.mm.eq(d.target.widthMm) ? named : undefined;
+    const preset = named && !namedTuck.isNegative() && bedGives(named.id, namedDrop, namedTuck, d.target.widthMm) ? named : undefined;
     const dropMm = preset ? namedDrop : Length.zero;
     const tuck = preset ? namedTuck : Length.zero;
     this.blocks.clear({ emitEvent: false });
