@@ -42,6 +42,7 @@ describe('PortalCommission', () => {
   let loader: HarnessLoader;
   let httpMock: HttpTestingController;
   let page: HTMLElement;
+  let shownBeforeQuote: { hidden: boolean; bar: string | null };
 
   beforeEach(async () => {
     TestBed.configureTestingModule({
@@ -62,6 +63,11 @@ describe('PortalCommission', () => {
     await fixture.whenStable();
     httpMock.expectOne('/api/commissions/5').flush(detail);
     await fixture.whenStable();
+    // Until the quote part has loaded, the page is laid out but not shown, and the bar still runs.
+    shownBeforeQuote = {
+      hidden: page.querySelector('[data-testid="portal-content"]')!.classList.contains('waiting'),
+      bar: page.querySelector('mat-progress-bar')?.getAttribute('aria-label') ?? null,
+    };
     // The quote section loads its own data (see quotes/client-quote.spec.ts).
     httpMock.expectOne('/api/commissions/5/quotes').flush({ items: [] });
     httpMock.expectOne('/api/commissions/5/payments').flush({ items: [], due: null });
@@ -69,6 +75,12 @@ describe('PortalCommission', () => {
   });
 
   afterEach(() => httpMock.verify());
+
+  it('shows the page whole once the quote part has loaded, so nothing jumps down', () => {
+    expect(shownBeforeQuote).toEqual({ hidden: true, bar: 'Loading your commission' });
+    expect(page.querySelector('[data-testid="portal-content"]')!.classList.contains('waiting')).toBeFalse();
+    expect(page.querySelector('mat-progress-bar')).toBeNull();
+  });
 
   it('shows the stage on a progress line, in words as well as marks', () => {
     expect(page.querySelector('[data-testid="portal-stage"]')?.textContent).toContain(

@@ -61,6 +61,8 @@ export class PortalCommission {
 
   protected readonly commission = signal<CommissionDetail | null>(null);
   protected readonly state = signal<'loading' | 'ready' | 'failed'>('loading');
+  /** The quote part loads on its own; the page shows once it has, so nothing below it jumps down. */
+  protected readonly quoteSettled = signal(false);
   protected readonly currentIndex = computed(() => {
     const stage = this.commission()?.stage;
     return stage ? STAGES.findIndex((s) => s === stage) : -1;

@@ -78,6 +78,27 @@ describe('ClientQuote', () => {
     sessionStorage.removeItem('keepstitch.paying.5');
   });
 
+  it('tells its page once when the first load has ended, even when it failed, and not on a later reload', async () => {
+    fixture = TestBed.createComponent(ClientQuote);
+    fixture.componentRef.setInput('commissionId', 5);
+    let ended = 0;
+    fixture.componentInstance.firstLoadEnded.subscribe(() => ended++);
+    page = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+    httpMock.expectOne('/api/commissions/5/quotes').flush({ message: 'down' }, { status: 503, statusText: 'Service Unavailable' });
+    httpMock.match('/api/commissions/5/payments');
+    await fixture.whenStable();
+    expect(ended).toBe(1);
+    expect(page.querySelector('[role="alert"]')?.textContent).toContain('Your quote could not be loaded.');
+
+    loader = TestbedHarnessEnvironment.loader(fixture);
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Try again' }))).click();
+    httpMock.expectOne('/api/commissions/5/quotes').flush({ items: [] });
+    httpMock.expectOne('/api/commissions/5/payments').flush({ items: [], due: null });
+    await fixture.whenStable();
+    expect(ended).toBe(1);
+  });
+
   afterEach(() => httpMock.verify());
 
   const button = (text: string | RegExp) => loader.getHarness(MatButtonHarness.with({ text }));

@@ -74,6 +74,8 @@ export class ClientQuote {
   readonly payment = input<string | undefined>(undefined);
   /** The quote was answered or a payment arrived: the commission itself may have moved on. */
   readonly changed = output<void>();
+  /** Once, when the first load has ended (shown or failed), so a page can show itself whole. */
+  readonly firstLoadEnded = output<void>();
 
   protected readonly showDate = showDate;
   protected readonly showDateTime = showDateTime;
@@ -130,9 +132,15 @@ export class ClientQuote {
         this.quote.set(quotes[0] ?? null);
         this.payments.set(payments);
         this.state.set('ready');
-        if (first) this.arrived();
+        if (first) {
+          this.arrived();
+          this.firstLoadEnded.emit();
+        }
       },
-      error: () => this.state.set('failed'),
+      error: () => {
+        this.state.set('failed');
+        if (first) this.firstLoadEnded.emit();
+      },
     });
   }
 
