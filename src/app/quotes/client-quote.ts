@@ -127,6 +127,8 @@ export class ClientQuote {
   }
 
   protected load(id = this.commissionId(), first = false): void {
+    // Trying again after a failure shows the bar; a reload of a shown quote keeps it in place.
+    if (this.state() === 'failed') this.state.set('loading');
     forkJoin({ quotes: this.api.list(id), payments: this.api.payments(id) }).subscribe({
       next: ({ quotes, payments }) => {
         this.quote.set(quotes[0] ?? null);
