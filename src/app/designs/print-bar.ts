@@ -2,8 +2,9 @@ import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, input, 
 import type { Observable, Subscription } from 'rxjs';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
+
+import { LoadStatus } from '../shared/load-status';
 
 /** Where a print page's loading stands. */
 export type PrintState = 'loading' | 'ready' | 'failed';
@@ -15,24 +16,14 @@ export type PrintState = 'loading' | 'ready' | 'failed';
  */
 @Component({
   selector: 'ks-print-bar',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [RouterLink, MatButtonModule, MatIconModule, LoadStatus],
   template: `
     <div class="actions">
       <a mat-icon-button [routerLink]="back()" [attr.aria-label]="backLabel()" data-testid="print-back"><mat-icon>arrow_back</mat-icon></a>
       <button mat-flat-button type="button" (click)="print()" [disabled]="state() !== 'ready'"><mat-icon>print</mat-icon> Print</button>
       <ng-content />
     </div>
-    <div class="loading-slot">
-      @if (state() === 'loading') {
-        <mat-progress-bar mode="indeterminate" [attr.aria-label]="'Loading the ' + what()" />
-      }
-    </div>
-    @if (state() === 'failed') {
-      <p class="failed" role="alert">
-        The {{ what() }} could not be loaded.
-        <button mat-button type="button" (click)="retry.emit()">Try again</button>
-      </p>
-    }
+    <ks-load-status [what]="'the ' + what()" [loading]="state() === 'loading'" [failed]="state() === 'failed'" (retry)="retry.emit()" />
   `,
   styles: `
     :host {
@@ -44,19 +35,6 @@ export type PrintState = 'loading' | 'ready' | 'failed';
       flex-wrap: wrap;
       gap: 0.5rem;
       align-items: center;
-    }
-    .loading-slot {
-      margin-top: 0.25rem;
-    }
-    .failed {
-      display: flex;
-      flex-wrap: wrap;
-      align-items: center;
-      gap: 0.25rem;
-      padding: 0.5rem 0.75rem;
-      border-radius: var(--mat-sys-corner-small);
-      background: var(--mat-sys-error-container);
-      color: var(--mat-sys-on-error-container);
     }
   `,
   host: { class: 'ks-no-print' },

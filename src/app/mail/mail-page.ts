@@ -3,7 +3,6 @@ import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/cor
 import { MatButtonModule } from '@angular/material/button';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatIconModule } from '@angular/material/icon';
-import { MatProgressBarModule } from '@angular/material/progress-bar';
 
 import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
@@ -16,7 +15,7 @@ type SentState = 'loading' | 'ready' | 'not-here' | 'failed';
 /** Mail not delivered yet (with a retry), and in development the mails the local mail server caught. */
 @Component({
   selector: 'ks-mail-page',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, MatExpansionModule, LoadStatus],
+  imports: [MatButtonModule, MatIconModule, MatExpansionModule, LoadStatus],
   templateUrl: './mail-page.html',
   styleUrl: './mail-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -6,7 +6,7 @@ import { LoadStatus } from './load-status';
 @Component({
   imports: [LoadStatus],
   template: `
-    <ks-load-status what="the clients" [loading]="loading()" [failed]="failed()" [working]="working()" (retry)="retries = retries + 1">
+    <ks-load-status what="the clients" [loading]="loading()" [failed]="failed()" [working]="working()" [reason]="reason()" (retry)="retries = retries + 1">
       <a href="/elsewhere">Back</a>
     </ks-load-status>
   `,
@@ -15,6 +15,7 @@ class Host {
   readonly loading = signal(true);
   readonly failed = signal(false);
   readonly working = signal<string | null>(null);
+  readonly reason = signal<string | null>(null);
   retries = 0;
 }
 
@@ -57,5 +58,14 @@ describe('LoadStatus', () => {
     button.click();
     button.click();
     expect(host.retries).toBe(2);
+  });
+
+  it('adds the reason the server gave, when there is one', () => {
+    const { fixture, host, el } = setUp();
+    host.loading.set(false);
+    host.failed.set(true);
+    host.reason.set('The local mail server is not answering.');
+    fixture.detectChanges();
+    expect(el.querySelector('[role=alert] p')!.textContent!.replace(/\s+/g, ' ').trim()).toBe('The clients could not be loaded. The local mail server is not answering.');
   });
 });

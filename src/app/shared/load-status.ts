@@ -64,6 +64,8 @@ export class LoadStatus {
   readonly what = input.required<string>();
   readonly loading = input(false);
   readonly failed = input(false);
+  /** Why it failed, when the server said something more useful than that it did. */
+  readonly reason = input<string | null>(null);
   /** Other work the same bar shows while it runs ("Saving settings"), or null. */
   readonly working = input<string | null>(null);
   readonly retry = output<void>();
@@ -72,6 +74,8 @@ export class LoadStatus {
   protected readonly label = computed(() => (this.loading() ? `Loading ${this.what()}` : this.working()));
   protected readonly failedText = computed(() => {
     const what = this.what();
-    return `${what.charAt(0).toUpperCase()}${what.slice(1)} could not be loaded.`;
+    const said = `${what.charAt(0).toUpperCase()}${what.slice(1)} could not be loaded.`;
+    const why = this.reason();
+    return why ? `${said} ${why}` : said;
   });
 }
