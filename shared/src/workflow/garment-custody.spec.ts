@@ -1,4 +1,4 @@
-import { checkCustodyEvent, deriveCustody, type CustodyEvent } from './garment-custody';
+import { checkCustodyEvent, deriveCustody, likelyNextEvent, type CustodyEvent } from './garment-custody';
 
 let id = 0;
 const ev = (kind: CustodyEvent['kind'], extra: Partial<CustodyEvent> = {}, at = `2026-11-0${++id % 9 + 1}T10:00:00Z`): CustodyEvent => ({ id: ++id, kind, at, ...extra });
@@ -48,5 +48,21 @@ describe('garment custody derived from its events', () => {
 
   it('lets a garment that never arrived be withdrawn', () => {
     expect(deriveCustody([ev('announced'), ev('withdrawn')]).status).toBe('withdrawn');
+  });
+
+  it('offers the usual next event first (receive, store, move, return once cut), always one the log allows', () => {
+    const log: CustodyEvent[] = [{ id: 1, kind: 'announced', at: '2026-11-01T09:00:00Z' }];
+    const next = () => likelyNextEvent(deriveCustody(log));
+    const steps: string[] = [];
+    for (const [kind, extra] of [['received', {}], ['washed', {}], ['stored', { place: 'Box 3' }], ['cut', {}], ['returned', { returnMethod: 'in_person' }]] as const) {
+      const offered = next();
+      steps.push(offered);
+      expect(checkCustodyEvent(deriveCustody(log), offered)).toEqual({ ok: true });
+      log.push({ id: log.length + 1, kind, at: `2026-11-0${log.length + 1}T09:00:00Z`, ...extra });
+    }
+    // Before each event above: not here yet, in the studio with no place (twice), stored, cut.
+    expect(steps).toEqual(['received', 'stored', 'stored', 'moved', 'returned']);
+    // Back with the client: it is received again if it comes back.
+    expect(next()).toBe('received');
   });
 });

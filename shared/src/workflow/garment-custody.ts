@@ -114,3 +114,15 @@ export function checkCustodyEvent(current: CustodyState, kind: CustodyKind): { o
       return { ok: true };
   }
 }
+
+/**
+ * The event a maker most likely records next, for the first choice of the
+ * custody form: received while the garment is not here, stored until it has a
+ * place, then moved; returned once it is cut. Every choice it makes is one
+ * `checkCustodyEvent` allows.
+ */
+export function likelyNextEvent(current: Pick<CustodyState, 'status' | 'place'>): 'received' | 'stored' | 'moved' | 'returned' {
+  if (current.status === 'cut') return 'returned';
+  if (current.status !== 'in_studio') return 'received';
+  return current.place === null ? 'stored' : 'moved';
+}

@@ -88,6 +88,11 @@ describe('GarmentPage custody', () => {
     ]);
   });
 
+  it('offers the usual next entry first: a garment stored in Box 3 is next moved, not received again', async () => {
+    const field = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Event' }));
+    expect(await (await field.getControl(MatSelectHarness))!.getValueText()).toBe('Moved');
+  });
+
   it('asks for the tracking reference of a posted return before sending it', async () => {
     await chooseEvent('Returned to the client');
     const how = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'How' }));

@@ -19,6 +19,8 @@ import {
   PREWASH,
   PRINT,
   ReturnMethod,
+  deriveCustody,
+  likelyNextEvent,
 } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
@@ -125,6 +127,8 @@ export class GarmentPage {
       next: (garment) => {
         this.garment.set(garment);
         this.state.set('ready');
+        // The form offers the usual next entry first (Stored once received...), unless one is being typed.
+        if (this.eventForm.pristine) this.eventForm.controls.kind.setValue(likelyNextEvent(deriveCustody(garment.events ?? [])));
       },
       error: () => this.state.set('failed'),
     });
@@ -190,7 +194,7 @@ export class GarmentPage {
     this.api.recordEvent(garment.id, draft).subscribe({
       next: (reply) => {
         this.recording.set(false);
-        this.eventForm.reset({ kind: v.kind, returnMethod: 'in_person' });
+        this.eventForm.reset({ kind: likelyNextEvent(reply.state), returnMethod: 'in_person' });
         this.notices.info(`${CUSTODY_LABELS[reply.event.kind]} recorded. Now: ${GARMENT_STATUS_LABELS[reply.state.status]}${reply.state.place ? `, at ${reply.state.place}` : ''}.`);
         this.load();
       },
