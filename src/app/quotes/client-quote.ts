@@ -135,8 +135,10 @@ export class ClientQuote {
         this.payments.set(payments);
         this.state.set('ready');
         if (first) {
-          this.arrived();
+          // The page shows itself first, so the payment notice below fills a live region that can be
+          // seen, and a screen reader hears it.
           this.firstLoadEnded.emit();
+          afterNextRender(() => this.arrived(), { injector: this.injector });
         }
       },
       error: () => {
