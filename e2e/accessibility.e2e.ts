@@ -34,6 +34,13 @@ describe('accessibility, end to end', () => {
     return found;
   }
 
+  /** A fresh page signed in as one of the demo accounts. */
+  async function signedIn(account: { email: string; password: string }): Promise<{ page: Page; problems: string[] }> {
+    const opened = await openPage(browser);
+    await signIn(opened.page, account.email, account.password);
+    return opened;
+  }
+
   async function workShirt(page: Page): Promise<{ commission: number; garment: number }> {
     const list = await (await page.request.get('/api/commissions?q=Work-shirt')).json();
     const commission = list.items[0].id as number;
@@ -52,8 +59,7 @@ describe('accessibility, end to end', () => {
   });
 
   it('finds nothing on the owner’s commission pages', async () => {
-    const { page, problems } = await openPage(browser);
-    await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    const { page, problems } = await signedIn(DEMO_ACCOUNTS.owner);
     const { commission, garment } = await workShirt(page);
     const found = await check(page, ['/commissions', '/commissions/board', `/commissions/${commission}`, `/commissions/${commission}/garments/${garment}`, `/commissions/${commission}/edit`]);
     expect(found).toEqual([]);
@@ -61,8 +67,7 @@ describe('accessibility, end to end', () => {
   });
 
   it('finds nothing on the owner’s design and printing pages', async () => {
-    const { page, problems } = await openPage(browser);
-    await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    const { page, problems } = await signedIn(DEMO_ACCOUNTS.owner);
     const { commission } = await workShirt(page);
     const found = await check(page, [`/designs/${commission}`, `/designs/${commission}/cut-list`, `/designs/${commission}/sewing-order`, `/designs/${commission}/templates`, `/designs/${commission}/care-card`]);
     expect(found).toEqual([]);
@@ -70,8 +75,7 @@ describe('accessibility, end to end', () => {
   });
 
   it('finds nothing on the owner’s studio pages, nor on a form showing its errors', async () => {
-    const { page, problems } = await openPage(browser);
-    await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    const { page, problems } = await signedIn(DEMO_ACCOUNTS.owner);
     const found = await check(page, ['/clients', '/stock', '/settings', '/mail', '/users', '/password']);
     // A form showing its errors, with their colours and their ties to the fields.
     await page.goto('/clients/new');
@@ -83,8 +87,7 @@ describe('accessibility, end to end', () => {
   });
 
   it('finds nothing on the pages a client sees', async () => {
-    const { page, problems } = await openPage(browser);
-    await signIn(page, DEMO_ACCOUNTS.clientA.email, DEMO_ACCOUNTS.clientA.password);
+    const { page, problems } = await signedIn(DEMO_ACCOUNTS.clientA);
     const list = await (await page.request.get('/api/commissions')).json();
     const commission = list.items[0].id as number;
     const found = await check(page, ['/portal', `/portal/${commission}`, `/designs/${commission}/review`, `/designs/${commission}/care-card`, '/my-details']);

@@ -14,6 +14,7 @@ import {
   type DesignPlanSummary,
   type DesignSources,
   type FabricRef,
+  type FibreGroup,
 } from '@keepstitch/shared';
 import { AppError } from '../core/app-error';
 import { findVisibleCommission } from '../commissions/commissions-service';
@@ -259,7 +260,7 @@ export async function careCard(user: Express.User, commissionId: number) {
   const garments = await GarmentModel.query().where('commissionId', c.id).orderBy('id');
   const v = await latestVersion(c.id);
   // One line per fibre: the client's garments first, then the studio's own fabrics of that fibre.
-  const fibres = new Map<string, { fibre: string; garments: string[]; studio: string[] }>();
+  const fibres = new Map<string, FibreGroup>();
   const groupOf = (fibre: string) => fibres.get(fibre) ?? fibres.set(fibre, { fibre, garments: [], studio: [] }).get(fibre)!;
   // A garment whose fibre is not known yet is listed as such, not guessed.
   for (const g of garments) groupOf(g.fibre ?? 'unknown').garments.push(g.description);
