@@ -1,4 +1,4 @@
-import { cautionsFor, checkStageMove, featuresToRemove, nextStages, stageIndex, type Stage, type StageFacts, type WorkStage } from '@keepstitch/shared';
+import { ALL_STAGES, cautionsFor, checkStageMove, featuresToRemove, moveNeedsNote, nextStages, type Stage, type StageFacts } from '@keepstitch/shared';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
 import { pageOf } from '../core/paging';
@@ -64,7 +64,8 @@ export async function listCommissions(user: Express.User, q: ListCommissionsQuer
   }
   const column = { deadline: 'commissions.deadline', createdAt: 'commissions.createdAt', title: 'commissions.title', stage: 'commissions.stage' }[q.sort];
   if (q.sort === 'stage') {
-    query.orderByRaw(`array_position(ARRAY['enquiry','quoted','booked','garments_in','preparation','cutting','piecing','quilting','binding','ready','delivered','cancelled']::text[], commissions.stage::text) ${q.dir}`);
+    // The stages' own order (shared with the app), not the alphabet.
+    query.orderByRaw(`array_position(?::text[], commissions.stage::text) ${q.dir}`, [ALL_STAGES]);
   } else {
     query.orderBy(column, q.dir, q.dir === 'asc' ? 'last' : 'first');
   }
@@ -225,8 +226,7 @@ export async function moveStage(user: Express.User, id: number, to: Stage, note:
     const facts = await stageFacts(id, trx);
     const check = checkStageMove(c.stage, to, facts);
     if (!check.ok) throw new AppError(409, 'stage_move_refused', check.reason);
-    const backwards = to !== 'cancelled' && c.stage !== 'cancelled' && stageIndex(to as WorkStage) < stageIndex(c.stage as WorkStage);
-    if ((backwards || to === 'cancelled') && !note) {
+    if (moveNeedsNote(c.stage, to) && !note) {
       throw new AppError(400, 'validation', 'Say why in a note when moving back or cancelling.', { note: 'A note is needed for this move.' });
     }
     await StageMoveModel.query(trx).insert({ commissionId: id, fromStage: c.stage, toStage: to, note: note ?? null, movedBy: user.id });

@@ -1,4 +1,4 @@
-import { checkStageMove, nextStages, STAGES } from './commission-stages';
+import { ALL_STAGES, checkStageMove, moveNeedsNote, nextStages, STAGES } from './commission-stages';
 
 const allIn = { garmentCount: 3, garmentsReceived: 3 };
 
@@ -51,5 +51,23 @@ describe('commission stage moves', () => {
 
   it('lists the moves open from a stage', () => {
     expect(nextStages('preparation', allIn)).toEqual(['enquiry', 'quoted', 'booked', 'garments_in', 'cutting', 'cancelled']);
+  });
+});
+
+describe('a note for a move', () => {
+  it('is needed going back a stage and when cancelling, not going forward', () => {
+    expect(moveNeedsNote('cutting', 'preparation')).toBe(true);
+    expect(moveNeedsNote('quoted', 'cancelled')).toBe(true);
+    expect(moveNeedsNote('preparation', 'cutting')).toBe(false);
+    expect(moveNeedsNote('enquiry', 'booked')).toBe(false);
+  });
+
+  it('is asked for exactly the allowed moves that run against the stage order', () => {
+    for (const from of ALL_STAGES) {
+      for (const to of ALL_STAGES) {
+        const backwards = to === 'cancelled' || (from !== 'cancelled' && ALL_STAGES.indexOf(to) < ALL_STAGES.indexOf(from));
+        expect(moveNeedsNote(from, to)).toBe(backwards);
+      }
+    }
   });
 });

@@ -19,7 +19,7 @@ export const STAGES = [
 
 export type WorkStage = (typeof STAGES)[number];
 export type Stage = WorkStage | 'cancelled';
-export const ALL_STAGES: readonly Stage[] = [...STAGES, 'cancelled'];
+export const ALL_STAGES = [...STAGES, 'cancelled'] as const satisfies readonly Stage[];
 
 export const STAGE_LABELS: Readonly<Record<Stage, string>> = {
   enquiry: 'Enquiry',
@@ -98,6 +98,16 @@ export function checkStageMove(from: Stage, to: Stage, facts: StageFacts): MoveC
     };
   }
   return { ok: true };
+}
+
+/**
+ * Does a move need a note saying why? Going back a stage (a correction) and
+ * cancelling do; the app asks for one and the server refuses the move without it.
+ */
+export function moveNeedsNote(from: Stage, to: Stage): boolean {
+  if (to === 'cancelled') return true;
+  if (from === 'cancelled') return false;
+  return stageIndex(to) < stageIndex(from);
 }
 
 /** The stages a commission may move to next, in order. */

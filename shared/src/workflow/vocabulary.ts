@@ -3,7 +3,8 @@
  * labels the maker reads. Shared by the server's validation and the app's forms.
  */
 const labelled = <T extends string>(labels: Record<T, string>) => {
-  const values = Object.keys(labels) as T[];
+  // An object literal always has at least one key, so the tuple is never empty (what z.enum asks for).
+  const values = Object.keys(labels) as unknown as readonly [T, ...T[]];
   return {
     values,
     labels: labels as Readonly<Record<T, string>>,

@@ -5,7 +5,7 @@ import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatMenuModule } from '@angular/material/menu';
 import { RouterLink } from '@angular/router';
-import { ALL_STAGES, STAGES, STAGE_LABELS, Stage, WorkStage, stageIndex } from '@keepstitch/shared';
+import { ALL_STAGES, STAGES, STAGE_LABELS, Stage, WorkStage, moveNeedsNote } from '@keepstitch/shared';
 import { Observable, of } from 'rxjs';
 
 import { messageFor } from '../core/api-error';
@@ -15,13 +15,6 @@ import { LoadStatus } from '../shared/load-status';
 import { Commission, daysLeftText } from './commission';
 import { CommissionsApi } from './commissions-api';
 import { MoveNoteDialog, MoveNoteDialogData } from './move-note-dialog';
-
-/** Does a move need a note (going back, or cancelling)? */
-export function needsNote(from: Stage, to: Stage): boolean {
-  if (to === 'cancelled') return true;
-  if (from === 'cancelled') return false;
-  return stageIndex(to as WorkStage) < stageIndex(from as WorkStage);
-}
 
 /**
  * Open commissions as cards in one column per stage. The owner drags a card to
@@ -112,7 +105,7 @@ export class CommissionBoard {
 
   /** Undefined when the person backs out; null when no note is needed. */
   private askNote(card: Commission, to: Stage): Observable<string | null | undefined> {
-    if (!needsNote(card.stage, to)) return of(null);
+    if (!moveNeedsNote(card.stage, to)) return of(null);
     return this.dialog
       .open<MoveNoteDialog, MoveNoteDialogData, string>(MoveNoteDialog, {
         data: { title: card.title, stageLabel: STAGE_LABELS[to] },

@@ -17,6 +17,7 @@ import {
   GARMENT_STATUS_LABELS,
   STAGE_LABELS,
   Stage,
+  moveNeedsNote,
 } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
@@ -32,7 +33,6 @@ import { PhotoGallery } from '../shared/photo-gallery';
 import { PhotoUpload } from '../shared/photo-upload';
 import { CommissionDetail, daysLeftText } from './commission';
 import { showDate, todayIso } from '../shared/dates';
-import { needsNote } from './commission-board';
 import { CommissionsApi } from './commissions-api';
 import { GarmentIntake } from './garment-intake';
 
@@ -143,7 +143,7 @@ export class CommissionPage {
   protected noteNeeded(): boolean {
     const c = this.commission();
     const to = this.stageForm.controls.to.value;
-    return !!c && !!to && needsNote(c.stage, to);
+    return !!c && !!to && moveNeedsNote(c.stage, to);
   }
 
   protected moveStage(): void {
