@@ -1,4 +1,5 @@
 import { ApiAgent, addUser, signedIn, startTestApp, type TestApp } from '../testing/test-app';
+import { ALL_STAGES } from '@keepstitch/shared';
 import { addCommission } from '../testing/fixtures';
 
 describe('commissions API', () => {
@@ -50,6 +51,19 @@ describe('commissions API', () => {
     expect(res.body.error.fields.deadline).toBe('That date does not exist.');
     const noClient = await owner.post('/api/commissions', { clientId: 999999, title: 'X', kind: 'cushion', ageGroup: 'adult' });
     expect(noClient.status).toBe(400);
+  });
+
+  it('sorts by stage in the workroom order of the stages, not by the alphabet', async () => {
+    const client = await addUser(t.knex, 'client');
+    // Inserted in an order that is neither the stages' order nor the alphabet's.
+    for (const stage of ['ready', 'cancelled', 'booked', 'cutting', 'enquiry', 'garments_in']) await addCommission(t.knex, client.clientId!, { stage });
+    const asc = await owner.get(`/api/commissions?clientId=${client.clientId}&sort=stage&dir=asc`);
+    expect(asc.status).toBe(200);
+    const order = asc.body.items.map((c: { stage: string }) => c.stage);
+    expect(order).toEqual(['enquiry', 'booked', 'garments_in', 'cutting', 'ready', 'cancelled']);
+    expect(order).toEqual([...order].sort((a, b) => ALL_STAGES.indexOf(a) - ALL_STAGES.indexOf(b)));
+    const desc = await owner.get(`/api/commissions?clientId=${client.clientId}&sort=stage&dir=desc`);
+    expect(desc.body.items.map((c: { stage: string }) => c.stage)).toEqual([...order].reverse());
   });
 
   it('moves through the stages by the rules and records each move', async () => {
