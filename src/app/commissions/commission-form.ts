@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -18,6 +18,7 @@ import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { lengthText, readingText, typedLength, unitForMillimetres } from '../shared/length-text';
+import { Loader } from '../shared/loader';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
 import { Commission, CommissionChanges, CommissionDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
@@ -66,7 +67,15 @@ export class CommissionForm {
   protected readonly clients = signal<ClientRow[] | null | undefined>(undefined);
   /** The commission being changed, as the server last sent it. */
   protected readonly original = signal<Commission | null>(null);
-  protected readonly editLoad = signal<'loading' | 'ready' | 'failed'>('loading');
+  /** The commission being edited (none for a new one, which loads the clients to choose from instead). */
+  private readonly editing = new Loader(
+    () => {
+      const id = this.id();
+      return id === undefined ? of(null) : this.api.get(Number(id));
+    },
+    { loaded: (c) => (c ? this.prefill(c) : this.loadClients()) },
+  );
+  protected readonly editLoad = this.editing.state;
   protected readonly isEdit = computed(() => this.id() !== undefined);
   protected readonly backLink = computed(() => (this.isEdit() ? ['/commissions', this.id()] : ['/commissions']));
 
@@ -104,10 +113,6 @@ export class CommissionForm {
       this.form.controls.width.updateValueAndValidity();
       this.form.controls.length.updateValueAndValidity();
     });
-    effect(() => {
-      const id = this.id();
-      untracked(() => (id === undefined ? this.loadClients() : this.loadCommission(Number(id))));
-    });
   }
 
   private loadClients(): void {
@@ -120,15 +125,8 @@ export class CommissionForm {
       .subscribe((items) => this.clients.set(items));
   }
 
-  protected loadCommission(id = Number(this.id())): void {
-    this.editLoad.set('loading');
-    this.api.get(id).subscribe({
-      next: (c) => {
-        this.prefill(c);
-        this.editLoad.set('ready');
-      },
-      error: () => this.editLoad.set('failed'),
-    });
+  protected loadCommission(): void {
+    this.editing.reload();
   }
 
   /** Fills the form from the commission, sizes written back as lengths in the unit they read best in. */

@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { AbstractControl, FormControl, FormGroup, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -20,7 +20,7 @@ import {
   moveNeedsNote,
 } from '@keepstitch/shared';
 
-import { apiErrorOf, messageFor } from '../core/api-error';
+import { messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
@@ -28,6 +28,7 @@ import { QuoteSection } from '../quotes/quote-section';
 import { CautionCards } from '../shared/caution-cards';
 import { showMillimetres } from '../shared/length-text';
 import { LoadStatus } from '../shared/load-status';
+import { Loader } from '../shared/loader';
 import { Photo } from '../shared/photo';
 import { PhotoGallery } from '../shared/photo-gallery';
 import { PhotoUpload } from '../shared/photo-upload';
@@ -35,8 +36,6 @@ import { CommissionDetail, daysLeftText } from './commission';
 import { showDate, todayIso } from '../shared/dates';
 import { CommissionsApi } from './commissions-api';
 import { GarmentIntake } from './garment-intake';
-
-type LoadState = 'loading' | 'ready' | 'missing' | 'failed';
 
 /** One commission: summary and cautions, garments, stage and its history, hours, progress photos. */
 @Component({
@@ -81,8 +80,14 @@ export class CommissionPage {
   protected readonly showMillimetres = showMillimetres;
   protected readonly garmentColumns = ['description', 'whose', 'fibre', 'status', 'place'];
 
-  protected readonly state = signal<LoadState>('loading');
-  protected readonly commission = signal<CommissionDetail | null>(null);
+  private readonly loader = new Loader(() => this.api.get(this.commissionId()), {
+    tellMissing: true,
+    loaded: (commission) => {
+      if (!this.hoursForm.dirty) this.hoursForm.controls.stage.setValue(commission.stage);
+    },
+  });
+  protected readonly state = this.loader.state;
+  protected readonly commission = this.loader.value;
   protected readonly intakeOpen = signal(false);
   protected readonly isStaff = computed(() => this.auth.role() === 'owner' || this.auth.role() === 'workroom');
   /** Prices and payments are the owner's alone. */
@@ -122,22 +127,10 @@ export class CommissionPage {
 
   constructor() {
     keepUnsavedWork(() => this.stageForm.dirty || this.hoursForm.dirty);
-    effect(() => {
-      const id = this.commissionId();
-      untracked(() => this.load(id));
-    });
   }
 
-  protected load(id = this.commissionId()): void {
-    if (!this.commission()) this.state.set('loading');
-    this.api.get(id).subscribe({
-      next: (commission) => {
-        this.commission.set(commission);
-        this.state.set('ready');
-        if (!this.hoursForm.dirty) this.hoursForm.controls.stage.setValue(commission.stage);
-      },
-      error: (error: unknown) => this.state.set(apiErrorOf(error)?.code === 'not_found' || (error as { status?: number }).status === 404 ? 'missing' : 'failed'),
-    });
+  protected load(): void {
+    this.loader.reload();
   }
 
   protected noteNeeded(): boolean {

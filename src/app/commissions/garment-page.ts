@@ -1,5 +1,5 @@
 import { DatePipe, NgTemplateOutlet } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -28,6 +28,7 @@ import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { LoadStatus } from '../shared/load-status';
+import { Loader } from '../shared/loader';
 import { Photo } from '../shared/photo';
 import { PhotoGallery } from '../shared/photo-gallery';
 import { PhotoUpload } from '../shared/photo-upload';
@@ -83,8 +84,14 @@ export class GarmentPage {
   protected readonly kinds = RECORDABLE.map((k) => ({ value: k, label: CUSTODY_LABELS[k] }));
 
   protected readonly isStaff = computed(() => this.auth.role() === 'owner' || this.auth.role() === 'workroom');
-  protected readonly garment = signal<GarmentDetail | null>(null);
-  protected readonly state = signal<'loading' | 'ready' | 'failed'>('loading');
+  private readonly loader = new Loader(() => this.api.garment(Number(this.garmentId())), {
+    // The form offers the usual next entry first (Stored once received...), unless one is being typed.
+    loaded: (garment) => {
+      if (this.eventForm.pristine) this.eventForm.controls.kind.setValue(likelyNextEvent(deriveCustody(garment.events ?? [])));
+    },
+  });
+  protected readonly garment = this.loader.value;
+  protected readonly state = this.loader.state;
   protected readonly editingDetails = signal(false);
   protected readonly photoUrl = computed(() => `/api/garments/${this.garmentId()}/photos`);
 
@@ -116,22 +123,10 @@ export class GarmentPage {
 
   constructor() {
     keepUnsavedWork(() => this.eventForm.dirty);
-    effect(() => {
-      const id = Number(this.garmentId());
-      untracked(() => this.load(id));
-    });
   }
 
-  protected load(id = Number(this.garmentId())): void {
-    this.api.garment(id).subscribe({
-      next: (garment) => {
-        this.garment.set(garment);
-        this.state.set('ready');
-        // The form offers the usual next entry first (Stored once received...), unless one is being typed.
-        if (this.eventForm.pristine) this.eventForm.controls.kind.setValue(likelyNextEvent(deriveCustody(garment.events ?? [])));
-      },
-      error: () => this.state.set('failed'),
-    });
+  protected load(): void {
+    this.loader.reload();
   }
 
   protected describe(event: CustodyEventRow): string {

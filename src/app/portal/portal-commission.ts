@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -17,6 +17,7 @@ import { keepUnsavedWork } from '../core/unsaved-work';
 import { ClientQuote } from '../quotes/client-quote';
 import { CautionCards } from '../shared/caution-cards';
 import { LoadStatus } from '../shared/load-status';
+import { Loader } from '../shared/loader';
 import { PhotoGallery } from '../shared/photo-gallery';
 import { PhotoUpload } from '../shared/photo-upload';
 import { applyServerFieldErrors } from '../shared/server-field-errors';
@@ -59,8 +60,9 @@ export class PortalCommission {
   protected readonly fibres = FIBRE.options;
   protected readonly showDate = showDate;
 
-  protected readonly commission = signal<CommissionDetail | null>(null);
-  protected readonly state = signal<'loading' | 'ready' | 'failed'>('loading');
+  private readonly loader = new Loader(() => this.api.get(Number(this.id())));
+  protected readonly commission = this.loader.value;
+  protected readonly state = this.loader.state;
   /** The quote part loads on its own; the page shows once it has, so nothing below it jumps down. */
   protected readonly quoteSettled = signal(false);
   protected readonly currentIndex = computed(() => {
@@ -88,20 +90,10 @@ export class PortalCommission {
 
   constructor() {
     keepUnsavedWork(() => this.formOpen() && !this.added() && this.form.dirty);
-    effect(() => {
-      const id = Number(this.id());
-      untracked(() => this.load(id));
-    });
   }
 
-  protected load(id = Number(this.id())): void {
-    this.api.get(id).subscribe({
-      next: (c) => {
-        this.commission.set(c);
-        this.state.set('ready');
-      },
-      error: () => this.state.set('failed'),
-    });
+  protected load(): void {
+    this.loader.reload();
   }
 
   protected garmentLine(g: CommissionDetail['garments'][number]): string {
