@@ -1,31 +1,18 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, output, signal } from '@angular/core';
-import { FormArray, FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormArray, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatStepperModule } from '@angular/material/stepper';
-import {
-  COLOUR_RUN,
-  CONSTRUCTION,
-  ColourRun,
-  Construction,
-  FIBRE,
-  GARMENT_TEXT_LIMITS,
-  Fibre,
-  PREWASH,
-  PRINT,
-  Prewash,
-  Print,
-} from '@keepstitch/shared';
+import { COLOUR_RUN, CONSTRUCTION, FIBRE, GARMENT_TEXT_LIMITS, PREWASH, PRINT } from '@keepstitch/shared';
 
-import { apiErrorOf, messageFor } from '../core/api-error';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { PhotoUpload } from '../shared/photo-upload';
-import { applyServerFieldErrors } from '../shared/server-field-errors';
-import { GarmentDetail, GarmentDraft, orNull } from './commission';
+import { GarmentDetail } from './commission';
 import { CommissionsApi } from './commissions-api';
+import { GarmentSave, garmentControls, garmentDraft, keptFeaturesFrom } from './garment-form';
 import { KeptFeatureForm } from './kept-feature-form';
 import { KeptFeaturesEditor } from './kept-features-editor';
 
@@ -64,26 +51,28 @@ export class GarmentIntake {
   protected readonly colourRuns = COLOUR_RUN.options;
   protected readonly limits = GARMENT_TEXT_LIMITS;
 
+  private readonly controls = garmentControls();
   protected readonly what = new FormGroup({
-    description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(GARMENT_TEXT_LIMITS.description)] }),
-    whose: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.whose)] }),
-    story: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.story)] }),
-    colour: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.colour)] }),
-    print: new FormControl<Print | null>(null),
+    description: this.controls.description,
+    whose: this.controls.whose,
+    story: this.controls.story,
+    colour: this.controls.colour,
+    print: this.controls.print,
   });
   protected readonly care = new FormGroup({
-    fibre: new FormControl<Fibre | null>(null),
-    construction: new FormControl<Construction | null>(null),
-    condition: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.condition)] }),
-    prewash: new FormControl<Prewash | null>(null),
-    colourRun: new FormControl<ColourRun | null>(null),
-    returnsToClient: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.returnsToClient)] }),
+    fibre: this.controls.fibre,
+    construction: this.controls.construction,
+    condition: this.controls.condition,
+    prewash: this.controls.prewash,
+    colourRun: this.controls.colourRun,
+    returnsToClient: this.controls.returnsToClient,
   });
   protected readonly features = new FormArray<KeptFeatureForm>([]);
 
-  protected readonly saving = signal(false);
+  private readonly save = new GarmentSave();
+  protected readonly saving = this.save.saving;
   protected readonly saved = signal<GarmentDetail | null>(null);
-  protected readonly error = signal<string | null>(null);
+  protected readonly error = this.save.error;
   protected readonly photoUrl = computed(() => {
     const garment = this.saved();
     return garment ? `/api/garments/${garment.id}/photos` : null;
@@ -103,36 +92,10 @@ export class GarmentIntake {
       this.error.set('Check the earlier steps: a description is needed, and every kept feature needs its place.');
       return;
     }
-    const w = this.what.getRawValue();
-    const c = this.care.getRawValue();
-    const draft: GarmentDraft = {
-      description: w.description.trim(),
-      whose: orNull(w.whose),
-      story: orNull(w.story),
-      colour: orNull(w.colour),
-      print: w.print,
-      fibre: c.fibre,
-      construction: c.construction,
-      condition: orNull(c.condition),
-      prewash: c.prewash,
-      colourRun: c.colourRun,
-      returnsToClient: orNull(c.returnsToClient),
-      features: this.features.getRawValue().map((f) => ({ kind: f.kind, position: f.position.trim() })),
-    };
-    this.saving.set(true);
-    this.error.set(null);
-    this.api.addGarment(this.commissionId(), draft).subscribe({
-      next: (garment) => {
-        this.saving.set(false);
-        this.saved.set(garment);
-        this.added.emit(garment);
-      },
-      error: (error: unknown) => {
-        this.saving.set(false);
-        applyServerFieldErrors(this.what, apiErrorOf(error)?.fields);
-        applyServerFieldErrors(this.care, apiErrorOf(error)?.fields);
-        this.error.set(messageFor(error));
-      },
+    const draft = garmentDraft({ ...this.what.getRawValue(), ...this.care.getRawValue() }, keptFeaturesFrom(this.features));
+    this.save.send(this.api.addGarment(this.commissionId(), draft), [this.what, this.care], (garment) => {
+      this.saved.set(garment);
+      this.added.emit(garment);
     });
   }
 }

@@ -1,17 +1,17 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { FIBRE, Fibre, GARMENT_STATUS_LABELS, GARMENT_TEXT_LIMITS, STAGES, STAGE_LABELS } from '@keepstitch/shared';
+import { FIBRE, GARMENT_STATUS_LABELS, GARMENT_TEXT_LIMITS, STAGES, STAGE_LABELS } from '@keepstitch/shared';
 
-import { CommissionDetail, GarmentDetail, orNull } from '../commissions/commission';
+import { CommissionDetail, GarmentDetail } from '../commissions/commission';
 import { showDate } from '../shared/dates';
 import { CommissionsApi } from '../commissions/commissions-api';
-import { apiErrorOf, messageFor } from '../core/api-error';
+import { GarmentSave, garmentDraft, someGarmentControls } from '../commissions/garment-form';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { ClientQuote } from '../quotes/client-quote';
@@ -20,7 +20,6 @@ import { LoadStatus } from '../shared/load-status';
 import { Loader } from '../shared/loader';
 import { PhotoGallery } from '../shared/photo-gallery';
 import { PhotoUpload } from '../shared/photo-upload';
-import { applyServerFieldErrors } from '../shared/server-field-errors';
 
 /** A client's view of one commission: where it is, its cautions, their garments and progress photos. */
 @Component({
@@ -71,20 +70,16 @@ export class PortalCommission {
   });
 
   protected readonly formOpen = signal(false);
-  protected readonly saving = signal(false);
-  protected readonly formError = signal<string | null>(null);
+  private readonly save = new GarmentSave();
+  protected readonly saving = this.save.saving;
+  protected readonly formError = this.save.error;
   protected readonly added = signal<GarmentDetail | null>(null);
   protected readonly photoUrl = computed(() => {
     const garment = this.added();
     return garment ? `/api/garments/${garment.id}/photos` : null;
   });
-  protected readonly form = new FormGroup({
-    description: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(GARMENT_TEXT_LIMITS.description)] }),
-    whose: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.whose)] }),
-    story: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.story)] }),
-    fibre: new FormControl<Fibre | null>(null),
-    colour: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(GARMENT_TEXT_LIMITS.colour)] }),
-  });
+  /** A client tells what it is, whose, its story, its fibre and colour; the studio adds the rest. */
+  protected readonly form = new FormGroup(someGarmentControls(['description', 'whose', 'story', 'fibre', 'colour']));
   /** The server's limits: the fields stop taking text there. */
   protected readonly limits = GARMENT_TEXT_LIMITS;
 
@@ -120,27 +115,9 @@ export class PortalCommission {
       this.form.markAllAsTouched();
       return;
     }
-    const v = this.form.getRawValue();
-    this.saving.set(true);
-    this.api
-      .addGarment(c.id, {
-        description: v.description.trim(),
-        whose: orNull(v.whose),
-        story: orNull(v.story),
-        fibre: v.fibre,
-        colour: orNull(v.colour),
-      })
-      .subscribe({
-        next: (garment) => {
-          this.saving.set(false);
-          this.added.set(garment);
-          this.notices.info(`“${garment.description}” added. Thank you!`);
-        },
-        error: (error: unknown) => {
-          this.saving.set(false);
-          applyServerFieldErrors(this.form, apiErrorOf(error)?.fields);
-          this.formError.set(messageFor(error));
-        },
-      });
+    this.save.send(this.api.addGarment(c.id, garmentDraft(this.form.getRawValue())), [this.form], (garment) => {
+      this.added.set(garment);
+      this.notices.info(`“${garment.description}” added. Thank you!`);
+    });
   }
 }
