@@ -83,27 +83,19 @@ export class ClientList implements AfterViewInit {
   /** The filter text of the last request sent (not what is being typed). */
   protected readonly appliedFilter = signal('');
 
-  protected readonly noClientsYet = computed(
-    () => !this.loading() && !this.failed() && this.total() === 0 && this.appliedFilter() === '',
-  );
-  protected readonly noMatches = computed(
-    () => !this.loading() && !this.failed() && this.total() === 0 && this.appliedFilter() !== '',
-  );
-  protected readonly status = computed(() => {
-    if (this.loading()) return 'Loading clients…';
-    if (this.failed()) return 'The clients could not be loaded.';
-    if (this.noClientsYet()) return 'No clients yet.';
-    if (this.noMatches()) return `No clients match “${this.appliedFilter()}”.`;
-    const total = this.total();
-    return total === 1 ? '1 client.' : `${total} clients.`;
-  });
+  protected readonly noClientsYet = this.page.nothingYet;
+  protected readonly noMatches = this.page.noMatches;
+  protected readonly status = this.page.status({ one: 'client', many: 'clients', noMatch: () => `No clients match “${this.appliedFilter()}”.` });
 
   ngAfterViewInit(): void {
     const filterChange = this.filter.valueChanges.pipe(
       debounceTime(this.filterDelay),
       map((text) => text.trim()),
       distinctUntilChanged(),
-      tap((text) => this.appliedFilter.set(text)),
+      tap((text) => {
+        this.appliedFilter.set(text);
+        this.page.filtered.set(text !== '');
+      }),
     );
     this.page.connect(
       this.sort(),

@@ -6,7 +6,6 @@ import {
   InjectionToken,
   computed,
   inject,
-  signal,
   viewChild,
 } from '@angular/core';
 import { FormControl, ReactiveFormsModule } from '@angular/forms';
@@ -84,22 +83,9 @@ export class CommissionList implements AfterViewInit {
   protected readonly total = this.page.total;
   protected readonly loading = this.page.loading;
   protected readonly failed = this.page.failed;
-  protected readonly filtered = signal(false);
-
-  protected readonly nothingYet = computed(
-    () => !this.loading() && !this.failed() && this.total() === 0 && !this.filtered(),
-  );
-  protected readonly noMatches = computed(
-    () => !this.loading() && !this.failed() && this.total() === 0 && this.filtered(),
-  );
-  protected readonly status = computed(() => {
-    if (this.loading()) return 'Loading commissions…';
-    if (this.failed()) return 'The commissions could not be loaded.';
-    if (this.nothingYet()) return 'No commissions yet.';
-    if (this.noMatches()) return 'No commissions match these filters.';
-    const total = this.total();
-    return total === 1 ? '1 commission.' : `${total} commissions.`;
-  });
+  protected readonly nothingYet = this.page.nothingYet;
+  protected readonly noMatches = this.page.noMatches;
+  protected readonly status = this.page.status({ one: 'commission', many: 'commissions', noMatch: () => 'No commissions match these filters.' });
 
   ngAfterViewInit(): void {
     const filterChange = merge(
@@ -115,7 +101,7 @@ export class CommissionList implements AfterViewInit {
         const q = this.filter.value.trim();
         const due = this.dueWithin.value;
         const dueWithinDays = due !== null && Number.isInteger(due) && due >= 0 ? due : null;
-        this.filtered.set(q !== '' || this.stages.value.length > 0 || dueWithinDays !== null);
+        this.page.filtered.set(q !== '' || this.stages.value.length > 0 || dueWithinDays !== null);
         return this.api.list({ page, pageSize, sort: sortFields.find((f) => f === sortBy) ?? 'deadline', dir, stages: this.stages.value, q, dueWithinDays });
       },
       this.destroyRef,

@@ -1,4 +1,4 @@
-import { DestroyRef, signal } from '@angular/core';
+import { DestroyRef, Signal, computed, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import type { MatPaginator } from '@angular/material/paginator';
 import type { MatSort } from '@angular/material/sort';
@@ -13,6 +13,16 @@ export interface PageRequest {
   dir: 'asc' | 'desc';
 }
 
+/** How a list names what it holds, for the sentence a screen reader hears as it changes. */
+export interface ListWords {
+  /** "client", "commission". */
+  one: string;
+  /** "clients", "commissions". */
+  many: string;
+  /** What to say when the filters match nothing ("No clients match “ann”."). */
+  noMatch: () => string;
+}
+
 /**
  * A table paged, sorted and filtered on the server: its rows, their total,
  * and whether a page is loading or could not be loaded. Connected once the
@@ -24,7 +34,25 @@ export class ServerPage<T> {
   readonly total = signal(0);
   readonly loading = signal(true);
   readonly failed = signal(false);
+  /** Whether the request in hand was narrowed by any of the list's filters (the list sets it as it asks). */
+  readonly filtered = signal(false);
+  /** Loaded, empty, and not because of a filter: the list has nothing yet. */
+  readonly nothingYet = computed(() => !this.loading() && !this.failed() && this.total() === 0 && !this.filtered());
+  /** Loaded, empty, because of the filters. */
+  readonly noMatches = computed(() => !this.loading() && !this.failed() && this.total() === 0 && this.filtered());
   private readonly retry = new Subject<void>();
+
+  /** Where the list stands, in one sentence: loading, could not be loaded, empty, no matches, or how many. */
+  status(words: ListWords): Signal<string> {
+    return computed(() => {
+      if (this.loading()) return `Loading ${words.many}…`;
+      if (this.failed()) return `The ${words.many} could not be loaded.`;
+      if (this.nothingYet()) return `No ${words.many} yet.`;
+      if (this.noMatches()) return words.noMatch();
+      const total = this.total();
+      return total === 1 ? `1 ${words.one}.` : `${total} ${words.many}.`;
+    });
+  }
 
   /**
    * @param filterChange emits when the list's own filters change (debounced by the caller).
