@@ -18,7 +18,8 @@ export const CUSTODY_LABELS: Readonly<Record<CustodyKind, string>> = {
   correction: 'Correction',
 };
 
-export type ReturnMethod = 'in_person' | 'post';
+export const RETURN_METHODS = ['in_person', 'post'] as const;
+export type ReturnMethod = (typeof RETURN_METHODS)[number];
 
 export interface CustodyEvent {
   id: number;
@@ -32,7 +33,8 @@ export interface CustodyEvent {
   correctsEventId?: number | null;
 }
 
-export type GarmentStatus = 'expected' | 'in_studio' | 'cut' | 'returned' | 'withdrawn';
+export const GARMENT_STATUSES = ['expected', 'in_studio', 'cut', 'returned', 'withdrawn'] as const;
+export type GarmentStatus = (typeof GARMENT_STATUSES)[number];
 
 export const GARMENT_STATUS_LABELS: Readonly<Record<GarmentStatus, string>> = {
   expected: 'Expected',

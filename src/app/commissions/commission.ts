@@ -1,25 +1,38 @@
 import {
+  AGE_GROUP,
   AgeGroup,
-  ColourRun,
+  ALL_STAGES,
+  COLOUR_RUN,
+  COMMISSION_KIND,
   CommissionKind,
+  CONSTRUCTION,
+  CUSTODY_KINDS,
+  ColourRun,
   Construction,
   CustodyKind,
-  FeatureKind,
+  FEATURE,
+  FIBRE,
   Fibre,
+  GARMENT_STATUSES,
+  GRAIN,
   GarmentStatus,
   Grain,
   LengthUnit,
+  PREWASH,
+  PRINT,
   Prewash,
   Print,
+  RETURN_METHODS,
   ReturnMethod,
   Stage,
-  isStage,
 } from '@keepstitch/shared';
 import * as z from 'zod/mini';
 
 import { photoSchema } from '../shared/photo';
 
-const stage = z.custom<Stage>(isStage);
+const stage = z.enum(ALL_STAGES);
+/** One of a vocabulary's stored values, or none. */
+const maybe = <T extends string>(values: readonly [T, ...T[]]) => z.optional(z.nullable(z.enum(values)));
 const text = z.optional(z.nullable(z.string()));
 
 /** A row of the commission list (and the head of a commission page). */
@@ -28,9 +41,9 @@ export const commissionSchema = z.object({
   clientId: z.number(),
   client: z.optional(z.nullable(z.object({ id: z.number(), name: z.string() }))),
   title: z.string(),
-  kind: z.custom<CommissionKind>((v) => typeof v === 'string'),
+  kind: z.enum(COMMISSION_KIND.values),
   recipient: text,
-  ageGroup: z.custom<AgeGroup>((v) => typeof v === 'string'),
+  ageGroup: z.enum(AGE_GROUP.values),
   occasion: text,
   sizePreset: text,
   widthMm: text,
@@ -49,7 +62,7 @@ export type Commission = z.infer<typeof commissionSchema>;
 export const commissionPageSchema = z.object({ items: z.array(commissionSchema), total: z.number() });
 export type CommissionPage = z.infer<typeof commissionPageSchema>;
 
-const featureSchema = z.object({ kind: z.custom<FeatureKind>((v) => typeof v === 'string'), position: z.string() });
+const featureSchema = z.object({ kind: z.enum(FEATURE.values), position: z.string() });
 export type Feature = z.infer<typeof featureSchema>;
 
 /** A kept feature on a panel: its top-left corner from the panel's top-left, and its size, exact mm. */
@@ -67,7 +80,7 @@ export const panelSchema = z.object({
   name: z.string(),
   widthMm: z.string(),
   heightMm: z.string(),
-  grain: z.optional(z.nullable(z.custom<Grain>((v) => typeof v === 'string'))),
+  grain: maybe(GRAIN.values),
   features: z.optional(z.array(panelFeatureSchema)),
 });
 export type Panel = z.infer<typeof panelSchema>;
@@ -78,12 +91,12 @@ export const garmentSchema = z.object({
   description: z.string(),
   whose: text,
   story: text,
-  fibre: z.optional(z.nullable(z.custom<Fibre>((v) => typeof v === 'string'))),
-  construction: z.optional(z.nullable(z.custom<Construction>((v) => typeof v === 'string'))),
+  fibre: maybe(FIBRE.values),
+  construction: maybe(CONSTRUCTION.values),
   colour: text,
-  print: z.optional(z.nullable(z.custom<Print>((v) => typeof v === 'string'))),
+  print: maybe(PRINT.values),
   features: z.optional(z.nullable(z.array(featureSchema))),
-  status: z.optional(z.custom<GarmentStatus>((v) => typeof v === 'string')),
+  status: z.optional(z.enum(GARMENT_STATUSES)),
   received: z.optional(z.boolean()),
   washed: z.optional(z.boolean()),
   place: text,
@@ -91,18 +104,18 @@ export const garmentSchema = z.object({
   panels: z.optional(z.array(panelSchema)),
   photos: z.optional(z.array(photoSchema)),
   condition: text,
-  prewash: z.optional(z.nullable(z.custom<Prewash>((v) => typeof v === 'string'))),
-  colourRun: z.optional(z.nullable(z.custom<ColourRun>((v) => typeof v === 'string'))),
+  prewash: maybe(PREWASH.values),
+  colourRun: maybe(COLOUR_RUN.values),
   returnsToClient: text,
 });
 export type Garment = z.infer<typeof garmentSchema>;
 
 export const custodyEventSchema = z.object({
   id: z.number(),
-  kind: z.custom<CustodyKind>((v) => typeof v === 'string'),
+  kind: z.enum(CUSTODY_KINDS),
   at: z.string(),
   place: text,
-  returnMethod: z.optional(z.nullable(z.custom<ReturnMethod>((v) => typeof v === 'string'))),
+  returnMethod: maybe(RETURN_METHODS),
   trackingRef: text,
   note: text,
   correctsEventId: z.optional(z.nullable(z.number())),

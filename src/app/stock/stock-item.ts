@@ -1,4 +1,4 @@
-import { Fibre } from '@keepstitch/shared';
+import { FIBRE, Fibre } from '@keepstitch/shared';
 import * as z from 'zod/mini';
 
 const text = z.optional(z.nullable(z.string()));
@@ -8,7 +8,7 @@ export const stockItemSchema = z.object({
   id: z.number(),
   name: z.string(),
   colour: text,
-  fibre: z.optional(z.nullable(z.custom<Fibre>((v) => typeof v === 'string'))),
+  fibre: z.optional(z.nullable(z.enum(FIBRE.values))),
   widthMm: z.string(),
   lengthMm: z.string(),
   costPence: z.optional(z.nullable(z.number())),
