@@ -68,18 +68,6 @@ export interface KeptFeature {
   position: string;
 }
 
-/** The longest text the server keeps in each of a garment's text fields, the same for the forms and the server. */
-export const GARMENT_TEXT_LIMITS = { description: 300, whose: 200, story: 5000, colour: 100, condition: 2000, returnsToClient: 1000 } as const;
-
-/** Limits on a garment's kept features, the same for the forms and the server: characters of a position, features a garment. */
-export const KEPT_FEATURE_LIMITS = { position: 200, features: 20 } as const;
-
-/** The longest text of a commission's notes, a stage move's note and an hours entry's note, the same for the forms and the server. */
-export const COMMISSION_TEXT_LIMITS = { notes: 5000, moveNote: 1000, hoursNote: 1000 } as const;
-
-/** The longest text of a custody entry, the same for the forms and the server: where it is kept, a tracking reference, a note. */
-export const CUSTODY_TEXT_LIMITS = { place: 60, trackingRef: 60, note: 1000 } as const;
-
 /** A fibre's name on a card or label; a garment not yet identified reads "Fibre not known". */
 export function fibreName(fibre: string): string {
   return fibre === 'unknown' ? 'Fibre not known' : ((FIBRE.labels as Record<string, string>)[fibre] ?? fibre);

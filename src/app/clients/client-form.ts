@@ -18,6 +18,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { Router, RouterLink } from '@angular/router';
+import { CLIENT_TEXT_LIMITS } from '@keepstitch/shared';
 import { filter, switchMap, tap } from 'rxjs';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
@@ -28,13 +29,7 @@ import { Client, ClientDraft } from './client';
 import { ClientsApi } from './clients-api';
 import { DeleteClientDialog, DeleteClientDialogData } from './delete-client-dialog';
 
-export const clientLimits = {
-  name: 200,
-  email: 254,
-  phone: 40,
-  address: 1000,
-  notes: 5000,
-} as const;
+export const clientLimits = CLIENT_TEXT_LIMITS;
 
 /** Optional text: trimmed, and sent as null when left empty. */
 function optionalText(value: string): string | null {

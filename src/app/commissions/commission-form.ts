@@ -82,14 +82,15 @@ export class CommissionForm {
   private readonly unitOf = () => this.form.controls.unit.value;
   /** The server's limit on notes; the field stops taking text there, as the shorter fields do at theirs. */
   protected readonly notesLimit = COMMISSION_TEXT_LIMITS.notes;
+  protected readonly limits = COMMISSION_TEXT_LIMITS;
   protected readonly form = new FormGroup({
     clientId: new FormControl<number | null>(null, [Validators.required]),
-    title: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),
+    title: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(COMMISSION_TEXT_LIMITS.title)] }),
     kind: new FormControl<CommissionKind>('memory_quilt', { nonNullable: true }),
-    recipient: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(200)] }),
+    recipient: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(COMMISSION_TEXT_LIMITS.recipient)] }),
     ageGroup: new FormControl<AgeGroup>('adult', { nonNullable: true }),
-    occasion: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(200)] }),
-    sizePreset: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(60)] }),
+    occasion: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(COMMISSION_TEXT_LIMITS.occasion)] }),
+    sizePreset: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(COMMISSION_TEXT_LIMITS.sizePreset)] }),
     width: new FormControl('', { nonNullable: true, validators: [lengthText(this.unitOf)] }),
     length: new FormControl('', { nonNullable: true, validators: [lengthText(this.unitOf)] }),
     unit: new FormControl<'in' | 'cm'>('in', { nonNullable: true }),

@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { GRAIN, Grain, Length, LengthUnit, formatInches } from '@keepstitch/shared';
+import { GRAIN, Grain, Length, LengthUnit, PANEL_TEXT_LIMITS, formatInches } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
@@ -117,7 +117,7 @@ export class PanelsEditor {
     const unit = () => this.unit.value;
     const asTyped = (mm: string) => formatInches(Length.millimetres(mm), 'nearest', ' in');
     const form: PanelForm = new FormGroup({
-      name: new FormControl(panel?.name ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(60)] }),
+      name: new FormControl(panel?.name ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(PANEL_TEXT_LIMITS.name)] }),
       width: new FormControl(panel ? asTyped(panel.widthMm) : '', { nonNullable: true, validators: [lengthText(unit, true)] }),
       height: new FormControl(panel ? asTyped(panel.heightMm) : '', { nonNullable: true, validators: [lengthText(unit, true)] }),
       grain: new FormControl<Grain>(panel?.grain ?? 'vertical', { nonNullable: true }),
@@ -132,7 +132,7 @@ export class PanelsEditor {
     const length = (mm: string | undefined, allowZero: boolean) =>
       new FormControl(mm !== undefined ? asTyped(mm) : '', { nonNullable: true, validators: [lengthText(unit, true, { allowZero })] });
     const form: FeatureForm = new FormGroup({
-      name: new FormControl(feature?.name ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(60)] }),
+      name: new FormControl(feature?.name ?? '', { nonNullable: true, validators: [Validators.required, Validators.maxLength(PANEL_TEXT_LIMITS.featureName)] }),
       x: length(feature?.xMm, true),
       y: length(feature?.yMm, true),
       width: length(feature?.widthMm, false),

@@ -6,7 +6,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
-import { DesignDerivation, Length, formatLength } from '@keepstitch/shared';
+import { DESIGN_TEXT_LIMITS, DesignDerivation, Length, formatLength } from '@keepstitch/shared';
 
 import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
@@ -81,7 +81,7 @@ export class DesignReview {
     return `${both(d.finished.widthMm)} × ${both(d.finished.lengthMm)}`;
   });
   protected readonly swatch = swatchOf;
-  protected readonly form = new FormGroup({ note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }) });
+  protected readonly form = new FormGroup({ note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(DESIGN_TEXT_LIMITS.responseNote)] }) });
 
   constructor() {
     effect(() => this.load(this.commissionId()));

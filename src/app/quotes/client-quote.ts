@@ -19,7 +19,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { formatPounds } from '@keepstitch/shared';
+import { QUOTE_TEXT_LIMITS, formatPounds } from '@keepstitch/shared';
 import { forkJoin } from 'rxjs';
 
 import { showDate, showDateTime } from '../shared/dates';
@@ -93,10 +93,10 @@ export class ClientQuote {
   protected readonly paying = signal<'deposit' | 'balance'>('deposit');
 
   protected readonly acceptForm = new FormGroup({
-    name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.minLength(2), Validators.maxLength(200)] }),
+    name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.minLength(2), Validators.maxLength(QUOTE_TEXT_LIMITS.acceptName)] }),
   });
   protected readonly declineForm = new FormGroup({
-    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
+    note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(QUOTE_TEXT_LIMITS.declineNote)] }),
   });
   protected readonly name = this.acceptForm.controls.name;
   protected readonly note = this.declineForm.controls.note;

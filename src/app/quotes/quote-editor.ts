@@ -8,7 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { formatPounds, parsePounds, quoteTotals } from '@keepstitch/shared';
+import { QUOTE_TEXT_LIMITS, formatPounds, parsePounds, quoteTotals } from '@keepstitch/shared';
 import Decimal from 'decimal.js';
 import { Observable, filter, of, switchMap } from 'rxjs';
 
@@ -85,7 +85,7 @@ export class QuoteEditor {
   protected readonly kindLabels = LINE_KIND_LABELS;
 
   protected readonly form = new FormGroup({
-    intro: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
+    intro: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(QUOTE_TEXT_LIMITS.intro)] }),
     depositPercent: new FormControl<number | null>(null, [Validators.required, Validators.min(0), Validators.max(100)]),
     lines: new FormArray<LineForm>([]),
   });
@@ -271,9 +271,9 @@ export class QuoteEditor {
   private lineForm(line: Pick<QuoteLine, 'kind' | 'description' | 'quantity' | 'unit' | 'unitPricePence' | 'stage'>, blankPrice: boolean): LineForm {
     const group: LineForm = new FormGroup({
       kind: new FormControl<LineKind>(line.kind, { nonNullable: true }),
-      description: new FormControl(line.description, { nonNullable: true, validators: [Validators.required, Validators.maxLength(300)] }),
+      description: new FormControl(line.description, { nonNullable: true, validators: [Validators.required, Validators.maxLength(QUOTE_TEXT_LIMITS.lineDescription)] }),
       quantity: new FormControl(line.quantity, { nonNullable: true, validators: [Validators.required, quantityText] }),
-      unit: new FormControl(line.unit, { nonNullable: true, validators: [Validators.maxLength(20)] }),
+      unit: new FormControl(line.unit, { nonNullable: true, validators: [Validators.maxLength(QUOTE_TEXT_LIMITS.lineUnit)] }),
       unitPrice: new FormControl(blankPrice ? '' : poundsText(line.unitPricePence), { nonNullable: true, validators: [Validators.required, priceForKind] }),
       stage: new FormControl<string | null>(line.stage ?? null, { nonNullable: true }),
     });

@@ -7,7 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
-import { formatPounds, parsePounds } from '@keepstitch/shared';
+import { SETTINGS_TEXT_LIMITS, formatPounds, parsePounds } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
@@ -69,18 +69,18 @@ export class SettingsPage {
   protected readonly formError = signal<string | null>(null);
 
   protected readonly form = new FormGroup({
-    studioName: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),
-    makerName: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(200)] }),
-    address: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(1000)] }),
-    email: new FormControl('', { nonNullable: true, validators: [Validators.email, Validators.maxLength(254)] }),
+    studioName: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(SETTINGS_TEXT_LIMITS.studioName)] }),
+    makerName: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(SETTINGS_TEXT_LIMITS.makerName)] }),
+    address: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(SETTINGS_TEXT_LIMITS.address)] }),
+    email: new FormControl('', { nonNullable: true, validators: [Validators.email, Validators.maxLength(SETTINGS_TEXT_LIMITS.email)] }),
     hourlyRate: new FormControl('', { nonNullable: true, validators: [Validators.required, poundsAmount] }),
     vatRegistered: new FormControl(false, { nonNullable: true }),
     vatRate: new FormControl<VatRate>('20', { nonNullable: true }),
     vatMode: new FormControl<VatMode>('line', { nonNullable: true }),
-    vatNumber: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(20)] }),
+    vatNumber: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(SETTINGS_TEXT_LIMITS.vatNumber)] }),
     depositPercent: new FormControl<number | null>(30, [Validators.required, Validators.min(0), Validators.max(100)]),
     validityDays: new FormControl<number | null>(30, [Validators.required, Validators.min(1), Validators.max(365), wholeNumber]),
-    paymentTerms: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(2000)] }),
+    paymentTerms: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(SETTINGS_TEXT_LIMITS.paymentTerms)] }),
     blockMinutes: new FormGroup(
       Object.fromEntries(BLOCK_KINDS.map((kind) => [kind, minutesControl()])) as Record<BlockKind, FormControl<number | null>>,
     ),

@@ -8,7 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
-import { FIBRE, Fibre, Length, formatFabricLength } from '@keepstitch/shared';
+import { FIBRE, Fibre, Length, STOCK_TEXT_LIMITS, formatFabricLength } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
@@ -76,7 +76,7 @@ export class StockList {
 
   private readonly unitOf = () => this.form.controls.unit.value;
   protected readonly form = new FormGroup({
-    name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(120)] }),
+    name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(STOCK_TEXT_LIMITS.name)] }),
     colour: new FormControl('', { nonNullable: true }),
     fibre: new FormControl<Fibre | null>(null),
     width: new FormControl('', { nonNullable: true, validators: [lengthText(this.unitOf, true)] }),

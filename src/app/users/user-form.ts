@@ -9,6 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
+import { USER_TEXT_LIMITS } from '@keepstitch/shared';
 import { catchError, map, of, startWith } from 'rxjs';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
@@ -44,7 +45,7 @@ export class UserForm {
 
   protected readonly minLength = minPasswordLength;
   protected readonly form = new FormGroup({
-    name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(200)] }),
+    name: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(USER_TEXT_LIMITS.name)] }),
     email: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.email] }),
     role: new FormControl<NewRole>('workroom', { nonNullable: true }),
     clientId: new FormControl<number | null>({ value: null, disabled: true }, [Validators.required]),
