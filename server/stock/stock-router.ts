@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { FIBRE } from '@keepstitch/shared';
 import { AppError } from '../core/app-error';
+import { present, sortFor } from '../core/field-policy';
 import { securedRouter } from '../core/secured-router';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 import { optionalText, parseId, parseInput } from '../core/validate';
@@ -38,22 +39,18 @@ export const updateStockSchema = z
   .transform(sized);
 
 /** Workroom assistants see the stock for cutting, but not what it cost. */
-function view(f: StockFabricModel, user: Express.User) {
-  if (user.role === 'owner') return f;
-  const { costPence: _cost, costUnit: _unit, supplier: _supplier, ...rest } = f;
-  return rest;
-}
+const view = (f: StockFabricModel, user: Express.User) => present('stock', user.role, f.toJSON());
 
 export function stockRouter() {
   const r = securedRouter('/api/stock');
 
   r.get('/', async (req, res) => {
-    const items = await StockFabricModel.query().orderByRaw('lower(name)').orderBy('id');
+    const items = await StockFabricModel.query().orderByRaw(`lower(${sortFor('stock', req.user!.role, 'name', 'name')})`).orderBy('id');
     res.json({ items: items.map((f) => view(f, req.user!)) });
   });
   r.post('/', async (req, res) => {
     const input = parseInput(createStockSchema, req.body, 'fabric');
-    res.status(201).json(await StockFabricModel.query().insertAndFetch(input as Partial<StockFabricModel>));
+    res.status(201).json(view(await StockFabricModel.query().insertAndFetch(input as Partial<StockFabricModel>), req.user!));
   });
   r.patch('/:id', async (req, res) => {
     const id = parseId(req.params['id'], 'That fabric');
@@ -61,7 +58,7 @@ export function stockRouter() {
     if (Object.keys(input).length === 0) throw new AppError(400, 'validation', 'Send at least one field to change.');
     const fabric = await StockFabricModel.query().patchAndFetchById(id, input as Partial<StockFabricModel>);
     if (!fabric) throw AppError.notFound('That fabric');
-    res.json(fabric);
+    res.json(view(fabric, req.user!));
   });
   r.delete('/:id', async (req, res) => {
     const count = await StockFabricModel.query().deleteById(parseId(req.params['id'], 'That fabric'));
