@@ -186,10 +186,10 @@ export const FIELD_POLICY = {
     table: 'stock_fabrics',
     fields: {
       id: { see: ALL },
-      /** A client reads the names of studio fabrics in its design and on its care card. */
+      /** A client reads the names of studio fabrics in its design, and their fibres on its care card. */
       name: { see: ALL, sort: STUDIO },
       colour: { see: STUDIO },
-      fibre: { see: STUDIO },
+      fibre: { see: ALL },
       widthMm: { see: STUDIO },
       lengthMm: { see: STUDIO },
       /** What it cost and where from: the owner only. */
