@@ -13,19 +13,6 @@ export class ClientModel extends Model {
   createdAt!: Date;
   updatedAt!: Date;
 
-  /** Columns a workroom assistant may see: names only, no contact details. */
-  static readonly workroomColumns = ['id', 'name'] as const;
-
-  static override get modifiers() {
-    return {
-      /** Case-insensitive text search over name, e-mail and phone. */
-      matching(query: import('objection').QueryBuilder<ClientModel>, text: string) {
-        const like = `%${text.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
-        query.where((q) => q.whereILike('name', like).orWhereILike('email', like).orWhereILike('phone', like));
-      },
-    };
-  }
-
   override $beforeUpdate(): void {
     this.updatedAt = new Date();
   }

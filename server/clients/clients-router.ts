@@ -13,7 +13,7 @@ export function clientsRouter() {
 
   r.post('/', async (req, res) => {
     const input = parseInput(createClientSchema, req.body, 'client');
-    res.status(201).json(await clients.createClient(input));
+    res.status(201).json(await clients.createClient(req.user!, input));
   });
 
   r.get('/:id', async (req, res) => {
@@ -23,7 +23,7 @@ export function clientsRouter() {
   r.patch('/:id', async (req, res) => {
     const id = parseId(req.params['id'], 'That client');
     const input = parseInput(updateClientSchema, req.body, 'client');
-    res.json(await clients.updateClient(id, input));
+    res.json(await clients.updateClient(req.user!, id, input));
   });
 
   r.delete('/:id', async (req, res) => {

@@ -1,4 +1,5 @@
 import { AppError } from '../core/app-error';
+import { fieldsFor, present, sortFor, whereMatches } from '../core/field-policy';
 import { pageOf } from '../core/paging';
 import { UserModel } from '../users/user-model';
 import { ClientModel } from './client-model';
@@ -8,37 +9,37 @@ const NOT_FOUND = 'That client';
 
 /** Starts a query over the clients this user may see, with the columns their role may see. */
 function visibleClients(user: Express.User) {
-  const query = ClientModel.query();
-  if (user.role === 'workroom') query.select(...ClientModel.workroomColumns);
+  const query = ClientModel.query().select(fieldsFor('client', user.role, 'see').map((f) => `clients.${f}`));
   if (user.role === 'client') query.where('id', user.clientId ?? -1);
   return query;
 }
 
+/** A client as this user may see it. */
+export const clientView = (c: ClientModel, user: Express.User) => present('client', user.role, c.toJSON());
+
 export async function listClients(user: Express.User, q: ListClientsQuery) {
   const query = visibleClients(user);
-  if (q.q) query.modify('matching', q.q);
-  // Workroom users see names only, so they may only sort by name.
-  const sort = user.role === 'workroom' ? 'name' : q.sort;
+  if (q.q) whereMatches(query, [['client', 'clients']], user.role, q.q);
+  const sort = sortFor('client', user.role, q.sort, 'name');
   const column = sort === 'name' ? ClientModel.raw('lower(name)') : sort;
-  if (!query.hasSelects()) query.select('clients.*');
   const { results, total } = await pageOf(query.orderBy(column as string, q.dir).orderBy('id', q.dir), q.page, q.pageSize);
-  return { items: results, total };
+  return { items: results.map((c) => clientView(c, user)), total };
 }
 
 export async function getClient(user: Express.User, id: number) {
   const client = await visibleClients(user).findById(id);
   if (!client) throw AppError.notFound(NOT_FOUND);
-  return client;
+  return clientView(client, user);
 }
 
-export function createClient(input: CreateClientInput) {
-  return ClientModel.query().insertAndFetch({ ...input, portfolioConsent: input.portfolioConsent ?? false });
+export async function createClient(user: Express.User, input: CreateClientInput) {
+  return clientView(await ClientModel.query().insertAndFetch({ ...input, portfolioConsent: input.portfolioConsent ?? false }), user);
 }
 
-export async function updateClient(id: number, input: UpdateClientInput) {
+export async function updateClient(user: Express.User, id: number, input: UpdateClientInput) {
   const client = await ClientModel.query().patchAndFetchById(id, input);
   if (!client) throw AppError.notFound(NOT_FOUND);
-  return client;
+  return clientView(client, user);
 }
 
 /** Deletes a client and their portal sign-in; records of work attached to them keep it from going. */

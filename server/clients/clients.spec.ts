@@ -109,6 +109,20 @@ describe('clients API', () => {
     expect(one.body).toEqual({ id: clientAId, name: 'Alma Rowntree' });
   });
 
+  it('never shows a client the studio\u2019s notes about them', async () => {
+    await t.knex('clients').where('id', clientAId).update({ notes: 'For the studio only: slow to reply.' });
+    const list = await clientA.get('/api/clients');
+    const one = await clientA.get(`/api/clients/${clientAId}`);
+    expect(list.body.items[0]).not.toHaveProperty('notes');
+    expect(one.body).not.toHaveProperty('notes');
+    expect((await owner.get(`/api/clients/${clientAId}`)).body.notes).toBe('For the studio only: slow to reply.');
+  });
+
+  it('does not let the workroom find clients by the e-mail or phone it may not see', async () => {
+    for (const q of ['alma@', 'post.test', '900001']) expect((await workroom.get(`/api/clients?q=${encodeURIComponent(q)}`)).body.total).toBe(0);
+    expect((await owner.get('/api/clients?q=alma%40')).body.total).toBe(1);
+  });
+
   it('shows a client only their own record', async () => {
     const list = await clientA.get('/api/clients');
     expect(list.body.total).toBe(1);

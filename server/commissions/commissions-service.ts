@@ -1,6 +1,7 @@
 import { ALL_STAGES, cautionsFor, checkStageMove, featuresToRemove, moveNeedsNote, nextStages, type Stage, type StageFacts } from '@keepstitch/shared';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
+import { mayUse, present, sortFor, whereMatches } from '../core/field-policy';
 import { pageOf } from '../core/paging';
 import { readTogether } from '../core/read-together';
 import { daysBetween, today } from '../core/calendar';
@@ -22,7 +23,7 @@ const NOT_FOUND = 'That commission';
 function shape(c: CommissionModel, user: Express.User) {
   const open = c.stage !== 'delivered' && c.stage !== 'cancelled';
   const daysLeft = c.deadline ? daysBetween(today(), c.deadline) : null;
-  const base = {
+  return present('commission', user.role, {
     id: c.id,
     clientId: c.clientId,
     client: c.client ? { id: c.client.id, name: c.client.name } : undefined,
@@ -37,12 +38,12 @@ function shape(c: CommissionModel, user: Express.User) {
     deadline: c.deadline,
     daysLeft,
     overdue: open && daysLeft !== null && daysLeft < 0,
-    notes: user.role === 'client' ? undefined : c.notes,
+    notes: c.notes,
     stage: c.stage,
     createdAt: c.createdAt,
     updatedAt: c.updatedAt,
-  };
-  return user.role === 'workroom' ? base : { ...base, budgetPence: c.budgetPence };
+    budgetPence: c.budgetPence,
+  });
 }
 
 export async function listCommissions(user: Express.User, q: ListCommissionsQuery) {
@@ -50,20 +51,19 @@ export async function listCommissions(user: Express.User, q: ListCommissionsQuer
     .modify('visibleTo', user)
     .join('clients as client', 'client.id', 'commissions.clientId')
     .select('commissions.*', 'client.name as clientName');
-  if (q.stage?.length) query.whereIn('commissions.stage', q.stage);
-  if (q.clientId) query.where('commissions.clientId', q.clientId);
-  if (q.dueWithinDays !== undefined) {
+  const may = (field: string) => mayUse('commission', user.role, 'filter', field);
+  if (q.stage?.length && may('stage')) query.whereIn('commissions.stage', q.stage);
+  if (q.clientId && may('clientId')) query.where('commissions.clientId', q.clientId);
+  if (q.dueWithinDays !== undefined && may('deadline')) {
     query
       .whereNotNull('commissions.deadline')
       .whereRaw('commissions.deadline <= ?::date + ?::int', [today(), q.dueWithinDays])
       .whereNotIn('commissions.stage', ['delivered', 'cancelled']);
   }
-  if (q.q) {
-    const like = `%${q.q.replace(/[\\%_]/g, (c) => '\\' + c)}%`;
-    query.where((b) => b.whereILike('commissions.title', like).orWhereILike('client.name', like));
-  }
-  const column = { deadline: 'commissions.deadline', createdAt: 'commissions.createdAt', title: 'commissions.title', stage: 'commissions.stage' }[q.sort];
-  if (q.sort === 'stage') {
+  if (q.q) whereMatches(query, [['commission', 'commissions'], ['client', 'client']], user.role, q.q);
+  const sort = sortFor('commission', user.role, q.sort, 'deadline');
+  const column = { deadline: 'commissions.deadline', createdAt: 'commissions.createdAt', title: 'commissions.title', stage: 'commissions.stage' }[sort];
+  if (sort === 'stage') {
     // The stages' own order (shared with the app), not the alphabet.
     query.orderByRaw(`array_position(?::text[], commissions.stage::text) ${q.dir}`, [ALL_STAGES]);
   } else {
@@ -139,7 +139,7 @@ export async function getCommission(user: Express.User, id: number) {
   const facts = factsFrom(states, money);
   const garmentViews = garments.map((g) => {
     const custody = states.get(g.id)!;
-    return {
+    return present('garment', user.role, {
       ...garmentView(g, user),
       status: custody.state.status,
       received: custody.state.received,
@@ -148,9 +148,9 @@ export async function getCommission(user: Express.User, id: number) {
       removeForSafety: featuresToRemove(c.ageGroup, g.features),
       panels: staff ? (panelsOf.get(g.id) ?? []) : undefined,
       photos: (photosOf.get(g.id) ?? []).map((p) => p.toPublic()),
-    };
+    });
   });
-  return {
+  return present('commission', user.role, {
     ...shape(c, user),
     cautions: cautionsFor(c.ageGroup),
     garments: garmentViews,
@@ -159,7 +159,7 @@ export async function getCommission(user: Express.User, id: number) {
     hours,
     nextStages: staff ? nextStages(c.stage, facts) : undefined,
     facts,
-  };
+  });
 }
 
 /** The hours logged on a commission, with who logged them, in the order worked. */
@@ -185,21 +185,7 @@ function hoursFrom(rows: HoursModel[]) {
 
 /** The fields of a garment each role may see (a client sees its own words and the basics). */
 export function garmentView(g: GarmentModel, user: Express.User) {
-  const base = {
-    id: g.id,
-    commissionId: g.commissionId,
-    description: g.description,
-    whose: g.whose,
-    story: g.story,
-    fibre: g.fibre,
-    construction: g.construction,
-    colour: g.colour,
-    print: g.print,
-    features: g.features,
-    createdAt: g.createdAt,
-  };
-  if (user.role === 'client') return base;
-  return { ...base, condition: g.condition, prewash: g.prewash, colourRun: g.colourRun, returnsToClient: g.returnsToClient, updatedAt: g.updatedAt };
+  return present('garment', user.role, g.toJSON() as Omit<GarmentModel, keyof import('objection').Model>);
 }
 
 export async function createCommission(user: Express.User, input: CreateCommissionInput) {

@@ -17,6 +17,8 @@ import {
   type FibreGroup,
 } from '@keepstitch/shared';
 import { AppError } from '../core/app-error';
+import { present } from '../core/field-policy';
+import type { Role } from '../core/roles';
 import { findVisibleCommission } from '../commissions/commissions-service';
 import { CommissionModel } from '../commissions/commission-model';
 import { GarmentModel, PanelModel } from '../garments/garment-model';
@@ -121,12 +123,12 @@ async function staffCommission(user: Express.User, id: number) {
   return c;
 }
 
-function commissionView(c: CommissionModel) {
-  return { id: c.id, title: c.title, kind: c.kind, ageGroup: c.ageGroup, sizePreset: c.sizePreset, widthMm: c.widthMm, lengthMm: c.lengthMm, stage: c.stage };
+function commissionView(c: CommissionModel, role: Role) {
+  return present('commission', role, { id: c.id, title: c.title, kind: c.kind, ageGroup: c.ageGroup, sizePreset: c.sizePreset, widthMm: c.widthMm, lengthMm: c.lengthMm, stage: c.stage });
 }
 
-function versionView(v: DesignVersionModel, sources: DesignSources) {
-  return {
+function versionView(v: DesignVersionModel, sources: DesignSources, role: Role) {
+  return present('designVersion', role, {
     id: v.id,
     version: v.version,
     body: v.body,
@@ -138,7 +140,7 @@ function versionView(v: DesignVersionModel, sources: DesignSources) {
     clientResponse: v.clientResponse,
     clientNote: v.clientNote,
     respondedAt: v.respondedAt,
-  };
+  });
 }
 
 export async function latestVersion(commissionId: number) {
@@ -154,13 +156,14 @@ export async function getDesign(user: Express.User, commissionId: number) {
     .where('commissionId', c.id)
     .orderBy('version', 'desc');
   const latest = versions.length ? await DesignVersionModel.query().findById(versions[0]!.id) : undefined;
+  const role = user.role;
   return {
-    commission: commissionView(c),
-    current: latest ? versionView(latest, sources) : null,
-    versions,
+    commission: commissionView(c, role),
+    current: latest ? versionView(latest, sources, role) : null,
+    versions: versions.map((v) => present('designVersion', role, v.toJSON())),
     fabrics: fabricLegend(sources, latest?.body),
-    garments: sources.garments.map((g) => ({ id: g.id, description: g.description, colour: g.colour, fibre: g.fibre, print: g.print, construction: g.construction, panels: g.panels })),
-    stock: sources.stock.map((s) => ({ id: s.id, name: s.name, colour: s.colour, fibre: s.fibre, widthMm: s.widthMm, lengthMm: s.lengthMm })),
+    garments: sources.garments.map((g) => present('garment', role, { id: g.id, description: g.description, colour: g.colour, fibre: g.fibre, print: g.print, construction: g.construction, panels: g.panels })),
+    stock: sources.stock.map((s) => present('stock', role, { id: s.id, name: s.name, colour: s.colour, fibre: s.fibre, widthMm: s.widthMm, lengthMm: s.lengthMm })),
   };
 }
 
@@ -168,7 +171,7 @@ export async function getVersion(user: Express.User, commissionId: number, versi
   const c = await staffCommission(user, commissionId);
   const v = await DesignVersionModel.query().where({ commissionId: c.id, version }).first();
   if (!v) throw AppError.notFound('That design version');
-  return versionView(v, await designSources(c.id));
+  return versionView(v, await designSources(c.id), user.role);
 }
 
 /** Derives and plans without saving: the design screen's live re-plan. */
@@ -191,7 +194,7 @@ export async function saveDesign(user: Express.User, commissionId: number, body:
     const version = Number((last as unknown as { max: number | null })?.max ?? 0) + 1;
     return DesignVersionModel.query(trx).insertAndFetch({ commissionId: c.id, version, body, derived, plan, note: note ?? null, createdBy: user.id });
   });
-  return versionView(saved, sources);
+  return versionView(saved, sources, user.role);
 }
 
 /** Shares the latest version with the client, who may then approve it or ask for a change. */
@@ -214,7 +217,7 @@ export async function sharedDesign(user: Express.User, commissionId: number) {
   if (!v) throw AppError.notFound(NO_DESIGN);
   const sources = await designSources(c.id);
   return {
-    commission: { id: c.id, title: c.title },
+    commission: present('commission', user.role, { id: c.id, title: c.title }),
     version: v.version,
     sharedAt: v.sharedAt,
     body: v.body,

@@ -85,7 +85,7 @@ const panelFields = {
   width: lengthField('Width'),
   height: lengthField('Height'),
   unit: lengthUnitSchema.default('in'),
-  grain: oneOf(GRAIN.values, 'Choose which way the grain runs.').default('vertical'),
+  grain: oneOf(GRAIN.values, 'Choose which way the grain runs.'),
   features: z.array(panelFeatureSchema, { message: 'Kept features must be a list.' }).max(20, 'At most 20 kept features on a panel.'),
 };
 
@@ -134,8 +134,9 @@ function checkFeaturesInside(panel: { widthMm: string; heightMm: string; feature
   }
 }
 
+/** A new panel's grain runs along its height unless it says otherwise; a change never falls back to that. */
 export const panelSchema = z
-  .object({ ...panelFields, features: panelFields.features.default([]) })
+  .object({ ...panelFields, grain: panelFields.grain.default('vertical'), features: panelFields.features.default([]) })
   .strict()
   .transform(({ width, height, unit, features, ...rest }, ctx) => {
     const panel = {

@@ -2,6 +2,7 @@ import { checkCustodyEvent, featuresToRemove, type CustodyKind } from '@keepstit
 import type { Knex } from 'knex';
 import type { z } from 'zod';
 import { AppError } from '../core/app-error';
+import { present } from '../core/field-policy';
 import { parseInput } from '../core/validate';
 import { CommissionModel } from '../commissions/commission-model';
 import { findVisibleCommission, garmentView } from '../commissions/commissions-service';
@@ -32,7 +33,7 @@ export async function createGarment(user: Express.User, commissionId: number, bo
       note: user.role === 'client' ? 'Added by the client in the portal' : 'Logged by the studio',
       userId: user.id,
     });
-    return { ...garmentView(garment, user), status: 'expected' as const };
+    return present('garment', user.role, { ...garmentView(garment, user), status: 'expected' as const });
   });
 }
 
@@ -45,7 +46,7 @@ export async function getGarment(user: Express.User, id: number) {
     PhotoModel.query().where('garmentId', id).orderBy('id'),
   ]);
   const { state, events } = custody.get(id)!;
-  return {
+  return present('garment', user.role, {
     ...garmentView(garment, user),
     status: state.status,
     received: state.received,
@@ -59,7 +60,7 @@ export async function getGarment(user: Express.User, id: number) {
     ),
     panels,
     photos: photos.map((p) => p.toPublic()),
-  };
+  });
 }
 
 export async function updateGarment(user: Express.User, id: number, input: z.infer<typeof updateGarmentSchema>) {

@@ -1,6 +1,8 @@
 import { cautionsFor, quoteTotals, suggestQuoteLines, type QuoteTotals } from '@keepstitch/shared';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
+import { present } from '../core/field-policy';
+import type { Role } from '../core/roles';
 import { addDays, today } from '../core/calendar';
 import type { AppConfig } from '../core/config';
 import { ClientModel } from '../clients/client-model';
@@ -29,7 +31,7 @@ function totalsOf(q: QuoteModel): QuoteTotals {
 }
 
 /** A quote as the API shows it, with its lines and totals. Drafts are computed live; sent quotes keep their frozen totals. */
-export function quoteView(q: QuoteModel) {
+function quoteParts(q: QuoteModel) {
   const live = totalsOf(q);
   const frozen = q.status !== 'draft' && q.totalPence !== null;
   return {
@@ -43,7 +45,7 @@ export function quoteView(q: QuoteModel) {
     depositPercent: Number(q.depositPercent),
     vatRate: q.vatRate,
     vatMode: q.vatMode,
-    lines: (q.lines ?? []).map((l, i) => ({ ...l, quantity: Number(l.quantity).toString(), unitPricePence: Number(l.unitPricePence), netPence: live.lineNetPence[i], vatPence: live.lineVatPence[i] })),
+    lines: (q.lines ?? []).map((l, i) => ({ ...l.toJSON(), quantity: Number(l.quantity).toString(), unitPricePence: Number(l.unitPricePence), netPence: live.lineNetPence[i], vatPence: live.lineVatPence[i] })),
     totals: frozen
       ? { netPence: q.netPence!, vatPence: q.vatPence!, totalPence: q.totalPence!, depositPence: q.depositPence!, balancePence: q.totalPence! - q.depositPence! }
       : { netPence: live.netPence, vatPence: live.vatPence, totalPence: live.totalPence, depositPence: live.depositPence, balancePence: live.balancePence },
@@ -54,6 +56,12 @@ export function quoteView(q: QuoteModel) {
     declineNote: q.declineNote,
     createdAt: q.createdAt,
   };
+}
+
+/** A quote as this role may see it. */
+export function quoteView(q: QuoteModel, role: Role) {
+  const parts = quoteParts(q);
+  return present('quote', role, { ...parts, lines: parts.lines.map((l) => present('quoteLine', role, l)) });
 }
 
 /** A quote the user may see: clients only see their own, and never drafts. */
@@ -86,11 +94,11 @@ export async function listQuotes(user: Express.User, commissionId: number) {
   await findVisibleCommission(user, commissionId);
   const query = QuoteModel.query().where('commissionId', commissionId).withGraphFetched('lines').orderBy('version', 'desc');
   if (user.role === 'client') query.whereNot('status', 'draft');
-  return (await query).map(quoteView);
+  return (await query).map((q) => quoteView(q, user.role));
 }
 
 export async function getQuote(user: Express.User, id: number) {
-  return quoteView(await findVisibleQuote(user, id));
+  return quoteView(await findVisibleQuote(user, id), user.role);
 }
 
 /** A new draft version, priced with the studio's current VAT settings. */
@@ -105,7 +113,7 @@ export async function createQuote(user: Express.User, commissionId: number, inpu
     const version = Number((last as unknown as { v: number | null }).v ?? 0) + 1;
     const q = await QuoteModel.query(trx).insertAndFetch({ commissionId, version, status: 'draft', intro: input.intro ?? null, ...vat, createdBy: user.id });
     await writeLines(trx, q.id, input);
-    return quoteView((await QuoteModel.query(trx).findById(q.id).withGraphFetched('lines'))!);
+    return quoteView((await QuoteModel.query(trx).findById(q.id).withGraphFetched('lines'))!, user.role);
   });
 }
 
@@ -117,7 +125,7 @@ export async function updateQuote(user: Express.User, id: number, input: QuoteIn
     checkTotals(input, { vatRate: q.vatRate, vatMode: q.vatMode, depositPercent });
     await QuoteModel.query(trx).patch({ intro: input.intro ?? null, depositPercent }).findById(id);
     await writeLines(trx, id, input);
-    return quoteView((await QuoteModel.query(trx).findById(id).withGraphFetched('lines'))!);
+    return quoteView((await QuoteModel.query(trx).findById(id).withGraphFetched('lines'))!, user.role);
   });
 }
 
@@ -132,7 +140,7 @@ async function pdfData(q: QuoteModel) {
     vatNumber: settings.vatNumber,
     paymentTerms: settings.paymentTerms,
   };
-  const view = quoteView(q);
+  const view = quoteParts(q);
   return {
     studio,
     client: { name: client!.name, address: client!.address },
@@ -197,7 +205,7 @@ export async function sendQuote(user: Express.User, id: number, config: AppConfi
       link,
     });
     await enqueueMail(trx, { kind: 'quote', to: client.email, ...mail, commissionId: commission.id, attachments: [{ filename: `quote-${commission.id}-v${q.version}.pdf`, contentType: 'application/pdf', content: pdf }] });
-    return quoteView(sent);
+    return quoteView(sent, user.role);
   });
   return result;
 }
@@ -211,7 +219,7 @@ export async function acceptQuote(user: Express.User, id: number, name: string) 
     if (q.status !== 'sent') throw new AppError(409, 'not_open', 'This quote is no longer open: a newer version may have been sent.');
     if (q.validUntil && q.validUntil < today()) throw new AppError(409, 'expired', 'This quote has expired. Please ask the studio for a new one.');
     await QuoteModel.query(trx).patch({ status: 'accepted', acceptedAt: new Date(), acceptedName: name }).findById(id);
-    return quoteView((await QuoteModel.query(trx).findById(id).withGraphFetched('lines'))!);
+    return quoteView((await QuoteModel.query(trx).findById(id).withGraphFetched('lines'))!, user.role);
   });
 }
 
@@ -220,7 +228,7 @@ export async function declineQuote(user: Express.User, id: number, note: string 
     const q = await findVisibleQuote(user, id, trx);
     if (q.status !== 'sent') throw new AppError(409, 'not_open', 'This quote is no longer open.');
     await QuoteModel.query(trx).patch({ status: 'declined', declinedAt: new Date(), declineNote: note ?? null }).findById(id);
-    return quoteView((await QuoteModel.query(trx).findById(id).withGraphFetched('lines'))!);
+    return quoteView((await QuoteModel.query(trx).findById(id).withGraphFetched('lines'))!, user.role);
   });
 }
 

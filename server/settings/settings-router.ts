@@ -4,7 +4,7 @@ import { securedRouter } from '../core/secured-router';
 import { optionalText, parseInput } from '../core/validate';
 import { StudioSettingsModel } from './settings-model';
 
-const settingsSchema = z
+export const settingsSchema = z
   .object({
     studioName: z.string().trim().min(1, 'Give the studio a name.').max(200),
     makerName: z.string().trim().max(200),

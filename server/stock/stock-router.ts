@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { FIBRE } from '@keepstitch/shared';
 import { AppError } from '../core/app-error';
+import { present, sortFor } from '../core/field-policy';
 import { securedRouter } from '../core/secured-router';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 import { optionalText, parseId, parseInput } from '../core/validate';
@@ -9,12 +10,12 @@ import { StockFabricModel } from './stock-fabric-model';
 const fields = {
   name: z.string({ message: 'Name the fabric.' }).trim().min(1, 'Name the fabric.').max(200),
   colour: optionalText(100, 'Colour'),
-  fibre: z.enum(FIBRE.values as [string, ...string[]], { message: 'Choose the fibre.' }).default('cotton'),
+  fibre: z.enum(FIBRE.values as [string, ...string[]], { message: 'Choose the fibre.' }),
   width: lengthField('Width'),
   length: lengthField('Length on hand'),
   unit: lengthUnitSchema.default('in'),
   costPence: z.number({ message: 'Cost must be an amount in pence.' }).int('Cost must be whole pence.').min(0, 'Cost cannot be negative.').max(1_000_000).nullable().optional(),
-  costUnit: z.enum(['metre', 'yard'], { message: 'Cost is per metre or per yard.' }).default('metre'),
+  costUnit: z.enum(['metre', 'yard'], { message: 'Cost is per metre or per yard.' }),
   supplier: optionalText(300, 'Supplier'),
   notes: optionalText(2000, 'Notes'),
 };
@@ -25,8 +26,12 @@ const sized = <T extends { width?: string; length?: string; unit: 'in' | 'cm' | 
   ...(length !== undefined ? { lengthMm: toMillimetres(length, unit, ctx, 'length') } : {}),
 });
 
-const createSchema = z.object(fields).strict().transform(sized);
-const updateSchema = z
+/** A new fabric is cotton priced per metre unless it says otherwise; a change never falls back to those. */
+export const createStockSchema = z
+  .object({ ...fields, fibre: fields.fibre.default('cotton'), costUnit: fields.costUnit.default('metre') })
+  .strict()
+  .transform(sized);
+export const updateStockSchema = z
   .object(fields)
   .partial()
   .extend({ unit: lengthUnitSchema.default('in') })
@@ -34,30 +39,26 @@ const updateSchema = z
   .transform(sized);
 
 /** Workroom assistants see the stock for cutting, but not what it cost. */
-function view(f: StockFabricModel, user: Express.User) {
-  if (user.role === 'owner') return f;
-  const { costPence: _cost, costUnit: _unit, supplier: _supplier, ...rest } = f;
-  return rest;
-}
+const view = (f: StockFabricModel, user: Express.User) => present('stock', user.role, f.toJSON());
 
 export function stockRouter() {
   const r = securedRouter('/api/stock');
 
   r.get('/', async (req, res) => {
-    const items = await StockFabricModel.query().orderByRaw('lower(name)').orderBy('id');
+    const items = await StockFabricModel.query().orderByRaw(`lower(${sortFor('stock', req.user!.role, 'name', 'name')})`).orderBy('id');
     res.json({ items: items.map((f) => view(f, req.user!)) });
   });
   r.post('/', async (req, res) => {
-    const input = parseInput(createSchema, req.body, 'fabric');
-    res.status(201).json(await StockFabricModel.query().insertAndFetch(input as Partial<StockFabricModel>));
+    const input = parseInput(createStockSchema, req.body, 'fabric');
+    res.status(201).json(view(await StockFabricModel.query().insertAndFetch(input as Partial<StockFabricModel>), req.user!));
   });
   r.patch('/:id', async (req, res) => {
     const id = parseId(req.params['id'], 'That fabric');
-    const input = parseInput(updateSchema, req.body, 'fabric');
+    const input = parseInput(updateStockSchema, req.body, 'fabric');
     if (Object.keys(input).length === 0) throw new AppError(400, 'validation', 'Send at least one field to change.');
     const fabric = await StockFabricModel.query().patchAndFetchById(id, input as Partial<StockFabricModel>);
     if (!fabric) throw AppError.notFound('That fabric');
-    res.json(fabric);
+    res.json(view(fabric, req.user!));
   });
   r.delete('/:id', async (req, res) => {
     const count = await StockFabricModel.query().deleteById(parseId(req.params['id'], 'That fabric'));

@@ -1,15 +1,17 @@
 import { AppError } from '../core/app-error';
+import { present } from '../core/field-policy';
 import { hashPassword, verifyPassword } from '../auth/password';
 import { ClientModel } from '../clients/client-model';
-import { UserModel, type PublicUser } from './user-model';
+import { UserModel } from './user-model';
 import type { CreateUserInput } from './users-schemas';
 
-export async function listUsers(): Promise<PublicUser[]> {
+/** The studio's sign-ins, as the owner sees them. */
+export async function listUsers() {
   const users = await UserModel.query().orderBy('role').orderByRaw('lower(name)');
-  return users.map((u) => u.toPublic());
+  return users.map((u) => present('user', 'owner', u.toPublic()));
 }
 
-export async function createUser(input: CreateUserInput): Promise<PublicUser> {
+export async function createUser(input: CreateUserInput) {
   const taken = await UserModel.query().whereRaw('lower(email) = ?', [input.email]).first();
   if (taken) throw new AppError(409, 'conflict', 'That e-mail address already has a sign-in.', { email: 'Already in use.' });
   if (input.clientId !== undefined) {
@@ -23,7 +25,7 @@ export async function createUser(input: CreateUserInput): Promise<PublicUser> {
     clientId: input.clientId ?? null,
     passwordHash: await hashPassword(input.password),
   });
-  return user.toPublic();
+  return present('user', 'owner', user.toPublic());
 }
 
 /** Sets a new password; every session of that user ends. */
