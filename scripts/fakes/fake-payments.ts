@@ -60,8 +60,14 @@ export interface FakePayments {
   refunds: Refund[];
   /** Where webhooks go (the app's address may only be known after the fake starts). */
   setWebhookUrl(url: string): void;
-  /** Pays an open session as the checkout page would (for tests), returning the webhook status; refuses one that is expired or paid. */
-  pay(sessionId: string): Promise<number>;
+  /**
+   * Pays an open session as the checkout page would (for tests), returning the
+   * webhook status; refuses one that is expired or paid. `paidPence` takes
+   * another amount than the session asked, as a provider-side discount would.
+   */
+  pay(sessionId: string, paidPence?: number): Promise<number>;
+  /** Sends an event already sent once more, newly signed, as the provider does when it retries; returns the webhook status. */
+  resend(eventId: string): Promise<number>;
   /** Leaves API calls unanswered from now on; resolves when the first one arrives (a service falling over mid-call). */
   hold(): Promise<void>;
   /** Stops answering, cutting any call in flight, as a service that is down; its sessions are kept. */
@@ -88,9 +94,17 @@ export async function startFakePayments(options: { port?: number; webhookUrl: st
   app.use(express.urlencoded({ extended: true }));
   let baseUrl = '';
 
+  /** Every event's body as first sent, by id. */
+  const payloads = new Map<string, string>();
+
   async function sendEvent(type: string, object: unknown): Promise<number> {
     const event = { id: id('evt'), object: 'event', type, created: Math.floor(Date.now() / 1000), livemode: false, data: { object }, api_version: Stripe.API_VERSION };
-    const payload = JSON.stringify(event);
+    payloads.set(event.id, JSON.stringify(event));
+    return deliver(event.id, type);
+  }
+
+  async function deliver(eventId: string, type: string): Promise<number> {
+    const payload = payloads.get(eventId)!;
     const header = signer.webhooks.generateTestHeaderString({ payload, secret });
     let status = 0;
     try {
@@ -99,17 +113,18 @@ export async function startFakePayments(options: { port?: number; webhookUrl: st
     } catch {
       status = 0;
     }
-    webhooksSent.push({ id: event.id, type, status });
+    webhooksSent.push({ id: eventId, type, status });
     if (!options.quiet) console.log(`fake payments: sent ${type} -> ${status || 'no answer'}`);
     return status;
   }
 
-  async function pay(sessionId: string): Promise<number> {
+  async function pay(sessionId: string, paidPence?: number): Promise<number> {
     const s = sessions.get(sessionId);
     if (!s) throw new Error(`no session ${sessionId}`);
     if (s.status !== 'open') throw new Error(`session ${sessionId} is ${s.status}, not open: it cannot be paid`);
     s.status = 'complete';
     s.payment_status = 'paid';
+    if (paidPence !== undefined) s.amount_total = paidPence;
     s.payment_intent = id('pi');
     return sendEvent('checkout.session.completed', s);
   }
@@ -288,6 +303,11 @@ ${s.status === 'open' ? `<form method="post" action="/pay/${s.id}"><label for="c
       webhookUrl = url;
     },
     pay,
+    resend: (eventId: string) => {
+      const sent = webhooksSent.find((w) => w.id === eventId);
+      if (!sent) throw new Error(`no event ${eventId} was sent`);
+      return deliver(eventId, sent.type);
+    },
     hold: () => new Promise<void>((r) => (held = r)),
     stop,
     async start() {
