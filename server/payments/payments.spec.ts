@@ -254,6 +254,20 @@ describe('payments through the provider SDK and its webhooks', () => {
       expect(payments.body.items).toEqual([expect.objectContaining({ kind: 'deposit', amountPence: 12960, receivedPence: 12960, status: 'paid' })]);
     });
 
+    it('lets a checkout the provider says has expired go, and opens a new one next time', async () => {
+      const { quote, sessionId } = await acceptedWithCheckout();
+      // Left unpaid until the provider's time limit: it expires the session and says so.
+      await sdk.checkout.sessions.expire(sessionId);
+      const expired = { id: 'evt_session_expired', object: 'event', type: 'checkout.session.expired', data: { object: { id: sessionId, object: 'checkout.session', status: 'expired', payment_status: 'unpaid' } } };
+      const answer = await webhook(expired);
+      expect(answer.status).toBe(200);
+      expect(answer.body.outcome).toBe('expired');
+      expect((await t.knex('payments').where('checkoutSessionId', sessionId).first()).status).toBe('expired');
+      const next = await client.post(`/api/quotes/${quote.id}/deposit-checkout`);
+      expect(next.status).toBe(200);
+      expect(sessionOf(next.body.url)).not.toBe(sessionId);
+    });
+
     it('records a second payment of a paid deposit as an overpayment, refunds it through the provider, tells the owner, and answers both webhooks 2xx', async () => {
       const { commission, quote, sessionId } = await acceptedWithCheckout();
       const second = await secondCheckoutFromBefore(commission, quote.id, 'deposit', 12645);
