@@ -299,6 +299,21 @@ describe('payments through the provider SDK and its webhooks', () => {
       expect(seen.body.due).toMatchObject({ depositPaid: true, balancePence: 29505 });
     });
 
+    it('does the same for a balance paid twice', async () => {
+      const { commission, quote, sessionId } = await acceptedWithCheckout();
+      await fake.pay(sessionId);
+      const balance = sessionOf((await client.post(`/api/commissions/${commission}/balance-checkout`)).body.url);
+      const second = await secondCheckoutFromBefore(commission, quote.id, 'balance', 29505);
+      expect([await fake.pay(balance), await fake.pay(second)]).toEqual([200, 200]);
+      const rows = await t.knex('payments').where({ commissionId: commission, kind: 'balance' }).orderBy('id');
+      expect(rows.map((r) => [r.checkoutSessionId, r.status, r.refundReason])).toEqual([
+        [balance, 'paid', null],
+        [second, 'refunded', 'overpaid'],
+      ]);
+      expect(fake.refunds.filter((r) => r.payment_intent === fake.sessions.get(second)!.payment_intent)).toEqual([expect.objectContaining({ amount: 29505 })]);
+      expect((await owner.get(`/api/commissions/${commission}/payments`)).body.due).toMatchObject({ balancePaid: true, balancePence: 0 });
+    });
+
     it('answers a replayed event 2xx and changes nothing: no second refund, booking or mail', async () => {
       const { commission, quote, sessionId } = await acceptedWithCheckout();
       const second = await secondCheckoutFromBefore(commission, quote.id, 'deposit', 12645);
