@@ -118,7 +118,7 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
   app.use(designsRouter());
   app.use(settingsRouter());
   app.use(quotesRouter(config, kickMail));
-  app.use(paymentsRouter(provider, config));
+  app.use(paymentsRouter(provider, config, kickMail));
   app.use(mailRouter(config, kickMail));
   assertPolicyCovered();
 

@@ -1,7 +1,8 @@
 /**
  * A local stand-in for the card-payment provider: the few API calls the app
- * makes through the provider's Node SDK (create and read a hosted checkout
- * session, refund a payment), a small hosted checkout page, and signed
+ * makes through the provider's Node SDK (create, read and expire a hosted
+ * checkout session, refund a payment, each POST honouring an idempotency
+ * key), a small hosted checkout page, and signed
  * webhooks sent back to the app when a payment succeeds, as the real service
  * does. Test cards: 4242 4242 4242 4242 pays; 4000 0000 0000 0002 is declined.
  *
@@ -39,15 +40,34 @@ interface Session {
   created: number;
 }
 
+interface Refund {
+  id: string;
+  object: 'refund';
+  status: 'succeeded';
+  amount: number;
+  currency: string;
+  payment_intent: string;
+  metadata: Record<string, string>;
+  created: number;
+}
+
 export interface FakePayments {
   port: number;
   baseUrl: string;
   sessions: Map<string, Session>;
   webhooksSent: Array<{ id: string; type: string; status: number }>;
+  /** Every refund made, in order. */
+  refunds: Refund[];
   /** Where webhooks go (the app's address may only be known after the fake starts). */
   setWebhookUrl(url: string): void;
-  /** Pays a session as the checkout page would (for tests), returning the webhook status. */
-  pay(sessionId: string): Promise<number>;
+  /**
+   * Pays an open session as the checkout page would (for tests), returning the
+   * webhook status; refuses one that is expired or paid. `paidPence` takes
+   * another amount than the session asked, as a provider-side discount would.
+   */
+  pay(sessionId: string, paidPence?: number): Promise<number>;
+  /** Sends an event already sent once more, newly signed, as the provider does when it retries; returns the webhook status. */
+  resend(eventId: string): Promise<number>;
   /** Leaves API calls unanswered from now on; resolves when the first one arrives (a service falling over mid-call). */
   hold(): Promise<void>;
   /** Stops answering, cutting any call in flight, as a service that is down; its sessions are kept. */
@@ -66,14 +86,25 @@ export async function startFakePayments(options: { port?: number; webhookUrl: st
   const signer = new Stripe(key);
   const sessions = new Map<string, Session>();
   const webhooksSent: FakePayments['webhooksSent'] = [];
+  const refunds: Refund[] = [];
+  /** Answers already given to a POST with an idempotency key, replayed as the real service does. */
+  const answered = new Map<string, { status: number; body: unknown }>();
   let webhookUrl = options.webhookUrl;
   const app = express();
   app.use(express.urlencoded({ extended: true }));
   let baseUrl = '';
 
+  /** Every event's body as first sent, by id. */
+  const payloads = new Map<string, string>();
+
   async function sendEvent(type: string, object: unknown): Promise<number> {
     const event = { id: id('evt'), object: 'event', type, created: Math.floor(Date.now() / 1000), livemode: false, data: { object }, api_version: Stripe.API_VERSION };
-    const payload = JSON.stringify(event);
+    payloads.set(event.id, JSON.stringify(event));
+    return deliver(event.id, type);
+  }
+
+  async function deliver(eventId: string, type: string): Promise<number> {
+    const payload = payloads.get(eventId)!;
     const header = signer.webhooks.generateTestHeaderString({ payload, secret });
     let status = 0;
     try {
@@ -82,16 +113,18 @@ export async function startFakePayments(options: { port?: number; webhookUrl: st
     } catch {
       status = 0;
     }
-    webhooksSent.push({ id: event.id, type, status });
+    webhooksSent.push({ id: eventId, type, status });
     if (!options.quiet) console.log(`fake payments: sent ${type} -> ${status || 'no answer'}`);
     return status;
   }
 
-  async function pay(sessionId: string): Promise<number> {
+  async function pay(sessionId: string, paidPence?: number): Promise<number> {
     const s = sessions.get(sessionId);
     if (!s) throw new Error(`no session ${sessionId}`);
+    if (s.status !== 'open') throw new Error(`session ${sessionId} is ${s.status}, not open: it cannot be paid`);
     s.status = 'complete';
     s.payment_status = 'paid';
+    if (paidPence !== undefined) s.amount_total = paidPence;
     s.payment_intent = id('pi');
     return sendEvent('checkout.session.completed', s);
   }
@@ -105,6 +138,22 @@ export async function startFakePayments(options: { port?: number; webhookUrl: st
       res.status(401).json({ error: { type: 'invalid_request_error', message: 'Invalid API key provided.' } });
       return;
     }
+    next();
+  });
+  api.use((req, res, next) => {
+    const key = req.get('idempotency-key');
+    if (req.method !== 'POST' || !key) return next();
+    const cacheKey = `${req.path} ${key}`;
+    const earlier = answered.get(cacheKey);
+    if (earlier) {
+      res.status(earlier.status).json(earlier.body);
+      return;
+    }
+    const json = res.json.bind(res);
+    res.json = (body: unknown) => {
+      answered.set(cacheKey, { status: res.statusCode, body });
+      return json(body);
+    };
     next();
   });
   api.post('/checkout/sessions', (req, res) => {
@@ -145,14 +194,44 @@ export async function startFakePayments(options: { port?: number; webhookUrl: st
     }
     res.json(s);
   });
+  // Only an open session can be expired; once expired it can no longer be paid.
+  api.post('/checkout/sessions/:id/expire', (req, res) => {
+    const s = sessions.get(req.params['id']!);
+    if (!s) {
+      res.status(404).json({ error: { type: 'invalid_request_error', message: 'No such checkout session.' } });
+      return;
+    }
+    if (s.status !== 'open') {
+      res.status(400).json({ error: { type: 'invalid_request_error', message: `Only an open checkout session can be expired; this one is ${s.status}.` } });
+      return;
+    }
+    s.status = 'expired';
+    res.json(s);
+  });
   api.post('/refunds', (req, res) => {
-    const intent = String((req.body as Record<string, string>)['payment_intent'] ?? '');
+    const body = req.body as Record<string, any>;
+    const intent = String(body['payment_intent'] ?? '');
     const s = [...sessions.values()].find((x) => x.payment_intent === intent && x.payment_status === 'paid');
     if (!s) {
       res.status(400).json({ error: { type: 'invalid_request_error', message: 'No paid payment with that id.' } });
       return;
     }
-    res.json({ id: id('re'), object: 'refund', status: 'succeeded', amount: s.amount_total, currency: s.currency, payment_intent: intent });
+    if (refunds.some((r) => r.payment_intent === intent)) {
+      res.status(400).json({ error: { type: 'invalid_request_error', code: 'charge_already_refunded', message: 'This payment has already been refunded.' } });
+      return;
+    }
+    const refund: Refund = {
+      id: id('re'),
+      object: 'refund',
+      status: 'succeeded',
+      amount: s.amount_total,
+      currency: s.currency,
+      payment_intent: intent,
+      metadata: (body['metadata'] ?? {}) as Record<string, string>,
+      created: Math.floor(Date.now() / 1000),
+    };
+    refunds.push(refund);
+    res.json(refund);
   });
   app.use('/v1', api);
 
@@ -164,7 +243,7 @@ export async function startFakePayments(options: { port?: number; webhookUrl: st
 ${message ? `<div class="alert" role="alert">${escapeHtml(message)}</div>` : ''}
 ${s.status === 'open' ? `<form method="post" action="/pay/${s.id}"><label for="card">Card number</label><input id="card" name="card" inputmode="numeric" autocomplete="cc-number" required>
 <label for="expiry">Expiry (MM/YY)</label><input id="expiry" name="expiry" value="12/34"><label for="cvc">CVC</label><input id="cvc" name="cvc" value="123">
-<button type="submit">Pay ${escapeHtml(formatAmount(s.amount_total, s.currency))}</button></form><p><a href="${escapeHtml(s.cancel_url)}">Cancel and go back</a></p>` : '<p>This checkout is finished.</p>'}
+<button type="submit">Pay ${escapeHtml(formatAmount(s.amount_total, s.currency))}</button></form><p><a href="${escapeHtml(s.cancel_url)}">Cancel and go back</a></p>` : `<p>This checkout is ${s.status === 'expired' ? 'expired' : 'finished'}.</p>`}
 </main></body></html>`;
 
   app.get('/pay/:id', (req, res) => {
@@ -177,8 +256,12 @@ ${s.status === 'open' ? `<form method="post" action="/pay/${s.id}"><label for="c
   });
   app.post('/pay/:id', async (req, res) => {
     const s = sessions.get(req.params['id']!);
-    if (!s || s.status !== 'open') {
-      res.status(404).send('No open checkout.');
+    if (!s) {
+      res.status(404).send('No such checkout.');
+      return;
+    }
+    if (s.status !== 'open') {
+      res.status(410).type('html').send(page(s, s.status === 'expired' ? 'This checkout has expired and can no longer be paid. Go back and start the payment again.' : 'This checkout has already been paid.'));
       return;
     }
     const card = String((req.body as Record<string, string>)['card'] ?? '').replace(/\D/g, '');
@@ -215,10 +298,16 @@ ${s.status === 'open' ? `<form method="post" action="/pay/${s.id}"><label for="c
     baseUrl,
     sessions,
     webhooksSent,
+    refunds,
     setWebhookUrl: (url: string) => {
       webhookUrl = url;
     },
     pay,
+    resend: (eventId: string) => {
+      const sent = webhooksSent.find((w) => w.id === eventId);
+      if (!sent) throw new Error(`no event ${eventId} was sent`);
+      return deliver(eventId, sent.type);
+    },
     hold: () => new Promise<void>((r) => (held = r)),
     stop,
     async start() {

@@ -92,6 +92,8 @@ export const ROUTE_POLICY = {
   'POST /api/commissions/:id/balance-checkout': CLIENT,
   'GET /api/commissions/:id/payments': CLIENT_OR_OWNER,
   'POST /api/commissions/:id/refund-deposit': OWNER,
+  'POST /api/commissions/:id/payments/:paymentId/accept': OWNER,
+  'POST /api/commissions/:id/payments/:paymentId/refund': OWNER,
   'POST /api/payments/webhook': EVERYONE,
 
   'GET /api/mail/outbox': OWNER,

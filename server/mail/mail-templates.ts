@@ -46,3 +46,24 @@ export function readyMail(p: { clientName: string; studioName: string; title: st
   ];
   return { subject: `Your piece is ready: ${p.title}`, text: `${lines.join('\n\n')}\n${p.link}\n\n${p.studioName}\n`, html: html(lines, { href: p.link, label: 'Open your page' }) };
 }
+
+/** To the studio: a card payment that is not the amount asked, held until the owner accepts or refunds it. */
+export function paymentHeldMail(p: { studioName: string; clientName: string; title: string; kind: 'deposit' | 'balance'; askedPence: number; receivedPence: number; link: string }): Mail {
+  const lines = [
+    `${p.clientName} paid ${formatPounds(p.receivedPence)} by card for the ${p.kind} of "${p.title}", but ${formatPounds(p.askedPence)} was asked.`,
+    p.kind === 'deposit'
+      ? 'The payment is held and the commission is not booked until you decide. No receipt has gone to the client.'
+      : 'The payment is held and does not count towards the balance until you decide. No receipt has gone to the client.',
+    `On the commission page, under Payments, accept ${formatPounds(p.receivedPence)} if you agreed it with the client (what is still owed is worked out from it), or refund it to the client's card so they can pay the right amount.`,
+  ];
+  return { subject: `Payment held for your review: ${p.title}`, text: `${lines.join('\n\n')}\n${p.link}\n\n${p.studioName}\n`, html: html(lines, { href: p.link, label: 'Open the commission' }) };
+}
+
+/** To the studio: a second card payment for something already paid, and whether its refund went through. */
+export function overpaymentMail(p: { studioName: string; clientName: string; title: string; kind: 'deposit' | 'balance'; receivedPence: number; link: string }): Mail {
+  const lines = [
+    `${p.clientName} paid the ${p.kind} of "${p.title}" a second time: ${formatPounds(p.receivedPence)} arrived for a ${p.kind} that was already paid.`,
+    'Keepstitch asks the card payment service to refund it straight away. The commission page shows, under Payments, whether the refund has gone through; if it has not, use Refund there.',
+  ];
+  return { subject: `Paid twice, being refunded: ${p.title}`, text: `${lines.join('\n\n')}\n${p.link}\n\n${p.studioName}\n`, html: html(lines, { href: p.link, label: 'Open the commission' }) };
+}

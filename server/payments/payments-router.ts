@@ -13,13 +13,13 @@ export function paymentsWebhookRouter(provider: Stripe, config: AppConfig, knex:
   r.post('/webhook', express.raw({ type: 'application/json', limit: '1mb' }), async (req, res) => {
     const body = Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0);
     const outcome = await payments.handleWebhook(provider, config, knex, body, req.get('stripe-signature'));
-    if (outcome === 'processed') kickMail();
+    if (outcome === 'processed' || outcome === 'held' || outcome === 'overpaid') kickMail();
     res.json({ received: true, outcome });
   });
   return r.router;
 }
 
-export function paymentsRouter(provider: Stripe, config: AppConfig) {
+export function paymentsRouter(provider: Stripe, config: AppConfig, kickMail: () => void) {
   const quotes = securedRouter('/api/quotes');
   quotes.post('/:id/deposit-checkout', async (req, res) => {
     res.json(await payments.depositCheckout(provider, config, req.user!, parseId(req.params['id'], 'That quote')));
@@ -39,6 +39,15 @@ export function paymentsRouter(provider: Stripe, config: AppConfig) {
   });
   commissions.post('/:id/refund-deposit', async (req, res) => {
     res.json(await payments.refundDeposit(provider, parseId(req.params['id'], 'That commission')));
+  });
+  // The owner's answer to a payment held for review (accept it as it arrived, or refund it), or to an overpayment whose refund did not go through.
+  commissions.post('/:id/payments/:paymentId/accept', async (req, res) => {
+    const payment = await payments.acceptHeldPayment(config, parseId(req.params['id'], 'That commission'), parseId(req.params['paymentId'], 'That payment'));
+    kickMail();
+    res.json(payment);
+  });
+  commissions.post('/:id/payments/:paymentId/refund', async (req, res) => {
+    res.json(await payments.refundPayment(provider, parseId(req.params['id'], 'That commission'), parseId(req.params['paymentId'], 'That payment')));
   });
   return [quotes.router, commissions.router];
 }

@@ -11,7 +11,7 @@ import { Notices } from '../core/notices';
 import { SettingsApi } from '../settings/settings-api';
 import { LoadStatus } from '../shared/load-status';
 import { ConfirmDialog, ConfirmDialogData } from '../core/confirm-dialog';
-import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft } from './quote';
+import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payment, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft, REFUND_REASON_LABELS } from './quote';
 import { QuoteEditor } from './quote-editor';
 import { QuoteSummary } from './quote-summary';
 import { QuotesApi } from './quotes-api';
@@ -19,7 +19,10 @@ import { QuotesApi } from './quotes-api';
 /**
  * The owner's quotes and payments for one commission: every version, the
  * editor for a draft, the frozen view of a sent one, and the payments with
- * the deposit refund after a cancellation. Never shown to the workroom.
+ * the deposit refund after a cancellation. A payment that needs the owner's
+ * answer (held because it is not the amount asked, or a second payment whose
+ * refund has not gone through) is shown first, with what to do about it.
+ * Never shown to the workroom.
  */
 @Component({
   selector: 'ks-quote-section',
@@ -36,7 +39,7 @@ export class QuoteSection {
 
   readonly commissionId = input.required<number>();
   readonly stage = input.required<Stage>();
-  /** Sending a quote or refunding a deposit can change the commission (its stage). */
+  /** Sending a quote, refunding a deposit or accepting a held payment can change the commission (its stage). */
   readonly changed = output<void>();
 
   protected readonly statusLabels = QUOTE_STATUS_LABELS;
@@ -53,6 +56,8 @@ export class QuoteSection {
   protected readonly selectedId = signal<number | null>(null);
   protected readonly creating = signal(false);
   protected readonly refunding = signal(false);
+  /** The payment being accepted or refunded just now. */
+  protected readonly answering = signal<number | null>(null);
   protected readonly actionError = signal<string | null>(null);
 
   protected readonly selected = computed<Quote | null>(() => {
@@ -64,6 +69,9 @@ export class QuoteSection {
   protected readonly canRefund = computed(
     () => this.stage() === 'cancelled' && (this.payments()?.items ?? []).some((p) => p.kind === 'deposit' && p.status === 'paid'),
   );
+
+  /** Payments waiting for the owner: held for review, or paid twice and not yet refunded. */
+  protected readonly toAnswer = computed(() => (this.payments()?.items ?? []).filter((p) => p.status === 'held' || p.status === 'overpaid'));
 
   constructor() {
     effect(() => {
@@ -180,6 +188,68 @@ export class QuoteSection {
         },
         error: (error: unknown) => {
           this.refunding.set(false);
+          this.actionError.set(messageFor(error));
+        },
+      });
+  }
+
+  /** What a payment counts for: what arrived, once it did. */
+  protected received(p: Payment): number {
+    return p.receivedPence ?? p.amountPence;
+  }
+
+  protected statusLabel(p: Payment): string {
+    if (p.status === 'refunded' && p.refundReason) return REFUND_REASON_LABELS[p.refundReason] ?? 'Refunded';
+    return this.paymentStatusLabels[p.status] ?? p.status;
+  }
+
+  /** What accepting a held payment leads to, in words. */
+  protected acceptEffect(p: Payment): string {
+    if (p.kind === 'balance') return `it counts as the balance and the commission as paid in full`;
+    const balance = this.payments()?.due?.balancePence;
+    const after = balance === undefined ? '' : `, and the balance becomes ${formatPounds(Math.max(0, balance - this.received(p)))}`;
+    return `the commission is booked and the client gets a receipt for ${formatPounds(this.received(p))}${after}`;
+  }
+
+  protected acceptPayment(p: Payment): void {
+    const amount = formatPounds(this.received(p));
+    this.answer(p, {
+      data: { title: `Accept ${amount} as the ${p.kind}?`, message: `It counts from now: ${this.acceptEffect(p)}.`, confirmLabel: `Accept ${amount}`, cancelLabel: 'Not yet' },
+      call: () => this.api.acceptPayment(this.commissionId(), p.id),
+      done: `${amount} is accepted as the ${p.kind}.`,
+    });
+  }
+
+  protected refundPayment(p: Payment): void {
+    const amount = formatPounds(this.received(p));
+    this.answer(p, {
+      data: { title: `Refund ${amount}?`, message: `${amount} goes back to the client’s card. This cannot be undone.`, confirmLabel: `Refund ${amount}`, cancelLabel: 'Keep it' },
+      call: () => this.api.refundPayment(this.commissionId(), p.id),
+      done: `${amount} is refunded to the client.`,
+    });
+  }
+
+  private answer(p: Payment, step: { data: ConfirmDialogData; call: () => ReturnType<QuotesApi['acceptPayment']>; done: string }): void {
+    this.actionError.set(null);
+    this.dialog
+      .open<ConfirmDialog, ConfirmDialogData, boolean>(ConfirmDialog, { data: step.data })
+      .afterClosed()
+      .pipe(
+        filter((yes) => yes === true),
+        switchMap(() => {
+          this.answering.set(p.id);
+          return step.call();
+        }),
+      )
+      .subscribe({
+        next: () => {
+          this.answering.set(null);
+          this.notices.info(step.done);
+          this.load();
+          this.changed.emit();
+        },
+        error: (error: unknown) => {
+          this.answering.set(null);
           this.actionError.set(messageFor(error));
         },
       });

@@ -79,14 +79,26 @@ export const PAYMENT_STATUS_LABELS: Readonly<Record<string, string | undefined>>
   pending: 'Waiting',
   paid: 'Paid',
   failed: 'Not completed',
+  held: 'Held for checking',
+  overpaid: 'Paid twice: to be refunded',
   refunded: 'Refunded',
+};
+
+/** Why a refunded payment went back, when it was not a cancellation. */
+export const REFUND_REASON_LABELS: Readonly<Record<string, string | undefined>> = {
+  overpaid: 'Refunded (paid twice)',
+  amount_mismatch: 'Refunded (not the amount asked)',
 };
 
 export const paymentSchema = z.object({
   id: z.number(),
   kind: z.string(),
+  /** What was asked. */
   amountPence: z.number(),
+  /** What the card payment service says arrived; null until paid. */
+  receivedPence: z.optional(z.nullable(z.number())),
   status: z.string(),
+  refundReason: text,
   paidAt: text,
   refundedAt: text,
 });

@@ -79,4 +79,18 @@ export class QuotesApi {
       .post<unknown>(`/api/commissions/${commissionId}/refund-deposit`, null, quiet)
       .pipe(map((body) => paymentSchema.parse(body)));
   }
+
+  /** The owner counts a payment held for review as it arrived. */
+  acceptPayment(commissionId: number, paymentId: number): Observable<Payment> {
+    return this.http
+      .post<unknown>(`/api/commissions/${commissionId}/payments/${paymentId}/accept`, null, quiet)
+      .pipe(map((body) => paymentSchema.parse(body)));
+  }
+
+  /** The owner sends a held payment, or a second payment, back to the client's card. */
+  refundPayment(commissionId: number, paymentId: number): Observable<Payment> {
+    return this.http
+      .post<unknown>(`/api/commissions/${commissionId}/payments/${paymentId}/refund`, null, quiet)
+      .pipe(map((body) => paymentSchema.parse(body)));
+  }
 }
