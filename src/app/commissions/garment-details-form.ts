@@ -5,12 +5,11 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { COLOUR_RUN, CONSTRUCTION, FIBRE, GARMENT_TEXT_LIMITS, PREWASH, PRINT } from '@keepstitch/shared';
-
 import { keepUnsavedWork } from '../core/unsaved-work';
+import { FieldError } from '../shared/field-error';
 import { GarmentDetail } from './commission';
 import { CommissionsApi } from './commissions-api';
-import { GARMENT_CHOICE_FIELDS, GarmentSave, garmentChanges, garmentControls, garmentFormValues, keptFeaturesFrom } from './garment-form';
+import { GARMENT_CHOICES, GARMENT_CHOICE_FIELDS, GarmentSave, garmentChanges, garmentControls, garmentFormValues, keptFeaturesFrom } from './garment-form';
 import { KeptFeatureForm, keptFeatureForm } from './kept-feature-form';
 import { KeptFeaturesEditor } from './kept-features-editor';
 
@@ -21,7 +20,7 @@ import { KeptFeaturesEditor } from './kept-features-editor';
  */
 @Component({
   selector: 'ks-garment-details-form',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, KeptFeaturesEditor],
+  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, KeptFeaturesEditor, FieldError],
   templateUrl: './garment-details-form.html',
   styleUrl: './garment-details-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -34,12 +33,7 @@ export class GarmentDetailsForm implements OnInit {
   readonly saved = output<GarmentDetail>();
   readonly cancelled = output<void>();
 
-  protected readonly fibres = FIBRE.options;
-  protected readonly constructions = CONSTRUCTION.options;
-  protected readonly prints = PRINT.options;
-  protected readonly prewashes = PREWASH.options;
-  protected readonly colourRuns = COLOUR_RUN.options;
-  protected readonly limits = GARMENT_TEXT_LIMITS;
+  protected readonly choices = GARMENT_CHOICES;
 
   constructor() {
     keepUnsavedWork(() => this.form.dirty);

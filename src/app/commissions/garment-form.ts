@@ -1,6 +1,6 @@
 import { signal } from '@angular/core';
 import { FormArray, FormControl, FormGroup, Validators } from '@angular/forms';
-import { ColourRun, Construction, Fibre, GARMENT_TEXT_LIMITS, Prewash, Print } from '@keepstitch/shared';
+import { COLOUR_RUN, CONSTRUCTION, ColourRun, Construction, FIBRE, Fibre, GARMENT_TEXT_LIMITS, PREWASH, PRINT, Prewash, Print } from '@keepstitch/shared';
 import type { Observable } from 'rxjs';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
@@ -34,6 +34,15 @@ export function garmentControls() {
 }
 
 export type GarmentControls = ReturnType<typeof garmentControls>;
+
+/** What each choice field offers, in order, for a select. */
+export const GARMENT_CHOICES = {
+  fibres: FIBRE.options,
+  constructions: CONSTRUCTION.options,
+  prints: PRINT.options,
+  prewashes: PREWASH.options,
+  colourRuns: COLOUR_RUN.options,
+} as const;
 export type GarmentField = keyof GarmentControls;
 /** The typed values of some of a garment's controls. */
 export type GarmentValues = { [K in GarmentField]?: GarmentControls[K]['value'] };

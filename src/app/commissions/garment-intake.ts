@@ -6,13 +6,12 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { MatStepperModule } from '@angular/material/stepper';
-import { COLOUR_RUN, CONSTRUCTION, FIBRE, GARMENT_TEXT_LIMITS, PREWASH, PRINT } from '@keepstitch/shared';
-
 import { keepUnsavedWork } from '../core/unsaved-work';
+import { FieldError } from '../shared/field-error';
 import { PhotoUpload } from '../shared/photo-upload';
 import { GarmentDetail } from './commission';
 import { CommissionsApi } from './commissions-api';
-import { GarmentSave, garmentControls, garmentDraft, keptFeaturesFrom } from './garment-form';
+import { GARMENT_CHOICES, GarmentSave, garmentControls, garmentDraft, keptFeaturesFrom } from './garment-form';
 import { KeptFeatureForm } from './kept-feature-form';
 import { KeptFeaturesEditor } from './kept-features-editor';
 
@@ -23,6 +22,7 @@ import { KeptFeaturesEditor } from './kept-features-editor';
 @Component({
   selector: 'ks-garment-intake',
   imports: [
+    FieldError,
     KeptFeaturesEditor,
     ReactiveFormsModule,
     MatStepperModule,
@@ -44,12 +44,7 @@ export class GarmentIntake {
   readonly added = output<GarmentDetail>();
   readonly closed = output<void>();
 
-  protected readonly fibres = FIBRE.options;
-  protected readonly constructions = CONSTRUCTION.options;
-  protected readonly prints = PRINT.options;
-  protected readonly prewashes = PREWASH.options;
-  protected readonly colourRuns = COLOUR_RUN.options;
-  protected readonly limits = GARMENT_TEXT_LIMITS;
+  protected readonly choices = GARMENT_CHOICES;
 
   private readonly controls = garmentControls();
   protected readonly what = new FormGroup({

@@ -16,6 +16,7 @@ import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { ClientQuote } from '../quotes/client-quote';
 import { CautionCards } from '../shared/caution-cards';
+import { FieldError } from '../shared/field-error';
 import { LoadStatus } from '../shared/load-status';
 import { Loader } from '../shared/loader';
 import { PhotoGallery } from '../shared/photo-gallery';
@@ -37,6 +38,7 @@ import { PhotoUpload } from '../shared/photo-upload';
     PhotoUpload,
     ClientQuote,
     LoadStatus,
+    FieldError,
   ],
   templateUrl: './portal-commission.html',
   styleUrl: './portal-commission.scss',
