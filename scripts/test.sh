@@ -54,6 +54,9 @@ for project in "${TS_PROJECTS[@]}"; do
   if npx tsc --noEmit -p "$project"; then record "tsc $project" 1 0; else record "tsc $project" 0 1; fi
 done
 
+log "Every locked package accepts the Node versions package.json promises"
+if npx tsx scripts/check-engines.ts; then record "engines" 1 0; else record "engines" 0 1; fi
+
 log "jest: shared maths and server (real PostgreSQL)"
 npx jest --ci --json --outputFile="$OUT/jest.json" 2>&1 | grep -v '^\s*$' | tail -n 60
 read -r p f < <(counts "$OUT/jest.json" jest); record "jest" "$p" "$f"
