@@ -18,12 +18,13 @@ export DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/keepstitch_test"
 export CHROME_BIN=/usr/bin/chromium
 
 cleanup() {
-  pg_down "$TEST_DIR/pg"
+  pg_remove "$TEST_DIR/pg"
   rm -rf "$TEST_DIR"
 }
 trap cleanup EXIT
 trap 'exit 130' INT TERM
 
+pg_remove "$TEST_DIR/pg"
 rm -rf "$TEST_DIR" "$OUT"
 mkdir -p "$OUT"
 # A throwaway cluster: durability is not needed, speed is.
