@@ -76,6 +76,9 @@ fault "db restart" fault-db 7 bash scripts/fault-db.sh
 log "Faults: the server killed with SIGKILL mid-upload and started again"
 fault "upload kill" fault-upload 17 npm run --silent fault:upload
 
+log "PostgreSQL from a clone in a folder only root can enter"
+fault "closed folder" closed-folder 3 bash scripts/check-closed-folder.sh
+
 log "karma: Angular components in headless Chromium"
 npx ng test --watch=false --progress=false 2>&1 | tail -n 40
 read -r p f < <(counts "$OUT/karma.json" karma); record "karma" "$p" "$f"
