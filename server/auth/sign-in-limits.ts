@@ -87,7 +87,10 @@ export class SignInLimits {
       const key = `${known.id}:${account}`;
       await this.take(this.browsers, key, 'Too many wrong passwords for this account from this browser.');
       const user = await check();
-      if (user) await this.browsers.delete(key);
+      if (user) {
+        await this.browsers.delete(key);
+        this.rememberBrowser(req, res, account);
+      }
       return user;
     }
 
