@@ -1,7 +1,7 @@
 import { Pool } from 'pg';
 import request from 'supertest';
 import { createApp } from '../app';
-import { ApiAgent, addUser, startTestApp, TEST_PASSWORD, type TestApp } from '../testing/test-app';
+import { ApiAgent, addUser, signedIn, startTestApp, TEST_PASSWORD, type TestApp } from '../testing/test-app';
 import { ADDRESS_REFUSE_FACTOR } from './sign-in-limits';
 
 /** One sign-in attempt by a browser, from the address a proxy in front says (X-Forwarded-For). */
@@ -190,5 +190,20 @@ describe('sign-in limits across app instances', () => {
     } finally {
       await pool.end();
     }
+  });
+
+  it('limits guessing the current password from a signed-in session per user', async () => {
+    const user = await addUser(t.knex, 'workroom');
+    const session = await signedIn(t.app, user.email);
+    const statuses: number[] = [];
+    for (let i = 0; i < 3; i++) statuses.push((await session.post('/api/auth/password', { currentPassword: `guess ${i}`, newPassword: 'a fresh long password' })).status);
+    expect(statuses).toEqual([400, 400, 400]);
+    const limited = await session.post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'a fresh long password' });
+    expect(limited.status).toBe(429);
+    expect(limited.body.error.message).toMatch(/Too many wrong current passwords\. Please wait 1 minute/);
+    // Another user's own changes are not held up.
+    const other = await addUser(t.knex, 'workroom');
+    const theirs = await signedIn(t.app, other.email);
+    expect((await theirs.post('/api/auth/password', { currentPassword: TEST_PASSWORD, newPassword: 'a fresh long password' })).status).toBe(200);
   });
 });

@@ -59,7 +59,7 @@ export class SignInLimits {
   private readonly browsers: RateLimiterPostgres;
 
   constructor(private readonly options: SignInLimitOptions) {
-    const limiter = (keyPrefix: string, points: number) =>
+    const limiter = (keyPrefix: string, points: number, clearExpiredByTimeout: boolean) =>
       new RateLimiterPostgres({
         storeClient: options.pool,
         storeType: 'pool',
@@ -68,10 +68,12 @@ export class SignInLimits {
         keyPrefix,
         points,
         duration: options.windowMs / 1000,
+        // Every five minutes, rows whose window ended an hour ago are deleted: all kinds at once, so once is enough.
+        clearExpiredByTimeout,
       });
-    this.accounts = limiter('account', options.accountLimit);
-    this.addresses = limiter('address', options.addressLimit * ADDRESS_REFUSE_FACTOR);
-    this.browsers = limiter('browser', options.accountLimit);
+    this.accounts = limiter('account', options.accountLimit, true);
+    this.addresses = limiter('address', options.addressLimit * ADDRESS_REFUSE_FACTOR, false);
+    this.browsers = limiter('browser', options.accountLimit, false);
   }
 
   /**
