@@ -18,12 +18,13 @@ export DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/keepstitch_test"
 export CHROME_BIN=/usr/bin/chromium
 
 cleanup() {
-  pg_down "$TEST_DIR/pg"
+  pg_remove "$TEST_DIR/pg"
   rm -rf "$TEST_DIR"
 }
 trap cleanup EXIT
 trap 'exit 130' INT TERM
 
+pg_remove "$TEST_DIR/pg"
 rm -rf "$TEST_DIR" "$OUT"
 mkdir -p "$OUT"
 # A throwaway cluster: durability is not needed, speed is.
@@ -54,6 +55,9 @@ for project in "${TS_PROJECTS[@]}"; do
   if npx tsc --noEmit -p "$project"; then record "tsc $project" 1 0; else record "tsc $project" 0 1; fi
 done
 
+log "Every locked package accepts the Node versions package.json promises"
+if npx tsx scripts/check-engines.ts; then record "engines" 1 0; else record "engines" 0 1; fi
+
 log "jest: shared maths and server (real PostgreSQL)"
 npx jest --ci --json --outputFile="$OUT/jest.json" 2>&1 | grep -v '^\s*$' | tail -n 60
 read -r p f < <(counts "$OUT/jest.json" jest); record "jest" "$p" "$f"
@@ -71,6 +75,9 @@ log "Faults: PostgreSQL stopped and started again under writes"
 fault "db restart" fault-db 7 bash scripts/fault-db.sh
 log "Faults: the server killed with SIGKILL mid-upload and started again"
 fault "upload kill" fault-upload 17 npm run --silent fault:upload
+
+log "PostgreSQL from a clone in a folder only root can enter"
+fault "closed folder" closed-folder 3 bash scripts/check-closed-folder.sh
 
 log "karma: Angular components in headless Chromium"
 npx ng test --watch=false --progress=false 2>&1 | tail -n 40

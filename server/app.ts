@@ -14,6 +14,7 @@ import { configurePassport } from './auth/passport-setup';
 import { createCsrf } from './auth/csrf';
 import { authRouter } from './auth/auth-router';
 import { SessionStore } from './auth/session-store';
+import { SignInLimits, signedCookieSecret } from './auth/sign-in-limits';
 import { healthRouter } from './health/health-router';
 import { clientsRouter } from './clients/clients-router';
 import { usersRouter } from './users/users-router';
@@ -34,7 +35,7 @@ export const SESSION_COOKIE = 'ks.sid';
 export interface AppDeps {
   config: AppConfig;
   knex: Knex;
-  /** pg pool the session store uses. */
+  /** pg pool the session store and the sign-in limits use. */
   sessionPool: Pool;
   log?: (err: unknown) => void;
   /** Asks the outbox worker to deliver now (mail was just queued). */
@@ -51,7 +52,8 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
 
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', false);
+  // Which proxies may name the client's address (X-Forwarded-For): req.ip, which the sign-in limits count by.
+  app.set('trust proxy', config.trustProxy);
 
   app.use(
     helmet({
@@ -82,7 +84,8 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
   app.use(paymentsWebhookRouter(provider, config, knex, kickMail));
 
   app.use('/api', express.json({ limit: '200kb' }));
-  app.use(cookieParser());
+  // Signs the known-browser cookie of the sign-in limits.
+  app.use(cookieParser(signedCookieSecret(config.sessionSecret)));
   const sessionStore = new SessionStore({ pool: sessionPool, pruneSeconds: config.nodeEnv === 'test' ? false : 15 * 60, touchSeconds: config.sessionTouchSeconds });
   const passport = configurePassport(sessionStore);
   app.use(
@@ -103,8 +106,15 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
   app.use(
     authRouter({
       csrf,
-      signInLimit: config.signInLimit,
-      signInWindowMs: config.signInWindowMs,
+      limits: new SignInLimits({
+        pool: sessionPool,
+        secret: config.sessionSecret,
+        secureCookies: config.secureCookies,
+        accountLimit: config.signInLimit,
+        addressLimit: config.signInAddressLimit,
+        windowMs: config.signInWindowMs,
+        delayMs: config.signInDelayMs,
+      }),
       sessionCookieName: SESSION_COOKIE,
       passport,
     }),

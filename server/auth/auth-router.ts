@@ -1,5 +1,4 @@
 import type { NextFunction, Request, Response } from 'express';
-import rateLimit from 'express-rate-limit';
 import { AppError } from '../core/app-error';
 import { securedRouter } from '../core/secured-router';
 import { parseInput } from '../core/validate';
@@ -7,61 +6,50 @@ import { changePasswordSchema, signInSchema } from './auth-schemas';
 import { changeOwnPassword } from '../users/users-service';
 import type { createCsrf } from './csrf';
 import type { configurePassport } from './passport-setup';
+import type { SignInLimits } from './sign-in-limits';
 
 interface AuthRouterOptions {
   csrf: ReturnType<typeof createCsrf>;
-  signInLimit: number;
-  signInWindowMs: number;
+  /** Limits on guessing passwords, kept in the database (server/auth/sign-in-limits.ts). */
+  limits: SignInLimits;
   sessionCookieName: string;
   /** The app's passport instance (server/auth/passport-setup.ts). */
   passport: ReturnType<typeof configurePassport>;
 }
 
-export function authRouter({ csrf, signInLimit, signInWindowMs, sessionCookieName, passport }: AuthRouterOptions) {
+export function authRouter({ csrf, limits, sessionCookieName, passport }: AuthRouterOptions) {
   const r = securedRouter('/api/auth');
-
-  const limiter = rateLimit({
-    windowMs: signInWindowMs,
-    limit: signInLimit,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, _res, next, options) => {
-      const minutes = Math.ceil(options.windowMs / 60000);
-      next(
-        new AppError(
-          429,
-          'rate_limited',
-          `Too many sign-in attempts from here. Please wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.`,
-        ),
-      );
-    },
-  });
 
   r.get('/me', (req, res) => {
     csrf.issueToken(req, res);
     res.json({ user: req.user ?? null });
   });
 
-  r.post('/sign-in', limiter, (req: Request, res: Response, next: NextFunction) => {
-    parseInput(signInSchema, req.body, 'sign-in');
-    passport.authenticate('local', (err: unknown, user: Express.User | false) => {
-      if (err) return next(err);
-      if (!user) return next(new AppError(401, 'bad_credentials', 'That e-mail and password do not match a sign-in.'));
-      // passport regenerates the session here, so the old session id cannot be reused.
-      req.login(user, (loginErr) => {
-        if (loginErr) return next(loginErr);
-        csrf.issueToken(req, res, true);
-        res.json({ user });
+  r.post('/sign-in', async (req: Request, res: Response, next: NextFunction) => {
+    const { email } = parseInput(signInSchema, req.body, 'sign-in');
+    const checkPassword = () =>
+      new Promise<Express.User | false>((resolve, reject) => {
+        passport.authenticate('local', (err: unknown, user: Express.User | false) => (err ? reject(err) : resolve(user)))(req, res, next);
       });
-    })(req, res, next);
+    const user = await limits.signIn(req, res, email, checkPassword);
+    if (!user) throw new AppError(401, 'bad_credentials', 'That e-mail and password do not match a sign-in.');
+    // passport regenerates the session here, so the old session id cannot be reused.
+    req.login(user, (loginErr) => {
+      if (loginErr) return next(loginErr);
+      csrf.issueToken(req, res, true);
+      res.json({ user });
+    });
   });
 
   // Guessing the current password is limited like guessing at sign-in.
-  r.post('/password', limiter, async (req, res, next) => {
+  r.post('/password', async (req, res, next) => {
     const { currentPassword, newPassword } = parseInput(changePasswordSchema, req.body, 'password');
     const user = req.user!;
-    await changeOwnPassword(user.id, currentPassword, newPassword);
+    await limits.checkCurrentPassword(
+      user.id,
+      () => changeOwnPassword(user.id, currentPassword, newPassword),
+      (err) => err instanceof AppError && err.fields?.['currentPassword'] !== undefined,
+    );
     // Every session has ended, this one too: start a new one so whoever changed it stays signed in.
     req.login(user, (loginErr) => {
       if (loginErr) return next(loginErr);

@@ -1,3 +1,4 @@
+import request from 'supertest';
 import { ApiAgent, addUser, signedIn, startTestApp, TEST_PASSWORD, type TestApp } from '../testing/test-app';
 
 describe('sign-in, sessions and CSRF', () => {
@@ -32,13 +33,23 @@ describe('sign-in, sessions and CSRF', () => {
   });
 
   it('gives a new session id on sign-in, so a planted session id is worthless', async () => {
-    const agent = await new ApiAgent(t.app).start();
-    const before = agent.sessionId;
-    expect(before).not.toBe('');
-    await agent.signIn(owner.email);
-    expect(agent.sessionId).not.toBe('');
-    expect(agent.sessionId).not.toBe(before);
-    expect(await t.knex('session').where('sid', before)).toHaveLength(0);
+    // Someone signs in as themselves and plants their session cookie in the owner's browser.
+    const planter = await addUser(t.knex, 'workroom');
+    const theirs = await signedIn(t.app, planter.email);
+    const planted = `ks.sid=${encodeURIComponent(theirs.sessionCookie)}`;
+    const me = await request(t.app).get('/api/auth/me').set('Cookie', planted);
+    const token = decodeURIComponent(/XSRF-TOKEN=([^;]+)/.exec(String(me.headers['set-cookie']))![1]!);
+    const res = await request(t.app)
+      .post('/api/auth/sign-in')
+      .set('Cookie', `${planted}; XSRF-TOKEN=${encodeURIComponent(token)}`)
+      .set('X-XSRF-TOKEN', token)
+      .send({ email: owner.email, password: TEST_PASSWORD });
+    expect(res.status).toBe(200);
+    const fresh = /ks\.sid=s%3A([^.;]+)/.exec(String(res.headers['set-cookie']))?.[1];
+    expect(fresh).toBeDefined();
+    expect(fresh).not.toBe(theirs.sessionId);
+    expect(await t.knex('session').where('sid', theirs.sessionId)).toHaveLength(0);
+    expect((await theirs.get('/api/auth/me')).body.user).toBeNull();
   });
 
   it('destroys the session on sign-out: the old cookie no longer works', async () => {

@@ -9,11 +9,4 @@ declare global {
   }
 }
 
-declare module 'express-session' {
-  interface SessionData {
-    /** Set when a CSRF token was issued, so an anonymous session is kept. */
-    csrfIssued?: boolean;
-  }
-}
-
 export {};

@@ -1,5 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { isIP } from 'node:net';
 import path from 'node:path';
 import { z } from 'zod';
 
@@ -9,6 +10,35 @@ export const FAKE_PAYMENTS_WEBHOOK_SECRET = 'whsec_keepstitch_local_fake';
 
 /** The project's own data folder (git-ignored): database cluster, secrets, uploads. */
 export const DATA_DIR = path.resolve(__dirname, '..', '..', '.data');
+
+const TRUST_PROXY_HELP =
+  'TRUST_PROXY must be false, true, the number of proxies in front of the app (such as 1), or their addresses separated by commas (such as loopback or 10.0.0.5, 10.0.0.0/8)';
+
+/** A proxy address Express's 'trust proxy' takes: a name of a range, an address, or address/prefix. */
+function isProxyAddress(entry: string): boolean {
+  if (['loopback', 'linklocal', 'uniquelocal'].includes(entry)) return true;
+  const [address = '', prefix, extra] = entry.split('/');
+  const version = isIP(address);
+  if (!version || extra !== undefined) return false;
+  return prefix === undefined || (/^\d{1,3}$/.test(prefix) && Number(prefix) <= (version === 4 ? 32 : 128));
+}
+
+/**
+ * Which proxies in front of the app are trusted to say the client's address in
+ * X-Forwarded-For (Express's 'trust proxy'): false (none, the default: the
+ * address is the connection's), true (any: only when nothing but the proxy can
+ * reach the app), a number of hops, or a list of the proxies' addresses.
+ */
+const trustProxySchema = z.string().transform((raw, ctx): boolean | number | string[] => {
+  const value = raw.trim().toLowerCase();
+  if (value === 'false' || value === '') return false;
+  if (value === 'true') return true;
+  if (/^\d+$/.test(value)) return Number(value);
+  const entries = value.split(',').map((e) => e.trim());
+  if (entries.every(isProxyAddress)) return entries;
+  ctx.addIssue({ code: 'custom', message: TRUST_PROXY_HELP });
+  return z.NEVER;
+});
 
 const configSchema = z.object({
   nodeEnv: z.enum(['development', 'production', 'test']),
@@ -20,9 +50,14 @@ const configSchema = z.object({
   sessionSecret: z.string().min(32, { message: 'SESSION_SECRET must be at least 32 characters' }),
   /** Serve cookies with the Secure flag (set when the app is reached over TLS). */
   secureCookies: z.boolean(),
-  /** Sign-in attempts allowed per client address in one window. */
-  signInLimit: z.coerce.number().int().positive(),
-  signInWindowMs: z.coerce.number().int().positive(),
+  /** Failed sign-in attempts at one account (from anywhere) in one window; then it is refused until the window ends. */
+  signInLimit: z.coerce.number().int().positive({ message: 'SIGN_IN_LIMIT must be a whole number of attempts, 1 or more' }),
+  /** Failed sign-in attempts from one address in one window before each further one waits signInDelayMs (server/auth/sign-in-limits.ts). */
+  signInAddressLimit: z.coerce.number().int().positive({ message: 'SIGN_IN_ADDRESS_LIMIT must be a whole number of attempts, 1 or more' }),
+  signInWindowMs: z.coerce.number().int().positive({ message: 'SIGN_IN_WINDOW_MS must be a positive number of milliseconds' }),
+  /** How long an attempt from an address past its limit waits before its password is checked. */
+  signInDelayMs: z.coerce.number().int().min(0, { message: 'SIGN_IN_DELAY_MS must be 0 or more milliseconds' }),
+  trustProxy: trustProxySchema,
   /** A session ends after this many minutes without a request. */
   sessionIdleMinutes: z.coerce.number().positive({ message: 'SESSION_IDLE_MINUTES must be a positive number of minutes' }),
   /** An unchanged session's expiry is written to the database at most this often. */
@@ -77,7 +112,10 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     sessionSecret: env['SESSION_SECRET'] ?? (nodeEnv === 'production' ? undefined : devSessionSecret()),
     secureCookies: env['SECURE_COOKIES'] === 'true',
     signInLimit: env['SIGN_IN_LIMIT'] ?? '10',
+    signInAddressLimit: env['SIGN_IN_ADDRESS_LIMIT'] ?? '10',
     signInWindowMs: env['SIGN_IN_WINDOW_MS'] ?? String(15 * 60 * 1000),
+    signInDelayMs: env['SIGN_IN_DELAY_MS'] ?? '2000',
+    trustProxy: env['TRUST_PROXY'] ?? 'false',
     sessionIdleMinutes: env['SESSION_IDLE_MINUTES'] ?? '720',
     sessionTouchSeconds: env['SESSION_TOUCH_SECONDS'] ?? '60',
     webRoot: env['WEB_ROOT'] ?? path.resolve(__dirname, '..', '..', 'dist', 'keepstitch', 'browser'),

@@ -13,6 +13,8 @@ import { createTestDatabase } from './test-database';
 
 export interface TestApp {
   app: Express;
+  /** The configuration the app was built with (for a second app on the same database). */
+  config: AppConfig;
   knex: Knex;
   /** The test database's own address. */
   url: string;
@@ -32,6 +34,7 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
       DATABASE_URL: db.url,
       SESSION_SECRET: 'test-secret-'.padEnd(48, 'x'),
       SIGN_IN_LIMIT: '1000',
+      SIGN_IN_ADDRESS_LIMIT: '1000',
       WEB_ROOT: '/nonexistent',
       UPLOAD_DIR: uploadDir,
     }),
@@ -41,6 +44,7 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
   const app = createApp({ config, knex: db.knex, sessionPool, log: process.env['TEST_SERVER_LOG'] ? (e) => console.error(e) : () => undefined });
   return {
     app,
+    config,
     knex: db.knex,
     url: db.url,
     uploadDir,
