@@ -2,7 +2,7 @@ import type { Request } from 'express';
 import { snakeCaseMappers } from 'objection';
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
-import { UserModel } from '../users/user-model';
+import { UserModel } from '../models/user-model';
 import { verifyPassword } from './password';
 import type { SessionStore } from './session-store';
 import './session-user';

@@ -1,4 +1,4 @@
-import type { PublicUser } from '../users/user-model';
+import type { PublicUser } from '../models/user-model';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace

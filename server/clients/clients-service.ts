@@ -1,8 +1,8 @@
 import { AppError } from '../core/app-error';
 import { fieldsFor, present, sortFor, whereMatches } from '../core/field-policy';
 import { pageOf } from '../core/paging';
-import { UserModel } from '../users/user-model';
-import { ClientModel } from './client-model';
+import { UserModel } from '../models/user-model';
+import { ClientModel } from '../models/client-model';
 import type { CreateClientInput, ListClientsQuery, UpdateClientInput } from './clients-schemas';
 
 const NOT_FOUND = 'That client';

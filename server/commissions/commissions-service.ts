@@ -5,16 +5,16 @@ import { mayUse, present, sortFor, whereMatches } from '../core/field-policy';
 import { pageOf } from '../core/paging';
 import { readTogether } from '../core/read-together';
 import { daysBetween, today } from '../core/calendar';
-import { ClientModel } from '../clients/client-model';
-import { GarmentModel, PanelModel } from '../garments/garment-model';
+import { ClientModel } from '../models/client-model';
+import { GarmentModel, PanelModel } from '../models/garment-model';
 import { commissionCustodyEvents, custodyStates, statesFrom } from '../garments/custody';
-import { PhotoModel } from '../photos/photo-model';
-import { CommissionModel, HoursModel, StageMoveModel } from './commission-model';
+import { PhotoModel } from '../models/photo-model';
+import { CommissionModel, HoursModel, StageMoveModel } from '../models/commission-model';
 import type { CreateCommissionInput, ListCommissionsQuery, UpdateCommissionInput } from './commissions-schemas';
 import { acceptedQuote, paidPayments, paymentState, paymentStateFrom } from '../payments/payment-state';
 import { enqueueMail } from '../mail/outbox-service';
 import { readyMail } from '../mail/mail-templates';
-import { StudioSettingsModel } from '../settings/settings-model';
+import { StudioSettingsModel } from '../models/settings-model';
 
 const NOT_FOUND = 'That commission';
 

@@ -1,6 +1,6 @@
-import { GarmentModel } from '../garments/garment-model';
-import { ClientModel } from '../clients/client-model';
-import { CommissionModel } from '../commissions/commission-model';
+import { GarmentModel } from '../models/garment-model';
+import { ClientModel } from '../models/client-model';
+import { CommissionModel } from '../models/commission-model';
 import { addUser, startTestApp, type TestApp } from '../testing/test-app';
 import { addCommission } from '../testing/fixtures';
 import { readTogether } from './read-together';

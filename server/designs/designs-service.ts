@@ -20,11 +20,11 @@ import { AppError } from '../core/app-error';
 import { present } from '../core/field-policy';
 import type { Role } from '../core/roles';
 import { findVisibleCommission } from '../commissions/commissions-service';
-import { CommissionModel } from '../commissions/commission-model';
-import { GarmentModel, PanelModel } from '../garments/garment-model';
-import { StockFabricModel } from '../stock/stock-fabric-model';
-import { UserModel } from '../users/user-model';
-import { DesignVersionModel, type ClientResponse } from './design-model';
+import { CommissionModel } from '../models/commission-model';
+import { GarmentModel, PanelModel } from '../models/garment-model';
+import { StockFabricModel } from '../models/stock-fabric-model';
+import { UserModel } from '../models/user-model';
+import { DesignVersionModel, type ClientResponse } from '../models/design-model';
 
 const NO_DESIGN = 'A design for this commission';
 

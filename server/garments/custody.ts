@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { deriveCustody, type CustodyEvent, type CustodyState } from '@keepstitch/shared';
-import { CustodyEventModel } from './garment-model';
+import { CustodyEventModel } from '../models/garment-model';
 
 export type CustodyStates = Map<number, { state: CustodyState; events: CustodyEventModel[] }>;
 

@@ -4,11 +4,11 @@ import type { z } from 'zod';
 import { AppError } from '../core/app-error';
 import { present } from '../core/field-policy';
 import { parseInput } from '../core/validate';
-import { CommissionModel } from '../commissions/commission-model';
+import { CommissionModel } from '../models/commission-model';
 import { findVisibleCommission, garmentView } from '../commissions/commissions-service';
-import { PhotoModel } from '../photos/photo-model';
+import { PhotoModel } from '../models/photo-model';
 import { custodyStates } from './custody';
-import { CustodyEventModel, GarmentModel, PanelModel } from './garment-model';
+import { CustodyEventModel, GarmentModel, PanelModel } from '../models/garment-model';
 import { clientGarmentSchema, createGarmentSchema, featuresOutside, type custodyEventSchema, type panelSchema, type updateGarmentSchema, type updatePanelSchema } from './garments-schemas';
 
 const NOT_FOUND = 'That garment';

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import type { Transporter } from 'nodemailer';
-import { OutboxMailModel, type StoredAttachment } from './outbox-model';
+import { OutboxMailModel, type StoredAttachment } from '../models/outbox-model';
 
 export interface NewMail {
   kind: string;

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
-import { QuoteModel } from '../quotes/quote-model';
-import { PaymentModel, countedPence } from './payment-model';
+import { QuoteModel } from '../models/quote-model';
+import { PaymentModel, countedPence } from '../models/payment-model';
 
 /** The accepted quote of a commission, if any. */
 export function acceptedQuote(commissionId: number, trx?: Knex.Transaction) {

@@ -2,17 +2,17 @@ import Stripe from 'stripe';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
 import type { AppConfig } from '../core/config';
-import { ClientModel } from '../clients/client-model';
-import { CommissionModel, StageMoveModel } from '../commissions/commission-model';
+import { ClientModel } from '../models/client-model';
+import { CommissionModel, StageMoveModel } from '../models/commission-model';
 import { findVisibleCommission } from '../commissions/commissions-service';
 import { enqueueMail } from '../mail/outbox-service';
 import { overpaymentMail, paymentHeldMail, receiptMail } from '../mail/mail-templates';
-import { StudioSettingsModel } from '../settings/settings-model';
-import { QuoteModel } from '../quotes/quote-model';
-import { UserModel } from '../users/user-model';
+import { StudioSettingsModel } from '../models/settings-model';
+import { QuoteModel } from '../models/quote-model';
+import { UserModel } from '../models/user-model';
 import { formatPounds } from '@keepstitch/shared';
 import { heldPayment, paymentState } from './payment-state';
-import { PaymentModel, countedPence, type PaymentStatus, type RefundReason } from './payment-model';
+import { PaymentModel, countedPence, type PaymentStatus, type RefundReason } from '../models/payment-model';
 
 type Kind = 'deposit' | 'balance';
 

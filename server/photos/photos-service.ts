@@ -1,10 +1,10 @@
 import { mkdir, readdir, rename, unlink } from 'node:fs/promises';
 import path from 'node:path';
 import { AppError } from '../core/app-error';
-import { CommissionModel } from '../commissions/commission-model';
+import { CommissionModel } from '../models/commission-model';
 import { findVisibleCommission } from '../commissions/commissions-service';
 import { findVisibleGarment } from '../garments/garments-service';
-import { PhotoModel } from './photo-model';
+import { PhotoModel } from '../models/photo-model';
 import { removeFiles, storeImages, type UploadedFile } from './image-store';
 
 /** Stores photos and their rows together: if the rows cannot be written, the files go too. */

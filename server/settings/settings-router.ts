@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { VAT_RATES } from '@keepstitch/shared';
 import { securedRouter } from '../core/secured-router';
 import { optionalText, parseInput } from '../core/validate';
-import { StudioSettingsModel } from './settings-model';
+import { StudioSettingsModel } from '../models/settings-model';
 
 export const settingsSchema = z
   .object({

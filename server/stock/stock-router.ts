@@ -5,7 +5,7 @@ import { present, sortFor } from '../core/field-policy';
 import { securedRouter } from '../core/secured-router';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 import { optionalText, parseId, parseInput } from '../core/validate';
-import { StockFabricModel } from './stock-fabric-model';
+import { StockFabricModel } from '../models/stock-fabric-model';
 
 const fields = {
   name: z.string({ message: 'Name the fabric.' }).trim().min(1, 'Name the fabric.').max(200),

@@ -1,8 +1,8 @@
 import { AppError } from '../core/app-error';
 import { present } from '../core/field-policy';
 import { hashPassword, verifyPassword } from '../auth/password';
-import { ClientModel } from '../clients/client-model';
-import { UserModel } from './user-model';
+import { ClientModel } from '../models/client-model';
+import { UserModel } from '../models/user-model';
 import type { CreateUserInput } from './users-schemas';
 
 /** The studio's sign-ins, as the owner sees them. */

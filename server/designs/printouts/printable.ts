@@ -1,5 +1,5 @@
-import type { CommissionModel } from '../../commissions/commission-model';
-import type { DesignVersionModel } from '../design-model';
+import type { CommissionModel } from '../../models/commission-model';
+import type { DesignVersionModel } from '../../models/design-model';
 import type { DesignSources } from '@keepstitch/shared';
 
 export interface PrintableDesign {

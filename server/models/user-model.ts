@@ -1,6 +1,6 @@
 import { Model } from 'objection';
 import type { Role } from '../core/roles';
-import { ClientModel } from '../clients/client-model';
+import { ClientModel } from './client-model';
 
 export class UserModel extends Model {
   static override tableName = 'users';

@@ -1,6 +1,6 @@
 import { Model, type QueryBuilder } from 'objection';
 import type { AgeGroup, CommissionKind, Stage } from '@keepstitch/shared';
-import { ClientModel } from '../clients/client-model';
+import { ClientModel } from './client-model';
 
 export class CommissionModel extends Model {
   static override tableName = 'commissions';
