@@ -19,6 +19,7 @@ import { healthRouter } from './health/health-router';
 import { clientsRouter } from './clients/clients-router';
 import { usersRouter } from './users/users-router';
 import { commissionsRouter } from './commissions/commissions-router';
+import { workroomRouter } from './workroom/workroom-router';
 import { garmentsRouter } from './garments/garments-router';
 import { photosRouter } from './photos/photos-router';
 import { stockRouter } from './stock/stock-router';
@@ -121,7 +122,8 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
   );
   app.use(clientsRouter());
   app.use(usersRouter());
-  app.use(commissionsRouter(config, kickMail));
+  app.use(commissionsRouter());
+  app.use(workroomRouter(config, kickMail));
   app.use(garmentsRouter());
   app.use(photosRouter(config.uploadDir));
   app.use(stockRouter());

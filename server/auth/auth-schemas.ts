@@ -1,5 +1,5 @@
-import { PASSWORD_LENGTH } from '@keepstitch/shared';
 import { z } from 'zod';
+import { passwordSchema } from '../users/users-schemas';
 
 export const signInSchema = z
   .object({
@@ -7,12 +7,6 @@ export const signInSchema = z
     password: z.string({ message: 'Enter your password.' }).min(1, 'Enter your password.').max(200),
   })
   .strict();
-
-/** The rule for every password set in Keepstitch. */
-export const passwordSchema = z
-  .string({ message: 'Enter a password.' })
-  .min(PASSWORD_LENGTH.min, `Use at least ${PASSWORD_LENGTH.min} characters for a password.`)
-  .max(PASSWORD_LENGTH.max, `A password can be at most ${PASSWORD_LENGTH.max} characters.`);
 
 export const changePasswordSchema = z
   .object({

@@ -3,7 +3,7 @@ import { snakeCaseMappers } from 'objection';
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { UserModel } from '../models/user-model';
-import { verifyPassword } from './password';
+import { verifyPassword } from '../users/password';
 import type { SessionStore } from './session-store';
 import './session-user';
 

@@ -19,7 +19,7 @@ import {
 import { AppError } from '../core/app-error';
 import { present } from '../core/field-policy';
 import type { Role } from '../core/roles';
-import { findVisibleCommission } from '../commissions/commissions-service';
+import { findVisibleCommission } from '../commissions/commission-access';
 import { CommissionModel } from '../models/commission-model';
 import { GarmentModel, PanelModel } from '../models/garment-model';
 import { StockFabricModel } from '../models/stock-fabric-model';

@@ -1,26 +1,14 @@
 import { checkCustodyEvent, featuresToRemove, type CustodyKind } from '@keepstitch/shared';
-import type { Knex } from 'knex';
 import type { z } from 'zod';
 import { AppError } from '../core/app-error';
 import { present } from '../core/field-policy';
 import { parseInput } from '../core/validate';
-import { CommissionModel } from '../models/commission-model';
-import { findVisibleCommission, garmentView } from '../commissions/commissions-service';
+import { findVisibleCommission, findVisibleGarment } from '../commissions/commission-access';
+import { garmentView } from './garment-view';
 import { PhotoModel } from '../models/photo-model';
 import { custodyStates } from './custody';
 import { CustodyEventModel, GarmentModel, PanelModel } from '../models/garment-model';
 import { clientGarmentSchema, createGarmentSchema, featuresOutside, type custodyEventSchema, type panelSchema, type updateGarmentSchema, type updatePanelSchema } from './garments-schemas';
-
-const NOT_FOUND = 'That garment';
-
-/** A garment the user may see (a client: only on its own commissions), with its commission. */
-export async function findVisibleGarment(user: Express.User, id: number, trx?: Knex.Transaction) {
-  const garment = await GarmentModel.query(trx).findById(id);
-  if (!garment) throw AppError.notFound(NOT_FOUND);
-  const commission = await CommissionModel.query(trx).modify('visibleTo', user).findById(garment.commissionId);
-  if (!commission) throw AppError.notFound(NOT_FOUND);
-  return { garment, commission };
-}
 
 export async function createGarment(user: Express.User, commissionId: number, body: unknown) {
   const commission = await findVisibleCommission(user, commissionId);

@@ -2,8 +2,7 @@ import { mkdir, readdir, rename, unlink } from 'node:fs/promises';
 import path from 'node:path';
 import { AppError } from '../core/app-error';
 import { CommissionModel } from '../models/commission-model';
-import { findVisibleCommission } from '../commissions/commissions-service';
-import { findVisibleGarment } from '../garments/garments-service';
+import { findVisibleCommission, findVisibleGarment } from '../commissions/commission-access';
 import { PhotoModel } from '../models/photo-model';
 import { removeFiles, storeImages, type UploadedFile } from './image-store';
 

@@ -7,7 +7,7 @@ import { addDays, today } from '../core/calendar';
 import type { AppConfig } from '../core/config';
 import { ClientModel } from '../models/client-model';
 import { CommissionModel, StageMoveModel } from '../models/commission-model';
-import { findVisibleCommission } from '../commissions/commissions-service';
+import { findVisibleCommission } from '../commissions/commission-access';
 import { enqueueMail } from '../mail/outbox-service';
 import { quoteMail } from '../mail/mail-templates';
 import { StudioSettingsModel } from '../models/settings-model';

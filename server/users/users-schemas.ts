@@ -1,5 +1,11 @@
+import { PASSWORD_LENGTH } from '@keepstitch/shared';
 import { z } from 'zod';
-import { passwordSchema } from '../auth/auth-schemas';
+
+/** The rule for every password set in Keepstitch. */
+export const passwordSchema = z
+  .string({ message: 'Enter a password.' })
+  .min(PASSWORD_LENGTH.min, `Use at least ${PASSWORD_LENGTH.min} characters for a password.`)
+  .max(PASSWORD_LENGTH.max, `A password can be at most ${PASSWORD_LENGTH.max} characters.`);
 
 export const createUserSchema = z
   .object({

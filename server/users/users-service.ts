@@ -1,6 +1,6 @@
 import { AppError } from '../core/app-error';
 import { present } from '../core/field-policy';
-import { hashPassword, verifyPassword } from '../auth/password';
+import { hashPassword, verifyPassword } from './password';
 import { ClientModel } from '../models/client-model';
 import { UserModel } from '../models/user-model';
 import type { CreateUserInput } from './users-schemas';

@@ -1,0 +1,102 @@
+import { cautionsFor, featuresToRemove, nextStages } from '@keepstitch/shared';
+import { AppError } from '../core/app-error';
+import { present } from '../core/field-policy';
+import { readTogether } from '../core/read-together';
+import { ClientModel } from '../models/client-model';
+import { CommissionModel, HoursModel, StageMoveModel } from '../models/commission-model';
+import { GarmentModel, PanelModel } from '../models/garment-model';
+import { PhotoModel } from '../models/photo-model';
+import { commissionView } from '../commissions/commissions-service';
+import { commissionCustodyEvents, statesFrom } from '../garments/custody';
+import { garmentView } from '../garments/garment-view';
+import { acceptedQuote, paidPayments, paymentStateFrom } from '../payments/payment-state';
+import { factsFrom } from './stage-facts';
+
+const NOT_FOUND = 'That commission';
+
+/** Groups rows by a key, keeping their order. */
+function groupBy<T>(rows: T[], key: (row: T) => number | null): Map<number, T[]> {
+  const out = new Map<number, T[]>();
+  for (const row of rows) {
+    const k = key(row);
+    if (k === null) continue;
+    const list = out.get(k);
+    if (list) list.push(row);
+    else out.set(k, [row]);
+  }
+  return out;
+}
+
+export async function getCommission(user: Express.User, id: number) {
+  const staff = user.role !== 'client';
+  // Everything the page shows, read in one round trip; the later reads are discarded when the commission is not visible.
+  const [found, garments, events, panels, photos, moves, quotes, paid, hourRows] = await readTogether([
+    CommissionModel.query()
+      .modify('visibleTo', user)
+      .join('clients as client', 'client.id', 'commissions.clientId')
+      .select('commissions.*', 'client.name as clientName')
+      .where('commissions.id', id),
+    GarmentModel.query().where('commissionId', id).orderBy('id'),
+    commissionCustodyEvents(id),
+    // A client sees no panels and no hours: those reads come back empty.
+    PanelModel.query().select('panels.*').join('garments', 'garments.id', 'panels.garmentId').where('garments.commissionId', id).modify((q) => (staff ? q : q.whereRaw('false'))).orderBy('panels.id'),
+    PhotoModel.query().where('commissionId', id).orderBy('id'),
+    StageMoveModel.query().where('commissionId', id).orderBy('movedAt').orderBy('id'),
+    acceptedQuote(id),
+    paidPayments(id),
+    hoursQuery(id).modify((q) => (staff ? q : q.whereRaw('false'))),
+  ]);
+  const c = found[0];
+  if (!c) throw AppError.notFound(NOT_FOUND);
+  c.client = ClientModel.fromJson({ id: c.clientId, name: (c as CommissionModel & { clientName: string }).clientName }, { skipValidation: true });
+  const money = paymentStateFrom(quotes[0], paid);
+  const hours = staff ? hoursFrom(hourRows) : undefined;
+  const states = statesFrom(garments.map((g) => g.id), events);
+  const panelsOf = groupBy(panels, (p) => p.garmentId);
+  const photosOf = groupBy(photos, (p) => p.garmentId);
+  const facts = factsFrom(states, money);
+  const garmentViews = garments.map((g) => {
+    const custody = states.get(g.id)!;
+    return present('garment', user.role, {
+      ...garmentView(g, user),
+      status: custody.state.status,
+      received: custody.state.received,
+      washed: custody.state.washed,
+      place: staff ? custody.state.place : undefined,
+      removeForSafety: featuresToRemove(c.ageGroup, g.features),
+      panels: staff ? (panelsOf.get(g.id) ?? []) : undefined,
+      photos: (photosOf.get(g.id) ?? []).map((p) => p.toPublic()),
+    });
+  });
+  return present('commission', user.role, {
+    ...commissionView(c, user),
+    cautions: cautionsFor(c.ageGroup),
+    garments: garmentViews,
+    progressPhotos: photos.filter((p) => p.kind === 'progress').map((p) => p.toPublic()),
+    stageHistory: moves.map((m) => ({ id: m.id, fromStage: m.fromStage, toStage: m.toStage, note: staff ? m.note : undefined, movedAt: m.movedAt })),
+    hours,
+    nextStages: staff ? nextStages(c.stage, facts) : undefined,
+    facts,
+  });
+}
+
+/** The hours logged on a commission, with who logged them, in the order worked. */
+function hoursQuery(commissionId: number) {
+  return HoursModel.query()
+    .select('hoursLogged.*', 'users.name as userName')
+    .leftJoin('users', 'users.id', 'hoursLogged.userId')
+    .where('commissionId', commissionId)
+    .orderBy('workedOn')
+    .orderBy('hoursLogged.id');
+}
+
+/** Hours per stage and in all, two decimals. */
+function hoursFrom(rows: HoursModel[]) {
+  const byStage: Record<string, string> = {};
+  let total = 0;
+  for (const r of rows) {
+    byStage[r.stage] = (Number(byStage[r.stage] ?? 0) + Number(r.hours)).toFixed(2);
+    total += Number(r.hours);
+  }
+  return { entries: rows, byStage, total: total.toFixed(2) };
+}
