@@ -110,7 +110,7 @@ describe('SettingsPage', () => {
         vatNumber: 'GB123456789',
         email: 'hello@larkspur.test',
         validityDays: 30,
-        blockMinutes: { square: 6, rectangle: 0, hst: 12, qst: 0, flying_geese: 0, foundation: 0, plate: 0, fan: 45 },
+        blockMinutes: { square: 6, rectangles: 0, hst: 12, qst: 0, 'flying-geese': 0, foundation: 0, plate: 0, fan: 45 },
       }),
     );
     request.flush({ ...stored, hourlyRatePence: 3050, depositPercent: '25.00', vatRegistered: true, vatRate: '5', vatMode: 'invoice' });
