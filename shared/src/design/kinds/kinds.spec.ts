@@ -1,0 +1,78 @@
+import Decimal from 'decimal.js';
+import { deriveDesign } from '../derive-design';
+import { designDrawing } from '../design-drawing';
+import { fabricKey, type BlockSpec, type DesignBody } from '../design-body';
+import { BLOCK_KIND_MODULES, blockInputsByName, type BlockKind, type BlockParams, type KindInput } from './index';
+
+const inch = (n: number) => new Decimal(n).times('25.4').toString();
+
+// Checked by tsc (shared/tsconfig.json includes the specs): the stored block's fields are the kinds' inputs.
+type Same<A, B> = (<T>() => T extends A ? 1 : 2) extends <T>() => T extends B ? 1 : 2 ? true : false;
+const paramsAreTheInputs: Same<BlockParams, { units?: number; method?: 'four-at-a-time' | 'stitch-and-flip'; blades?: number; outerRadiusMm?: string; innerRadiusMm?: string; meanStripWidthMm?: string }> = true;
+const kindsAreListed: Same<BlockKind, 'square' | 'rectangles' | 'hst' | 'qst' | 'flying-geese' | 'foundation' | 'plate' | 'fan'> = true;
+
+describe('the block kind registry', () => {
+  it('lists each kind once, each with a label, roles and a labour line', () => {
+    expect(paramsAreTheInputs && kindsAreListed).toBe(true);
+    const kinds = BLOCK_KIND_MODULES.map((k) => k.kind);
+    expect(new Set(kinds).size).toBe(kinds.length);
+    for (const k of BLOCK_KIND_MODULES) {
+      expect(k.label.trim()).not.toBe('');
+      expect(k.roles.length).toBeGreaterThan(0);
+      expect(new Set(k.roles).size).toBe(k.roles.length);
+      expect(k.labour.label.trim()).not.toBe('');
+      expect(k.labour.minutes).toBeGreaterThan(0);
+    }
+  });
+
+  it('has kinds that share a field declare it alike (one check for it in the design schema)', () => {
+    const check = (i: KindInput) => (i.type === 'count' ? { type: i.type, min: i.min, max: i.max } : i.type === 'choice' ? { type: i.type, options: i.options.map((o) => o.value) } : { type: i.type });
+    for (const [name, inputs] of blockInputsByName()) {
+      for (const input of inputs) expect([name, check(input)]).toEqual([name, check(inputs[0]!)]);
+    }
+  });
+
+  it('starts each count and choice inside what it allows', () => {
+    for (const k of BLOCK_KIND_MODULES) {
+      for (const input of k.inputs) {
+        if (input.type === 'count') expect(input.default >= input.min && input.default <= input.max).toBe(true);
+        if (input.type === 'choice') expect(input.options.map((o) => o.value)).toContain(input.default);
+      }
+    }
+  });
+});
+
+describe('every kind, derived and drawn from the registry', () => {
+  // One 12 in block of each kind at its inputs' starting values (a plate's or fan's radii 5 and 1 1/2 in, which
+  // derivation needs), each role given a fabric of its own.
+  const lengths: Record<string, string> = { outerRadiusMm: inch(5), innerRadiusMm: inch(1.5) };
+  const blocks: BlockSpec[] = BLOCK_KIND_MODULES.map((k, i) => ({
+    id: 'ABCDEFGHIJKL'[i]!,
+    name: k.label,
+    kind: k.kind,
+    ...Object.fromEntries(k.inputs.flatMap((input) => (input.type !== 'length' ? [[input.name, input.default]] : lengths[input.name] ? [[input.name, lengths[input.name]]] : []))),
+  })) as BlockSpec[];
+  let stock = 0;
+  const assignments = blocks.flatMap((b) => BLOCK_KIND_MODULES.find((k) => k.kind === b.kind)!.roles.map((role) => ({ target: { kind: 'piece' as const, key: `block:${b.id}:${role}` }, fabric: { kind: 'stock' as const, stockId: ++stock } })));
+  const body: DesignBody = {
+    units: 'imperial',
+    target: { preset: null, dropMm: null, widthMm: inch(48), lengthMm: inch(24) },
+    layout: { setting: 'straight', rows: 2, columns: 4, blockMm: inch(12), sashing: null, borders: [] },
+    blocks,
+    pattern: blocks.map((b) => b.id),
+    assignments,
+    finishing: { bindingStockId: null, bindingStripMm: inch(2.5), backingStockId: null, waddingStockId: null, prewash: false, shrinkPercent: '0' },
+    rules: { minimumPerGarment: 0 },
+  };
+  const d = deriveDesign(body);
+  const drawing = designDrawing(body, d);
+
+  it.each(blocks.map((b) => [b.kind, b] as const))('%s: cuts pieces of every role, sews them, and draws every role in its block', (_kind, b) => {
+    const roles = BLOCK_KIND_MODULES.find((k) => k.kind === b.kind)!.roles;
+    for (const role of roles) expect(d.pieces.filter((p) => p.key === `block:${b.id}:${role}`).reduce((n, p) => n + p.count, 0)).toBeGreaterThan(0);
+    expect(d.sewing.find((s) => s.title.startsWith(`Block ${b.id},`))?.steps.length).toBeGreaterThan(0);
+    const position = d.positions.find((p) => p.blockId === b.id)!;
+    const fills = new Set(drawing.shapes.filter((s) => s.position === position.index).map((s) => s.fill));
+    expect(fills).toEqual(new Set(roles.map((role) => fabricKey(assignments.find((a) => a.target.key === `block:${b.id}:${role}`)!.fabric))));
+  });
+});
