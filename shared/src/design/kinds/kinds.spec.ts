@@ -46,7 +46,7 @@ describe('the block kind registry', () => {
 });
 
 describe('every kind, derived and drawn from the registry', () => {
-  // One 12 in block of each kind at its inputs' starting values (a plate's or fan's radii 5 and 1 1/2 in, which
+  // A row of one 12 in block of each kind at its inputs' starting values (a plate's or fan's radii 5 and 1 1/2 in, which
   // derivation needs), each role given a fabric of its own.
   const lengths: Record<string, string> = { outerRadiusMm: inch(5), innerRadiusMm: inch(1.5) };
   const blocks: BlockSpec[] = BLOCK_KIND_MODULES.map((k, i) => ({
@@ -59,8 +59,8 @@ describe('every kind, derived and drawn from the registry', () => {
   const assignments = blocks.flatMap((b) => BLOCK_KIND_MODULES.find((k) => k.kind === b.kind)!.roles.map((role) => ({ target: { kind: 'piece' as const, key: `block:${b.id}:${role}` }, fabric: { kind: 'stock' as const, stockId: ++stock } })));
   const body: DesignBody = {
     units: 'imperial',
-    target: { preset: null, dropMm: null, widthMm: inch(48), lengthMm: inch(24) },
-    layout: { setting: 'straight', rows: 2, columns: 4, blockMm: inch(12), sashing: null, borders: [] },
+    target: { preset: null, dropMm: null, widthMm: inch(12 * blocks.length), lengthMm: inch(12) },
+    layout: { setting: 'straight', rows: 1, columns: blocks.length, blockMm: inch(12), sashing: null, borders: [] },
     blocks,
     pattern: blocks.map((b) => b.id),
     assignments,
