@@ -34,7 +34,7 @@ export async function seed(knex: Knex): Promise<void> {
       deposit_percent: '30',
       validity_days: 30,
       payment_terms: 'A 30% deposit books your commission into the workroom diary. The balance is due before delivery. Garments are returned with the finished piece.',
-      block_minutes: JSON.stringify({ square: 6, rectangle: 6, hst: 12, qst: 15, flying_geese: 14, foundation: 25, plate: 90, fan: 45 }),
+      block_minutes: JSON.stringify({ square: 6, rectangles: 6, hst: 12, qst: 15, 'flying-geese': 14, foundation: 25, plate: 90, fan: 45 }),
     });
   const settings = { vatRate: null, vatMode: 'line' as const, depositPercent: '30' };
 

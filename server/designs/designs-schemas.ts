@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { BLOCK_KINDS, GARMENT_GROUP_ID, GARMENT_GROUP_LIMITS, garmentGroupProblems, type DesignBody } from '@keepstitch/shared';
+import { BLOCK_KINDS, GARMENT_GROUP_ID, GARMENT_GROUP_LIMITS, blockInputsByName, garmentGroupProblems, type DesignBody, type KindInput } from '@keepstitch/shared';
 import { optionalText } from '../core/validate';
 
 /** An exact length in millimetres as a decimal string, above zero and at most 50 m. */
@@ -29,17 +29,24 @@ const groupSchema = z
   })
   .strict();
 
+/** The check of a block's input, as the block kinds declare it (kinds sharing a field declare it alike). */
+function inputSchema(input: KindInput) {
+  switch (input.type) {
+    case 'count':
+      return z.number().int().min(input.min).max(input.max).optional();
+    case 'length':
+      return mm(input.label).optional();
+    case 'choice':
+      return z.enum(input.options.map((o) => o.value) as [string, ...string[]]).optional();
+  }
+}
+
 const blockSchema = z
   .object({
     id: z.string().regex(/^[A-Z][A-Z0-9]{0,3}$/, 'A block id is a capital letter, such as A.'),
     name: z.string().trim().min(1, 'Name the block.').max(100),
     kind: z.enum(BLOCK_KINDS as [string, ...string[]], { message: 'Choose a block kind.' }),
-    units: z.number().int().min(1).max(12).optional(),
-    method: z.enum(['four-at-a-time', 'stitch-and-flip']).optional(),
-    blades: z.number().int().min(3).max(120).optional(),
-    outerRadiusMm: mm('Outer radius').optional(),
-    innerRadiusMm: mm('Inner radius').optional(),
-    meanStripWidthMm: mm('Strip width').optional(),
+    ...Object.fromEntries([...blockInputsByName()].map(([name, inputs]) => [name, inputSchema(inputs[0]!)])),
   })
   .strict();
 

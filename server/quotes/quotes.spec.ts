@@ -155,4 +155,28 @@ describe('quote lines from the design', () => {
     const quote = await owner.post(`/api/commissions/${commission}/quotes`, { lines: res.body.lines });
     expect(quote.status).toBe(201);
   });
+
+  it("prices piecing from the studio's minutes saved under the block kind's own key", async () => {
+    const c = await addUser(t.knex, 'client');
+    const commission = await addCommission(t.knex, c.clientId!);
+    await owner.patch('/api/settings', { hourlyRatePence: 3200, blockMinutes: { 'flying-geese': 30 } });
+    const inch = (n: number) => String(n * 25.4);
+    const saved = await owner.post(`/api/commissions/${commission}/design`, {
+      body: {
+        units: 'imperial',
+        target: { preset: null, dropMm: null, widthMm: inch(40), lengthMm: inch(50) },
+        layout: { setting: 'straight', rows: 5, columns: 4, blockMm: inch(10), sashing: null, borders: [] },
+        blocks: [{ id: 'A', name: 'Geese', kind: 'flying-geese', units: 2 }],
+        pattern: ['A'],
+        assignments: [],
+        finishing: { bindingStockId: null, bindingStripMm: inch(2.5), backingStockId: null, waddingStockId: null, prewash: false, shrinkPercent: '0' },
+        rules: { minimumPerGarment: 0 },
+      },
+    });
+    expect(saved.status).toBe(201);
+    const res = await owner.get(`/api/commissions/${commission}/quote-suggestion`);
+    const piecing = res.body.lines.find((l: { stage: string }) => l.stage === 'piecing');
+    // Hand-worked: 20 blocks x 30 min = 600 min = 10 h (the 15-minute default would give 5 h).
+    expect(piecing).toMatchObject({ kind: 'labour', quantity: '10.00' });
+  });
 });

@@ -2,52 +2,17 @@
 // which fabric goes where, and the finishing choices. Stored as JSON (every
 // length an exact millimetre decimal string) and derived by derive-design.ts.
 
-/** The kinds of block a design may use. */
-export type BlockKind = 'square' | 'rectangles' | 'hst' | 'qst' | 'flying-geese' | 'foundation' | 'plate' | 'fan';
+import type { BlockKind, BlockParams } from './kinds';
 
-export const BLOCK_KIND_LABELS: Readonly<Record<BlockKind, string>> = {
-  square: 'Plain square',
-  rectangles: 'Rectangles (rails)',
-  hst: 'Half-square triangles',
-  qst: 'Quarter-square triangles',
-  'flying-geese': 'Flying geese',
-  foundation: 'Stitch-and-flip foundation',
-  plate: 'Plate',
-  fan: 'Fan',
-};
+export { BLOCK_KINDS, BLOCK_KIND_LABELS, BLOCK_ROLES } from './kinds';
+export type { BlockKind, BlockParams } from './kinds';
 
-export const BLOCK_KINDS = Object.keys(BLOCK_KIND_LABELS) as BlockKind[];
-
-/** The piece kinds ("roles") of each block kind; the first takes a position's fabric. */
-export const BLOCK_ROLES: Readonly<Record<BlockKind, readonly string[]>> = {
-  square: ['square'],
-  rectangles: ['rail'],
-  hst: ['dark', 'light'],
-  qst: ['dark', 'light'],
-  'flying-geese': ['goose', 'sky'],
-  foundation: ['strip', 'foundation'],
-  plate: ['blades', 'centre', 'background'],
-  fan: ['blades', 'corner', 'background'],
-};
-
-export interface BlockSpec {
+/** A block of the design: its id and name, its kind, and what the kind's inputs set (kinds/). */
+export interface BlockSpec extends BlockParams {
   /** Short id used by the pattern and assignments, e.g. "A". */
   id: string;
   name: string;
   kind: BlockKind;
-  /**
-   * rectangles: rails in the block; hst / qst: units along each side;
-   * flying-geese: geese down each column (even; the block holds units x units/2 geese).
-   */
-  units?: number;
-  /** flying-geese only. */
-  method?: 'four-at-a-time' | 'stitch-and-flip';
-  /** plate and fan. */
-  blades?: number;
-  outerRadiusMm?: string;
-  innerRadiusMm?: string;
-  /** foundation: mean showing width of the strips. */
-  meanStripWidthMm?: string;
 }
 
 /**

@@ -6,3 +6,4 @@ export * from './fabric-colour';
 export * from './garment-groups';
 export * from './kept-feature-places';
 export * from './cut-list-words';
+export * from './kinds';

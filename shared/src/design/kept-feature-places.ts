@@ -5,6 +5,7 @@
 
 import { fabricKey, type DesignBody } from './design-body';
 import type { DesignDerivation } from './derive-design';
+import { blockKind } from './kinds';
 import { keptFeatureId, type DesignPlanSummary, type KeptFeaturePiece } from './plan-design';
 
 /** Where a kept feature sits in the top: its block position, and in a block of rails which rail (0 at the top). */
@@ -50,7 +51,7 @@ export function keptFeaturePlaces<K extends KeptFeaturePiece>(body: DesignBody, 
     const piece = derived.pieces.find((p) => p.id === k.pieceId);
     const spec = body.blocks.find((b) => b.id === piece?.blockId);
     if (!piece || !spec || piece.group !== 'block') continue;
-    const rails = spec.kind === 'rectangles' ? (spec.units ?? 1) : null;
+    const rails = blockKind(spec.kind).wholePiece?.rails?.(spec) ?? null;
     const key = fabricKey(piece.fabric);
     const positions = derived.positions.filter((p) => p.blockId === spec.id && fabricKey(p.fabrics[piece.role] ?? null) === key);
     const at = positions[Math.floor((k.copy - 1) / (rails ?? 1))];

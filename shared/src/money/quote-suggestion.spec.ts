@@ -2,7 +2,7 @@ import Decimal from 'decimal.js';
 import { deriveDesign } from '../design/derive-design';
 import { planDesign, type DesignPlanSummary } from '../design/plan-design';
 import type { DesignBody } from '../design/design-body';
-import { quarterHours, suggestQuoteLines } from './quote-suggestion';
+import { DEFAULT_BLOCK_MINUTES, quarterHours, suggestQuoteLines } from './quote-suggestion';
 
 const inch = (n: number) => new Decimal(n).times('25.4').toString();
 
@@ -79,5 +79,17 @@ describe('quote lines suggested from a design', () => {
 
   it('rounds hours up to the quarter, never below a quarter', () => {
     expect([0.01, 0.25, 0.26, 2.787, 0].map(quarterHours)).toEqual(['0.25', '0.25', '0.50', '3.00', '0.25']);
+  });
+
+  it("reads the studio's minutes under each block kind's own key, and each kind's default when the studio has none", () => {
+    const rails: DesignBody = { ...body, blocks: [{ id: 'A', name: 'Rails', kind: 'rectangles', units: 3 }, { id: 'B', name: 'Geese', kind: 'flying-geese', units: 2 }] };
+    const derivedRails = deriveDesign(rails);
+    const piecing = (blockMinutes: Record<string, number>) =>
+      suggestQuoteLines({ body: rails, derived: derivedRails, plan: planDesign(rails, derivedRails, { garments: [], stock: [] }), stock: [], hourlyRatePence: 3000, blockMinutes, knitGarments: 0, garments: 0 }).find((l) => l.stage === 'piecing')!.quantity;
+    // Hand-worked: 10 rail blocks x 12 min + 10 geese blocks x 30 min = 420 min = 7 h.
+    expect(piecing({ rectangles: 12, 'flying-geese': 30 })).toBe('7.00');
+    // Common practice defaults (rough): 10 x 8 min + 10 x 15 min = 230 min = 3.83 h -> 4.00 h.
+    expect(piecing({})).toBe('4.00');
+    expect(DEFAULT_BLOCK_MINUTES).toEqual(expect.objectContaining({ square: 5, rectangles: 8, hst: 12, qst: 15, 'flying-geese': 15, foundation: 25, plate: 90, fan: 45 }));
   });
 });

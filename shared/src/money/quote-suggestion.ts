@@ -1,5 +1,6 @@
 import Decimal from 'decimal.js';
 import type { DesignBody, BlockKind } from '../design/design-body';
+import { BLOCK_KIND_MODULES } from '../design/kinds';
 import type { DesignDerivation } from '../design/derive-design';
 import type { DesignPlanSummary } from '../design/plan-design';
 
@@ -24,7 +25,7 @@ export interface SuggestionInput {
   plan: DesignPlanSummary;
   stock: readonly SuggestionStock[];
   hourlyRatePence: number;
-  /** Minutes to piece one block of each kind (settings keys: square, rectangle, hst, qst, flying_geese, foundation, plate, fan). */
+  /** Minutes to piece one block of each kind, by block kind (square, rectangles, hst, qst, flying-geese, foundation, plate, fan). */
   blockMinutes: Readonly<Record<string, number>>;
   /** Garments of the commission that are knits (they need a fusible stabiliser). */
   knitGarments: number;
@@ -40,19 +41,8 @@ export interface SuggestedLine {
   stage?: 'preparation' | 'cutting' | 'piecing' | 'quilting' | 'binding';
 }
 
-const SETTINGS_KEY: Record<BlockKind, string> = {
-  square: 'square',
-  rectangles: 'rectangle',
-  hst: 'hst',
-  qst: 'qst',
-  'flying-geese': 'flying_geese',
-  foundation: 'foundation',
-  plate: 'plate',
-  fan: 'fan',
-};
-
-/** Minutes used when the studio has not set its own for a block kind (common practice, from memory: rough). */
-export const DEFAULT_BLOCK_MINUTES: Readonly<Record<string, number>> = { square: 5, rectangle: 8, hst: 12, qst: 15, flying_geese: 15, foundation: 25, plate: 90, fan: 45 };
+/** Minutes used when the studio has not set its own for a block kind (each kind's labour minutes: common practice, from memory: rough). */
+export const DEFAULT_BLOCK_MINUTES: Readonly<Record<BlockKind, number>> = Object.fromEntries(BLOCK_KIND_MODULES.map((k) => [k.kind, k.labour.minutes])) as Record<BlockKind, number>;
 
 /** Size-based estimates (common practice, rough; the maker edits them): hours per square metre of quilting, per metre of binding, per garment prepared, per piece cut. */
 export const ESTIMATES = { quiltingHoursPerSqM: 1.5, bindingHoursPerM: 0.2, preparationHoursPerGarment: 0.75, cuttingMinutesPerPiece: 1 } as const;
@@ -101,7 +91,7 @@ export function suggestQuoteLines(input: SuggestionInput): SuggestedLine[] {
   }
 
   const rate = input.hourlyRatePence;
-  const minutesFor = (kind: BlockKind) => input.blockMinutes[SETTINGS_KEY[kind]] ?? DEFAULT_BLOCK_MINUTES[SETTINGS_KEY[kind]] ?? 10;
+  const minutesFor = (kind: BlockKind) => input.blockMinutes[kind] ?? DEFAULT_BLOCK_MINUTES[kind] ?? 10;
   const blocks = new Map(input.body.blocks.map((b) => [b.id, b]));
   let pieceMinutes = new Decimal(0);
   for (const p of input.derived.positions) {

@@ -5,7 +5,7 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
-import { DesignBody } from '@keepstitch/shared';
+import { BLOCK_KIND_MODULES, BlockSpec, DesignBody, KindInput } from '@keepstitch/shared';
 
 import { starterDesign } from './design';
 import { DesignForm } from './design-form';
@@ -111,6 +111,40 @@ describe('DesignForm', () => {
     expect(emitted[emitted.length - 1]!.layout.rows).toBe(3);
     expect(emitted[emitted.length - 1]!.groups).toEqual(groups);
     expect(emitted[emitted.length - 1]!.assignments).toEqual(assignments);
+  });
+
+  /** A value for an input other than the one a new block starts with, so a dropped field cannot pass as a default. */
+  const setValue = (input: KindInput): number | string => {
+    switch (input.type) {
+      case 'count':
+        return Math.min(input.max, input.default + 2);
+      case 'length':
+        return '114.3'; // Published: 4 1/2 in = 114.3 mm exactly.
+      case 'choice':
+        return input.options[input.options.length - 1]!.value;
+    }
+  };
+
+  it('keeps every field of a block of every kind when a design is opened and saved unchanged', async () => {
+    const blocks = BLOCK_KIND_MODULES.map((k, i) => ({
+      id: 'ABCDEFGHIJKL'[i]!,
+      name: k.label,
+      kind: k.kind,
+      ...Object.fromEntries(k.inputs.map((input) => [input.name, setValue(input)])),
+    })) as BlockSpec[];
+    const body: DesignBody = { ...starterDesign('1828.8', '2235.2'), blocks, pattern: blocks.map((b) => b.id) };
+    await create(body);
+    expect(fixture.componentInstance.value()).toEqual(body);
+  });
+
+  it('offers the flying geese method and sends the one chosen', async () => {
+    await create({ ...starterDesign('1828.8', '2235.2'), blocks: [{ id: 'A', name: 'Geese', kind: 'flying-geese', units: 2 }] });
+    const method = (await (await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Method' }))).getControl(MatSelectHarness))!;
+    expect(await method.getValueText()).toBe('Four at a time');
+    await method.open();
+    await method.clickOptions({ text: 'Stitch and flip' });
+    await settle();
+    expect(emitted[emitted.length - 1]!.blocks[0]).toEqual({ id: 'A', name: 'Geese', kind: 'flying-geese', units: 2, method: 'stitch-and-flip' });
   });
 
   describe('bed size', () => {

@@ -7,20 +7,24 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { BLOCK_KINDS, BLOCK_KIND_LABELS, BedRegion, BlockKind, DesignBody, DomainError, Length, LengthUnit, MATTRESS_PRESETS, MattressPreset, Size, TYPICAL_DROP, formatInches, formatLength, formatMetric, quiltSizeForBed, tryParseLength } from '@keepstitch/shared';
+import { BLOCK_KINDS, BLOCK_KIND_LABELS, BedRegion, BlockKind, BlockParams, BlockSpec, DesignBody, DomainError, Length, LengthUnit, MATTRESS_PRESETS, MattressPreset, Size, TYPICAL_DROP, formatInches, formatLength, formatMetric, KindInput, blockInputsByName, blockKind, quiltSizeForBed, tryParseLength } from '@keepstitch/shared';
 import { debounceTime } from 'rxjs';
 
 import { StockSource } from './design';
+
+/** A block input's control: a count as a number, a length as typed in the maker's unit, a choice as its value. */
+type ParamControl = FormControl<number | string>;
 
 type BlockGroup = FormGroup<{
   id: FormControl<string>;
   name: FormControl<string>;
   kind: FormControl<BlockKind>;
-  units: FormControl<number>;
-  blades: FormControl<number>;
-  outer: FormControl<string>;
-  inner: FormControl<string>;
+  /** A control for every input any block kind has, by the field it sets, so changing the kind keeps what was typed. */
+  params: FormGroup<Record<string, ParamControl>>;
 }>;
+
+/** Every block kind's inputs by the field they set (kinds sharing a field declare it alike). */
+const INPUTS_BY_NAME = blockInputsByName();
 
 const unitOf = (units: 'imperial' | 'metric'): LengthUnit => (units === 'imperial' ? 'in' : 'cm');
 
@@ -249,16 +253,53 @@ export class DesignForm {
     return this.form.controls.blocks;
   }
 
-  private blockGroup(b: DesignBody['blocks'][number], units: 'imperial' | 'metric'): BlockGroup {
+  private blockGroup(b: BlockSpec, units: 'imperial' | 'metric'): BlockGroup {
+    const own = new Map(blockKind(b.kind).inputs.map((i) => [i.name, i]));
+    const stored: Readonly<Record<string, number | string | undefined>> = { ...b };
+    const params: Record<string, ParamControl> = {};
+    for (const [name, inputs] of INPUTS_BY_NAME) {
+      const input = own.get(name) ?? inputs[0]!;
+      params[name] = this.paramControl(input, stored[name], units);
+    }
     return new FormGroup({
       id: new FormControl(b.id, { nonNullable: true }),
       name: new FormControl(b.name, { nonNullable: true, validators: [Validators.required, Validators.maxLength(100)] }),
       kind: new FormControl<BlockKind>(b.kind, { nonNullable: true }),
-      units: new FormControl(b.units ?? (b.kind === 'flying-geese' ? 2 : 1), { nonNullable: true, validators: [Validators.min(1), Validators.max(12)] }),
-      blades: new FormControl(b.blades ?? (b.kind === 'fan' ? 5 : 20), { nonNullable: true, validators: [Validators.min(3), Validators.max(120)] }),
-      outer: new FormControl(lengthForEditing(b.outerRadiusMm, units), { nonNullable: true, validators: [lengthValidator(() => this.units(), false)] }),
-      inner: new FormControl(lengthForEditing(b.innerRadiusMm, units), { nonNullable: true, validators: [lengthValidator(() => this.units(), false)] }),
+      params: new FormGroup(params),
     });
+  }
+
+  /** The control of one block input, holding the stored value (or the kind's default for a new block). */
+  private paramControl(input: KindInput, stored: number | string | undefined, units: 'imperial' | 'metric'): ParamControl {
+    switch (input.type) {
+      case 'count':
+        return new FormControl<number | string>(stored ?? input.default, { nonNullable: true, validators: [Validators.min(input.min), Validators.max(input.max)] });
+      case 'length':
+        return new FormControl<number | string>(lengthForEditing(stored as string | undefined, units), { nonNullable: true, validators: [lengthValidator(() => this.units(), false)] });
+      case 'choice':
+        return new FormControl<number | string>(stored ?? input.default, { nonNullable: true });
+    }
+  }
+
+  /** The inputs the form shows for a block of this kind. */
+  protected inputsOf(kind: BlockKind): readonly KindInput[] {
+    return blockKind(kind).inputs;
+  }
+
+  /** A short number or length keeps a narrow field; one whose label is long gets room to be read whole. */
+  protected fieldClass(input: KindInput): string {
+    return input.label.length > 15 ? 'medium' : 'narrow';
+  }
+
+  /** What a block's inputs set, for its kind only: counts and choices as they are, lengths that can be read as millimetres. */
+  private paramsOf(kind: BlockKind, params: Record<string, number | string>, mm: (t: string) => string | null): BlockParams {
+    const out: Record<string, number | string> = {};
+    for (const input of blockKind(kind).inputs) {
+      const value = params[input.name]!;
+      if (input.type !== 'length') out[input.name] = value;
+      else if (mm(String(value))) out[input.name] = mm(String(value))!;
+    }
+    return out as BlockParams;
   }
 
   private load(d: DesignBody): void {
@@ -338,13 +379,7 @@ export class DesignForm {
         sashing: v.sashing.trim() && v.setting === 'straight' ? { widthMm: mm(v.sashing)!, cornerstones: v.cornerstones } : null,
         borders: v.borders.split(',').map((s) => s.trim()).filter(Boolean).map((s) => mm(s)!),
       },
-      blocks: v.blocks.map((b) => ({
-        id: b.id,
-        name: b.name,
-        kind: b.kind,
-        ...(['rectangles', 'hst', 'qst', 'flying-geese'].includes(b.kind) ? { units: b.units } : {}),
-        ...(b.kind === 'plate' || b.kind === 'fan' ? { blades: b.blades, ...(mm(b.outer) ? { outerRadiusMm: mm(b.outer)! } : {}), ...(mm(b.inner) ? { innerRadiusMm: mm(b.inner)! } : {}) } : {}),
-      })),
+      blocks: v.blocks.map((b) => ({ id: b.id, name: b.name, kind: b.kind, ...this.paramsOf(b.kind, b.params, mm) })),
       pattern,
       groups: base.groups ?? [],
       assignments: base.assignments,

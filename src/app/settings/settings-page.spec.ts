@@ -11,6 +11,7 @@ import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 
 import { Notices } from '../core/notices';
 import { SettingsPage } from './settings-page';
+import { BLOCK_KINDS } from './studio-settings';
 
 const stored = {
   id: 1,
@@ -110,7 +111,8 @@ describe('SettingsPage', () => {
         vatNumber: 'GB123456789',
         email: 'hello@larkspur.test',
         validityDays: 30,
-        blockMinutes: { square: 6, rectangle: 0, hst: 12, qst: 0, flying_geese: 0, foundation: 0, plate: 0, fan: 45 },
+        // Every kind of the registry, 0 where nothing is stored or typed.
+        blockMinutes: { ...Object.fromEntries(BLOCK_KINDS.map((kind) => [kind, 0])), square: 6, hst: 12, fan: 45 },
       }),
     );
     request.flush({ ...stored, hourlyRatePence: 3050, depositPercent: '25.00', vatRegistered: true, vatRate: '5', vatMode: 'invoice' });

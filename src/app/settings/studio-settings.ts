@@ -1,19 +1,11 @@
+import { BLOCK_KIND_MODULES, type BlockKind } from '@keepstitch/shared';
 import * as z from 'zod/mini';
 
-/** The block kinds whose sewing time the studio estimates, in the order the settings page lists them. */
-export const BLOCK_KINDS = ['square', 'rectangle', 'hst', 'qst', 'flying_geese', 'foundation', 'plate', 'fan'] as const;
-export type BlockKind = (typeof BLOCK_KINDS)[number];
+/** The block kinds whose sewing time the studio estimates, in the registry's order, with the settings page's name for each. */
+export const BLOCK_KINDS = BLOCK_KIND_MODULES.map((k) => k.kind);
+export type { BlockKind };
 
-export const BLOCK_KIND_LABELS: Readonly<Record<BlockKind, string>> = {
-  square: 'Plain square',
-  rectangle: 'Rectangle',
-  hst: 'Half-square triangle (HST)',
-  qst: 'Quarter-square triangle (QST)',
-  flying_geese: 'Flying geese',
-  foundation: 'Foundation (stitch and flip)',
-  plate: 'Plate',
-  fan: 'Fan',
-};
+export const BLOCK_KIND_LABELS = Object.fromEntries(BLOCK_KIND_MODULES.map((k) => [k.kind, k.labour.label])) as Readonly<Record<BlockKind, string>>;
 
 export const VAT_RATE_LABELS: Readonly<Record<'20' | '5' | '0', string>> = {
   '20': '20% (standard)',
