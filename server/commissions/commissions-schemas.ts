@@ -14,9 +14,9 @@ const isoDate = z
 const commissionFields = {
   clientId: z.number({ message: 'Choose the client.' }).int().positive('Choose the client.'),
   title: z.string({ message: 'Title is required.' }).trim().min(1, 'Title is required.').max(200, 'A title can be at most 200 characters.'),
-  kind: z.enum(COMMISSION_KIND.values as [string, ...string[]], { message: 'Choose what kind of piece it is.' }),
+  kind: z.enum(COMMISSION_KIND.values, { message: 'Choose what kind of piece it is.' }),
   recipient: optionalText(200, 'Who it is for'),
-  ageGroup: z.enum(AGE_GROUP.values as [string, ...string[]], { message: 'Choose the age group of who it is for.' }),
+  ageGroup: z.enum(AGE_GROUP.values, { message: 'Choose the age group of who it is for.' }),
   occasion: optionalText(200, 'Occasion'),
   sizePreset: optionalText(60, 'Size preset'),
   width: lengthField('Width').nullable().optional(),
@@ -54,7 +54,7 @@ export const listCommissionsQuerySchema = z
     stage: z
       .string()
       .transform((s) => s.split(',').filter(Boolean))
-      .pipe(z.array(z.enum(ALL_STAGES as unknown as [string, ...string[]], { message: 'stage must be one of the commission stages.' })))
+      .pipe(z.array(z.enum(ALL_STAGES, { message: 'stage must be one of the commission stages.' })))
       .optional(),
     clientId: z.coerce.number().int().positive().optional(),
     dueWithinDays: z.coerce.number().int().min(0).max(3650).optional(),
@@ -64,14 +64,14 @@ export const listCommissionsQuerySchema = z
 
 export const stageMoveSchema = z
   .object({
-    to: z.enum(ALL_STAGES as unknown as [string, ...string[]], { message: 'Choose the stage to move to.' }),
+    to: z.enum(ALL_STAGES, { message: 'Choose the stage to move to.' }),
     note: optionalText(TEXT.moveNote, 'Note'),
   })
   .strict();
 
 export const hoursSchema = z
   .object({
-    stage: z.enum(STAGES as unknown as [string, ...string[]], { message: 'Choose the stage the hours were for.' }),
+    stage: z.enum(STAGES, { message: 'Choose the stage the hours were for.' }),
     hours: z.number({ message: 'Hours must be a number.' }).positive('Hours must be more than 0.').max(24, 'At most 24 hours in one entry.').multipleOf(0.25, 'Log hours in quarters (0.25).'),
     workedOn: isoDate,
     note: optionalText(TEXT.hoursNote, 'Note'),

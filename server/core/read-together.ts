@@ -18,7 +18,12 @@ type ModelsOf<Q> = Q extends QueryBuilder<infer M, unknown> ? M[] : never;
  * server chose, not for free text.
  */
 export async function readTogether<const Q extends readonly AnyQuery[]>(queries: Q): Promise<{ -readonly [K in keyof Q]: ModelsOf<Q[K]> }> {
-  if (!queries.length) return [] as unknown as { -readonly [K in keyof Q]: ModelsOf<Q[K]> };
+  // Each query's rows become its own models, in order; the tuple type says which are which.
+  const answers: Model[][] = queries.length ? await readAll(queries) : [];
+  return answers as { -readonly [K in keyof Q]: ModelsOf<Q[K]> };
+}
+
+async function readAll(queries: readonly AnyQuery[]): Promise<Model[][]> {
   const knex = queries[0]!.modelClass().knex();
   // knex.raw reads `?` as a binding; every `?` in the written SQL is meant literally.
   const sql = queries.map((q) => q.toKnexQuery().toQuery()).join(';\n').replace(/\?/g, '\\?');
@@ -29,5 +34,5 @@ export async function readTogether<const Q extends readonly AnyQuery[]>(queries:
   return queries.map((q, i) => {
     const modelClass = q.modelClass();
     return results[i]!.rows.map((row) => modelClass.fromDatabaseJson(parse(row)));
-  }) as unknown as { -readonly [K in keyof Q]: ModelsOf<Q[K]> };
+  });
 }

@@ -37,7 +37,7 @@ function inputSchema(input: KindInput) {
     case 'length':
       return mm(input.label).optional();
     case 'choice':
-      return z.enum(input.options.map((o) => o.value) as [string, ...string[]]).optional();
+      return z.enum(input.options.map((o) => o.value)).optional();
   }
 }
 
@@ -45,7 +45,7 @@ const blockSchema = z
   .object({
     id: z.string().regex(/^[A-Z][A-Z0-9]{0,3}$/, 'A block id is a capital letter, such as A.'),
     name: z.string().trim().min(1, 'Name the block.').max(100),
-    kind: z.enum(BLOCK_KINDS as [string, ...string[]], { message: 'Choose a block kind.' }),
+    kind: z.enum(BLOCK_KINDS, { message: 'Choose a block kind.' }),
     ...Object.fromEntries([...blockInputsByName()].map(([name, inputs]) => [name, inputSchema(inputs[0]!)])),
   })
   .strict();

@@ -17,6 +17,7 @@ import {
   type FibreGroup,
 } from '@keepstitch/shared';
 import { AppError } from '../core/app-error';
+import { nextVersion } from '../core/paging';
 import { present } from '../core/field-policy';
 import type { Role } from '../core/roles';
 import { findVisibleCommission } from '../commissions/commission-access';
@@ -190,8 +191,7 @@ export async function saveDesign(user: Express.User, commissionId: number, body:
   const { derived, plan } = deriveAndPlan(body, sources);
   const saved = await DesignVersionModel.transaction(async (trx) => {
     await CommissionModel.query(trx).findById(c.id).forUpdate();
-    const last = await DesignVersionModel.query(trx).where('commissionId', c.id).max('version as max').first();
-    const version = Number((last as unknown as { max: number | null })?.max ?? 0) + 1;
+    const version = await nextVersion(DesignVersionModel.query(trx).where('commissionId', c.id));
     return DesignVersionModel.query(trx).insertAndFetch({ commissionId: c.id, version, body, derived, plan, note: note ?? null, createdBy: user.id });
   });
   return versionView(saved, sources, user.role);

@@ -14,7 +14,7 @@ export const quoteLineSchema = z
     quantity: decimalText,
     unit: z.string().trim().max(20).default('item'),
     unitPricePence: z.number({ message: 'Price must be an amount in pence.' }).int('Price must be whole pence.').min(-10_000_000).max(10_000_000),
-    stage: z.enum(STAGES as unknown as [string, ...string[]]).nullable().optional(),
+    stage: z.enum(STAGES).nullable().optional(),
   })
   .strict()
   .superRefine((l, ctx) => {

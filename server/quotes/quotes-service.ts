@@ -1,6 +1,7 @@
 import { cautionsFor, quoteTotals, suggestQuoteLines, type QuoteTotals } from '@keepstitch/shared';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
+import { nextVersion } from '../core/paging';
 import { present } from '../core/field-policy';
 import type { Role } from '../core/roles';
 import { addDays, today } from '../core/calendar';
@@ -109,8 +110,7 @@ export async function createQuote(user: Express.User, commissionId: number, inpu
   checkTotals(input, vat);
   return QuoteModel.transaction(async (trx) => {
     await CommissionModel.query(trx).findById(commissionId).forUpdate();
-    const last = await QuoteModel.query(trx).where('commissionId', commissionId).max('version as v').first();
-    const version = Number((last as unknown as { v: number | null }).v ?? 0) + 1;
+    const version = await nextVersion(QuoteModel.query(trx).where('commissionId', commissionId));
     const q = await QuoteModel.query(trx).insertAndFetch({ commissionId, version, status: 'draft', intro: input.intro ?? null, ...vat, createdBy: user.id });
     await writeLines(trx, q.id, input);
     return quoteView((await QuoteModel.query(trx).findById(q.id).withGraphFetched('lines'))!, user.role);

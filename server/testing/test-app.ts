@@ -82,8 +82,8 @@ export async function addUser(knex: Knex, role: Role, clientId?: number) {
 }
 
 function cookieValue(res: request.Response, name: string): string | undefined {
-  const raw = res.headers['set-cookie'] as unknown as string[] | string | undefined;
-  const list = Array.isArray(raw) ? raw : raw ? [raw] : [];
+  const raw: unknown = res.headers['set-cookie'];
+  const list = Array.isArray(raw) ? raw.map(String) : typeof raw === 'string' ? [raw] : [];
   for (const c of list) {
     const [pair] = c.split(';');
     const eq = pair!.indexOf('=');

@@ -3,8 +3,9 @@
  * labels the maker reads. Shared by the server's validation and the app's forms.
  */
 const labelled = <T extends string>(labels: Record<T, string>) => {
-  // An object literal always has at least one key, so the tuple is never empty (what z.enum asks for).
-  const values = Object.keys(labels) as unknown as readonly [T, ...T[]];
+  // An object literal of labels has at least one key, so the tuple is never empty (what z.enum asks for).
+  const [first, ...rest] = Object.keys(labels) as T[];
+  const values: readonly [T, ...T[]] = [first!, ...rest];
   return {
     values,
     labels: labels as Readonly<Record<T, string>>,
