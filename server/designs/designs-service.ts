@@ -22,7 +22,7 @@ import { present } from '../core/field-policy';
 import type { Role } from '../core/roles';
 import { findVisibleCommission } from '../commissions/commission-access';
 import { CommissionModel } from '../models/commission-model';
-import { GarmentModel, PanelModel } from '../models/garment-model';
+import type { GarmentModel } from '../models/garment-model';
 import { StockFabricModel } from '../models/stock-fabric-model';
 import { UserModel } from '../models/user-model';
 import { DesignVersionModel, type ClientResponse } from '../models/design-model';
@@ -31,8 +31,7 @@ const NO_DESIGN = 'A design for this commission';
 
 /** The garments (with their measured panels) and the studio stock a design is planned against. */
 export async function designSources(commissionId: number): Promise<DesignSources & { garmentRows: GarmentModel[]; stockRows: StockFabricModel[] }> {
-  const garmentRows = await GarmentModel.query().where('commissionId', commissionId).orderBy('id');
-  const panels = await PanelModel.query().whereIn('garmentId', garmentRows.map((g) => g.id)).orderBy('id');
+  const garmentRows = await CommissionModel.relatedQuery('garments').for(commissionId).withGraphFetched('panels');
   const stockRows = await StockFabricModel.query().orderBy('id');
   return {
     garmentRows,
@@ -44,7 +43,7 @@ export async function designSources(commissionId: number): Promise<DesignSources
       fibre: g.fibre ?? 'other',
       construction: g.construction,
       print: g.print,
-      panels: panels.filter((p) => p.garmentId === g.id).map((p) => ({ id: p.id, name: p.name, widthMm: p.widthMm, heightMm: p.heightMm, grain: p.grain, features: p.features ?? [] })),
+      panels: (g.panels ?? []).map((p) => ({ id: p.id, name: p.name, widthMm: p.widthMm, heightMm: p.heightMm, grain: p.grain, features: p.features ?? [] })),
     })),
     stock: stockRows.map((s) => ({ id: s.id, name: s.name, colour: s.colour, fibre: s.fibre, widthMm: s.widthMm, lengthMm: s.lengthMm, costUnit: s.costUnit })),
   };
@@ -145,17 +144,16 @@ function versionView(v: DesignVersionModel, sources: DesignSources, role: Role) 
 }
 
 export async function latestVersion(commissionId: number) {
-  return DesignVersionModel.query().where('commissionId', commissionId).orderBy('version', 'desc').first();
+  return CommissionModel.relatedQuery('designVersions').for(commissionId).first();
 }
 
 /** The design screen: the latest version with its plan, earlier versions listed, and the fabrics to choose from. */
 export async function getDesign(user: Express.User, commissionId: number) {
   const c = await staffCommission(user, commissionId);
   const sources = await designSources(c.id);
-  const versions = await DesignVersionModel.query()
-    .select('id', 'version', 'note', 'createdAt', 'sharedAt', 'clientResponse', 'clientNote', 'respondedAt')
-    .where('commissionId', c.id)
-    .orderBy('version', 'desc');
+  const versions = await CommissionModel.relatedQuery('designVersions')
+    .for(c.id)
+    .select('id', 'version', 'note', 'createdAt', 'sharedAt', 'clientResponse', 'clientNote', 'respondedAt');
   const latest = versions.length ? await DesignVersionModel.query().findById(versions[0]!.id) : undefined;
   const role = user.role;
   return {
@@ -207,7 +205,7 @@ export async function shareDesign(user: Express.User, commissionId: number) {
 }
 
 async function latestShared(commissionId: number) {
-  return DesignVersionModel.query().where('commissionId', commissionId).whereNotNull('sharedAt').orderBy('version', 'desc').first();
+  return CommissionModel.relatedQuery('designVersions').for(commissionId).whereNotNull('sharedAt').first();
 }
 
 /** What a client sees: the drawing of the latest shared version, and their answer. No plan, no cut list. */
@@ -260,7 +258,7 @@ const WASHING = [
 /** The care card: washing, what went into the piece, who made it, and the notices that apply. */
 export async function careCard(user: Express.User, commissionId: number) {
   const c = await findVisibleCommission(user, commissionId);
-  const garments = await GarmentModel.query().where('commissionId', c.id).orderBy('id');
+  const garments = await CommissionModel.relatedQuery('garments').for(c.id);
   const v = await latestVersion(c.id);
   // One line per fibre: the client's garments first, then the studio's own fabrics of that fibre.
   const fibres = new Map<string, FibreGroup>();

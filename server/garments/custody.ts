@@ -1,6 +1,7 @@
 import type { Knex } from 'knex';
 import { deriveCustody, type CustodyEvent, type CustodyState } from '@keepstitch/shared';
-import { CustodyEventModel } from '../models/garment-model';
+import { CommissionModel } from '../models/commission-model';
+import { CustodyEventModel, GarmentModel } from '../models/garment-model';
 
 export type CustodyStates = Map<number, { state: CustodyState; events: CustodyEventModel[] }>;
 
@@ -13,12 +14,7 @@ export async function custodyStates(garmentIds: number[], trx?: Knex.Transaction
 
 /** Every custody event of a commission's garments, in order: read beside the garments rather than after them. */
 export function commissionCustodyEvents(commissionId: number) {
-  return CustodyEventModel.query()
-    .select('custodyEvents.*')
-    .join('garments', 'garments.id', 'custodyEvents.garmentId')
-    .where('garments.commissionId', commissionId)
-    .orderBy('custodyEvents.at')
-    .orderBy('custodyEvents.id');
+  return GarmentModel.relatedQuery('events').for(CommissionModel.relatedQuery('garments').for(commissionId).select('garments.id'));
 }
 
 /** Each garment's state from the events read for them (events of other garments are ignored). */

@@ -5,7 +5,6 @@ import { present } from '../core/field-policy';
 import { parseInput } from '../core/validate';
 import { findVisibleCommission, findVisibleGarment } from '../commissions/commission-access';
 import { garmentView } from './garment-view';
-import { PhotoModel } from '../models/photo-model';
 import { custodyStates } from './custody';
 import { CustodyEventModel, GarmentModel, PanelModel } from '../models/garment-model';
 import { clientGarmentSchema, createGarmentSchema, featuresOutside, type custodyEventSchema, type panelSchema, type updateGarmentSchema, type updatePanelSchema } from './garments-schemas';
@@ -30,8 +29,8 @@ export async function getGarment(user: Express.User, id: number) {
   const staff = user.role !== 'client';
   const [custody, panels, photos] = await Promise.all([
     custodyStates([id]),
-    staff ? PanelModel.query().where('garmentId', id).orderBy('id') : Promise.resolve(undefined),
-    PhotoModel.query().where('garmentId', id).orderBy('id'),
+    staff ? garment.$relatedQuery('panels') : Promise.resolve(undefined),
+    garment.$relatedQuery('photos'),
   ]);
   const { state, events } = custody.get(id)!;
   return present('garment', user.role, {

@@ -1,5 +1,6 @@
-import { Model } from 'objection';
+import { Model, type QueryBuilder } from 'objection';
 import type { ColourRun, Construction, CustodyKind, Fibre, Grain, KeptFeature, PanelFeature, Prewash, Print, ReturnMethod } from '@keepstitch/shared';
+import { PhotoModel } from './photo-model';
 
 export class GarmentModel extends Model {
   static override tableName = 'garments';
@@ -22,8 +23,37 @@ export class GarmentModel extends Model {
   createdAt!: Date;
   updatedAt!: Date;
 
+  panels?: PanelModel[];
+  events?: CustodyEventModel[];
+  photos?: PhotoModel[];
+
   static override get jsonAttributes() {
     return ['features'];
+  }
+
+  static override get relationMappings() {
+    return {
+      /** Its measured panels, in the order they were measured. */
+      panels: {
+        relation: Model.HasManyRelation,
+        modelClass: PanelModel,
+        join: { from: 'garments.id', to: 'panels.garmentId' },
+        modify: (q: QueryBuilder<PanelModel>) => q.orderBy('panels.id'),
+      },
+      /** Its custody log, oldest first. */
+      events: {
+        relation: Model.HasManyRelation,
+        modelClass: CustodyEventModel,
+        join: { from: 'garments.id', to: 'custodyEvents.garmentId' },
+        modify: (q: QueryBuilder<CustodyEventModel>) => q.orderBy('custodyEvents.at').orderBy('custodyEvents.id'),
+      },
+      photos: {
+        relation: Model.HasManyRelation,
+        modelClass: PhotoModel,
+        join: { from: 'garments.id', to: 'photos.garmentId' },
+        modify: (q: QueryBuilder<PhotoModel>) => q.orderBy('photos.id'),
+      },
+    };
   }
 
   override $beforeUpdate(): void {

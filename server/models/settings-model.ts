@@ -1,3 +1,4 @@
+import type { Knex } from 'knex';
 import { Model } from 'objection';
 import type { VatMode, VatRate } from '@keepstitch/shared';
 
@@ -23,9 +24,9 @@ export class StudioSettingsModel extends Model {
     return ['blockMinutes'];
   }
 
-  /** The one settings row. */
-  static async current(): Promise<StudioSettingsModel> {
-    const row = await StudioSettingsModel.query().findById(1);
+  /** The one settings row, read in the transaction given (or on its own). */
+  static async current(trx?: Knex.Transaction): Promise<StudioSettingsModel> {
+    const row = await StudioSettingsModel.query(trx).findById(1);
     if (!row) throw new Error('studio_settings has no row: run the migrations.');
     return row;
   }

@@ -34,7 +34,7 @@ export function paymentView(p: PaymentModel) {
 /** The payments where money moved: checkouts still open or given up are left out. */
 export async function listPayments(user: Express.User, commissionId: number) {
   await findVisibleCommission(user, commissionId);
-  const rows = await PaymentModel.query().where('commissionId', commissionId).whereNotIn('status', ['pending', 'expired']).orderBy('id');
+  const rows = await CommissionModel.relatedQuery('payments').for(commissionId).whereNotIn('status', ['pending', 'expired']);
   return rows.map(paymentView);
 }
 
@@ -90,7 +90,7 @@ async function openCheckout(provider: Stripe, config: AppConfig, commissionId: n
     if (reuse) return { url: reuse.url! };
 
     const client = await ClientModel.query(trx).findById(commission.clientId);
-    const settings = (await StudioSettingsModel.query(trx).findById(1))!;
+    const settings = await StudioSettingsModel.current(trx);
     const reserved = await trx.raw<{ rows: Array<{ id: string }> }>(`SELECT nextval(pg_get_serial_sequence('payments', 'id')) AS id`);
     const paymentId = Number(reserved.rows[0]!.id);
     const back = `${config.appUrl}/portal/${commissionId}`;
@@ -244,8 +244,8 @@ async function countPayment(trx: Knex.Transaction, config: AppConfig, payment: P
   }
   const client = await ClientModel.query(trx).findById(commission.clientId);
   if (client?.email) {
-    const settings = await StudioSettingsModel.query(trx).findById(1);
-    const mail = receiptMail({ clientName: client.name, studioName: settings!.studioName, title: commission.title, kind: payment.kind, amountPence: countedPence(payment), paidAt: payment.paidAt ?? new Date(), link: `${config.appUrl}/portal/${commission.id}` });
+    const settings = await StudioSettingsModel.current(trx);
+    const mail = receiptMail({ clientName: client.name, studioName: settings.studioName, title: commission.title, kind: payment.kind, amountPence: countedPence(payment), paidAt: payment.paidAt ?? new Date(), link: `${config.appUrl}/portal/${commission.id}` });
     await enqueueMail(trx, { kind: `receipt_${payment.kind}`, to: client.email, ...mail, commissionId: commission.id });
   }
 }
@@ -254,7 +254,7 @@ async function countPayment(trx: Knex.Transaction, config: AppConfig, payment: P
 async function tellOwner(trx: Knex.Transaction, config: AppConfig, payment: PaymentModel, why: 'held' | 'overpaid'): Promise<void> {
   const commission = (await CommissionModel.query(trx).findById(payment.commissionId))!;
   const client = await ClientModel.query(trx).findById(commission.clientId);
-  const settings = (await StudioSettingsModel.query(trx).findById(1))!;
+  const settings = await StudioSettingsModel.current(trx);
   const to = settings.email ? [settings.email] : (await UserModel.query(trx).select('email').where('role', 'owner').orderBy('id')).map((u) => u.email);
   const about = { studioName: settings.studioName, clientName: client?.name ?? 'The client', title: commission.title, kind: payment.kind, receivedPence: countedPence(payment), link: `${config.appUrl}/commissions/${commission.id}` };
   const mail = why === 'held' ? paymentHeldMail({ ...about, askedPence: payment.amountPence }) : overpaymentMail(about);

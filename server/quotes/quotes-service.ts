@@ -14,7 +14,6 @@ import { quoteMail } from '../mail/mail-templates';
 import { StudioSettingsModel } from '../models/settings-model';
 import { QuoteLineModel, QuoteModel } from '../models/quote-model';
 import { latestVersion } from '../designs/designs-service';
-import { GarmentModel } from '../models/garment-model';
 import { StockFabricModel } from '../models/stock-fabric-model';
 import { quotePdf } from './quote-pdf';
 import type { QuoteInput } from './quotes-schemas';
@@ -93,7 +92,7 @@ async function writeLines(trx: Knex.Transaction, quoteId: number, input: QuoteIn
 
 export async function listQuotes(user: Express.User, commissionId: number) {
   await findVisibleCommission(user, commissionId);
-  const query = QuoteModel.query().where('commissionId', commissionId).withGraphFetched('lines').orderBy('version', 'desc');
+  const query = CommissionModel.relatedQuery('quotes').for(commissionId).withGraphFetched('lines');
   if (user.role === 'client') query.whereNot('status', 'draft');
   return (await query).map((q) => quoteView(q, user.role));
 }
@@ -174,11 +173,11 @@ export async function sendQuote(user: Express.User, id: number, config: AppConfi
     const client = (await ClientModel.query(trx).findById(commission.clientId))!;
     if (!client.email) throw new AppError(409, 'no_email', `Add an e-mail address for ${client.name} before sending the quote.`);
     if (['delivered', 'cancelled'].includes(commission.stage)) throw new AppError(409, 'closed', 'This commission is closed; a quote cannot be sent.');
-    const settings = await StudioSettingsModel.query(trx).findById(1);
+    const settings = await StudioSettingsModel.current(trx);
     const totals = totalsOf(q);
     const sentAt = new Date();
-    const validUntil = addDays(today(), settings!.validityDays);
-    const studioSnapshot = { name: settings!.studioName, address: settings!.address, email: settings!.email, vatNumber: settings!.vatNumber, paymentTerms: settings!.paymentTerms };
+    const validUntil = addDays(today(), settings.validityDays);
+    const studioSnapshot = { name: settings.studioName, address: settings.address, email: settings.email, vatNumber: settings.vatNumber, paymentTerms: settings.paymentTerms };
     await QuoteModel.query(trx)
       .patch({ status: 'superseded' })
       .where('commissionId', q.commissionId)
@@ -196,7 +195,7 @@ export async function sendQuote(user: Express.User, id: number, config: AppConfi
     const link = `${config.appUrl}/portal/${commission.id}?quote=${id}`;
     const mail = quoteMail({
       clientName: client.name,
-      studioName: settings!.studioName,
+      studioName: settings.studioName,
       title: commission.title,
       version: q.version,
       totalPence: totals.totalPence,
@@ -244,7 +243,7 @@ export async function suggestLines(user: Express.User, commissionId: number) {
   const [settings, stock, garments] = await Promise.all([
     StudioSettingsModel.current(),
     StockFabricModel.query().select('id', 'name', 'costPence', 'costUnit'),
-    GarmentModel.query().select('id', 'construction').where('commissionId', commissionId),
+    CommissionModel.relatedQuery('garments').for(commissionId).select('garments.id', 'garments.construction'),
   ]);
   const lines = suggestQuoteLines({
     body: design.body,

@@ -1,12 +1,12 @@
 import type { StageFacts } from '@keepstitch/shared';
 import type { Knex } from 'knex';
-import { GarmentModel } from '../models/garment-model';
+import { CommissionModel } from '../models/commission-model';
 import { custodyStates } from '../garments/custody';
 import { paymentState } from '../payments/payment-state';
 
 /** Counts for the stage rules: garments expected and received. */
 export async function stageFacts(commissionId: number, trx?: Knex.Transaction): Promise<StageFacts> {
-  const garments = await GarmentModel.query(trx).select('id').where('commissionId', commissionId);
+  const garments = await CommissionModel.relatedQuery('garments', trx).for(commissionId).select('garments.id');
   // One connection in a transaction: one query at a time.
   const states = await custodyStates(garments.map((g) => g.id), trx);
   return factsFrom(states, await paymentState(commissionId, trx));

@@ -38,9 +38,9 @@ export async function moveStage(user: Express.User, id: number, to: Stage, note:
 async function tellClientReady(trx: Knex.Transaction, c: CommissionModel, appUrl: string): Promise<boolean> {
   const client = await ClientModel.query(trx).findById(c.clientId);
   if (!client?.email) return false;
-  const settings = await StudioSettingsModel.query(trx).findById(1);
+  const settings = await StudioSettingsModel.current(trx);
   const money = await paymentState(c.id, trx);
-  const mail = readyMail({ clientName: client.name, studioName: settings!.studioName, title: c.title, balancePence: money?.balancePaid ? 0 : (money?.balancePence ?? 0), link: `${appUrl}/portal/${c.id}` });
+  const mail = readyMail({ clientName: client.name, studioName: settings.studioName, title: c.title, balancePence: money?.balancePaid ? 0 : (money?.balancePence ?? 0), link: `${appUrl}/portal/${c.id}` });
   await enqueueMail(trx, { kind: 'ready', to: client.email, ...mail, commissionId: c.id });
   return true;
 }
