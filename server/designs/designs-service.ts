@@ -15,6 +15,7 @@ import {
   type DesignSources,
   type FabricRef,
   type FibreGroup,
+  type PrintableDesign,
 } from '@keepstitch/shared';
 import { AppError } from '../core/app-error';
 import { present } from '../core/field-policy';
@@ -241,12 +242,12 @@ export async function respondToDesign(user: Express.User, commissionId: number, 
 }
 
 /** The latest version for the printouts, with everything they name. */
-export async function printable(user: Express.User, commissionId: number) {
+export async function printable(user: Express.User, commissionId: number): Promise<PrintableDesign> {
   const c = await staffCommission(user, commissionId);
   const v = await latestVersion(c.id);
   if (!v) throw AppError.notFound(NO_DESIGN);
   const sources = await designSources(c.id);
-  return { commission: c, version: v, sources, fabrics: fabricLegend(sources, v.body) };
+  return { commission: { id: c.id, title: c.title }, version: v, garments: sources.garments, stock: sources.stock, fabrics: fabricLegend(sources, v.body) };
 }
 
 const WASHING = [

@@ -1,14 +1,11 @@
-import { Length, formatCutSize, type Template } from '@keepstitch/shared';
-import { PAPER_SIZES, PT_PER_MM, newDocument, toBuffer, today, type Paper } from './pdf-document';
-import type { PrintableDesign } from './printable';
+import { contentFigures, wordsText, type Block, type CheckSquaresFigure, type PrintoutContent, type Template } from '@keepstitch/shared';
+import { PAPER_SIZES, PT_PER_MM, type Paper } from './pdf-document';
 
 /** Overlap between neighbouring tiles of a template larger than one page: 1/2 in. */
 export const TILE_OVERLAP_PT = 36;
 const MARGIN = 36;
 const HEAD = 64;
 const FOOT = 104;
-/** 2.5 cm in points. */
-export const CM25_PT = 25 * PT_PER_MM;
 
 interface Path {
   points: [number, number][];
@@ -50,21 +47,22 @@ export function templatePaths(t: Template): { paths: Path[]; width: number; heig
   return { paths, width: (maxX - minX) * PT_PER_MM, height: (maxY - minY) * PT_PER_MM, grain };
 }
 
-function sizeText(t: Template): string {
-  return t.sizeText.map((s) => `${s.label} ${formatCutSize(Length.millimetres(s.mm))} (${formatCutSize(Length.millimetres(s.mm), 'metric', 'mm')})`).join('; ');
-}
-
-function checkSquares(doc: PDFKit.PDFDocument, pageH: number): void {
+/** The check squares at the foot of a sheet: each square at its size in millimetres, its name and how to read it beside it. */
+function checkSquares(doc: PDFKit.PDFDocument, pageH: number, checks: CheckSquaresFigure | undefined): void {
+  if (!checks) return;
   const y = pageH - MARGIN - 84;
-  doc.save().lineWidth(0.75).strokeColor('#000');
-  doc.rect(MARGIN, y, 72, 72).stroke();
-  doc.rect(MARGIN + 200, y, CM25_PT, CM25_PT).stroke();
-  doc.restore();
-  doc.font('Lato').fontSize(8).fillColor('#000');
-  doc.text('1 in check square', MARGIN + 78, y + 2, { width: 110 });
-  doc.text('Print at 100% ("actual size"). Measure this square: it must be exactly 1 in.', MARGIN + 78, y + 14, { width: 110 });
-  doc.text('2.5 cm check square', MARGIN + 200 + CM25_PT + 6, y + 2, { width: 140 });
-  doc.text('It must be exactly 2.5 cm on each side.', MARGIN + 200 + CM25_PT + 6, y + 14, { width: 140 });
+  const slots = [
+    { x: MARGIN, width: 110 },
+    { x: MARGIN + 200, width: 140 },
+  ];
+  checks.squares.forEach((sq, i) => {
+    const slot = slots[i] ?? { x: MARGIN + 200 * i, width: 110 };
+    const side = sq.mm * PT_PER_MM;
+    doc.save().lineWidth(0.75).strokeColor('#000').rect(slot.x, y, side, side).stroke().restore();
+    doc.font('Lato').fontSize(8).fillColor('#000');
+    doc.text(sq.label, slot.x + side + 6, y + 2, { width: slot.width });
+    doc.text(sq.text, slot.x + side + 6, y + 14, { width: slot.width });
+  });
 }
 
 function drawTemplate(doc: PDFKit.PDFDocument, shape: ReturnType<typeof templatePaths>): void {
@@ -102,27 +100,33 @@ function crosses(doc: PDFKit.PDFDocument, xs: number[], ys: number[], width: num
   doc.restore();
 }
 
-/** Full-size templates at 1:1 (1 in = 72 pt), tiled with overlap marks when larger than a page. */
-export async function templatesPdf(p: PrintableDesign, paper: Paper): Promise<Buffer> {
-  const { commission, version } = p;
+/**
+ * A printout laid out in sheets: each section with a full-size template is
+ * drawn 1:1 (1 in = 72 pt) on sheets of its own, tiled with overlap marks when
+ * larger than a page, its heading, the printout's lines and the section's
+ * words at the head of each sheet and the check squares at its foot. A
+ * printout with no template has one sheet of its words.
+ */
+export function drawSheets(doc: PDFKit.PDFDocument, content: PrintoutContent, paper: Paper): void {
   const [pageW, pageH] = PAPER_SIZES[paper];
-  const doc = newDocument(`Templates: ${commission.title}`, { paper });
   const areaW = pageW - 2 * MARGIN;
   const areaH = pageH - 2 * MARGIN - HEAD - FOOT;
-  const templates = version.derived.templates;
+  const checks = contentFigures(content).find((f): f is CheckSquaresFigure => f.kind === 'check-squares');
+  const words = (blocks: readonly Block[]) => blocks.flatMap((b) => (b.kind === 'paragraph' && b.only !== 'page' ? [wordsText(b.text)] : []));
   const head = (lines: string[]) => {
     doc.font('Lato-Bold').fontSize(13).fillColor('#000').text(lines[0]!, MARGIN, MARGIN, { width: areaW });
     doc.font('Lato').fontSize(8.5);
-    for (const l of lines.slice(1)) doc.text(l, { width: areaW });
+    for (const l of lines.slice(1)) if (l) doc.text(l, { width: areaW });
   };
-  if (templates.length === 0) {
-    head(['Templates', `${commission.title}, design version ${version.version}: this design has no curved pieces, so it needs no templates.`]);
-    checkSquares(doc, pageH);
-    return toBuffer(doc);
+  const sheets = content.sections.flatMap((s) => s.blocks.flatMap((b) => (b.kind === 'figure' && b.figure.kind === 'template' ? [{ section: s, figure: b.figure }] : [])));
+  if (sheets.length === 0) {
+    head([content.title, ...content.meta, ...content.sections.flatMap((s) => words(s.blocks))]);
+    checkSquares(doc, pageH, checks);
+    return;
   }
   let firstPage = true;
-  for (const t of templates) {
-    const shape = templatePaths(t);
+  for (const { section, figure } of sheets) {
+    const shape = templatePaths(figure.template);
     const stepX = areaW - TILE_OVERLAP_PT;
     const stepY = areaH - TILE_OVERLAP_PT;
     const cols = shape.width <= areaW ? 1 : Math.ceil((shape.width - TILE_OVERLAP_PT) / stepX);
@@ -134,12 +138,7 @@ export async function templatesPdf(p: PrintableDesign, paper: Paper): Promise<Bu
         if (!firstPage) doc.addPage({ size: paper === 'a4' ? 'A4' : 'LETTER', margin: 40 });
         firstPage = false;
         const tiled = rows * cols > 1;
-        head([
-          `${t.name}${tiled ? `: tile ${r * cols + c + 1} of ${rows * cols} (row ${r + 1}, column ${c + 1})` : ''}`,
-          `${commission.title}, design version ${version.version}, ${paper === 'a4' ? 'A4' : 'US Letter'}, printed ${today()}. Full size.`,
-          `Solid line: cut line (seam allowance included). Dashed line: ${t.kind === 'blade' ? 'sewing line' : 'card template (finished edge)'}. ${sizeText(t)}`,
-          tiled ? 'Tiles overlap by 1/2 in: lay each over its neighbour so the red crosses and the dashed overlap lines meet, then tape.' : '',
-        ]);
+        head([`${section.heading ?? content.title}${tiled ? `: tile ${r * cols + c + 1} of ${rows * cols} (row ${r + 1}, column ${c + 1})` : ''}`, ...content.meta, ...words(section.blocks), tiled ? figure.tiles : '']);
         const ox = c * stepX;
         const oy = r * stepY;
         const x0 = MARGIN;
@@ -158,9 +157,8 @@ export async function templatesPdf(p: PrintableDesign, paper: Paper): Promise<Bu
           if (r < rows - 1) doc.moveTo(x0, y0 + areaH - TILE_OVERLAP_PT).lineTo(x0 + areaW, y0 + areaH - TILE_OVERLAP_PT).stroke();
           doc.restore();
         }
-        checkSquares(doc, pageH);
+        checkSquares(doc, pageH, checks);
       }
     }
   }
-  return toBuffer(doc);
 }
