@@ -1,4 +1,4 @@
-import { Length, Template, formatCutSize } from '@keepstitch/shared';
+import { Template } from '@keepstitch/shared';
 
 type Point = readonly [number, number];
 
@@ -60,11 +60,6 @@ export function templateOutline(t: Template): TemplateOutline {
     innerLabel: t.kind === 'blade' ? 'sewing line' : 'card template (finished edge)',
     grain: { x1, y1, x2, y2 },
   };
-}
-
-/** "cut top 2 in (51 mm); ..." in both unit systems, as the PDF prints it. */
-export function templateSizes(t: Template): string {
-  return t.sizeText.map((s) => `${s.label} ${formatCutSize(Length.millimetres(s.mm))} (${formatCutSize(Length.millimetres(s.mm), 'metric', 'mm')})`).join('; ');
 }
 
 function round(n: number): number {
