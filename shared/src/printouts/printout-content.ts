@@ -108,7 +108,8 @@ export type Figure = QuiltTopFigure | PanelFigure | TemplateFigure | CheckSquare
 
 export type Block = (
   | { kind: 'paragraph'; text: Words; tone?: Tone }
-  | { kind: 'list'; style: 'bullets' | 'lines' | 'steps'; items: readonly ListItem[] }
+  /** `itemMark` marks each line of the list as `mark` marks the whole. */
+  | { kind: 'list'; style: 'bullets' | 'lines' | 'steps'; items: readonly ListItem[]; itemMark?: string }
   | { kind: 'table'; head: readonly string[]; rows: readonly (readonly string[])[] }
   /** A figure, with a title and lines beside it (a panel's cuts). */
   | { kind: 'figure'; figure: Figure; title?: string; beside?: readonly ListItem[] }

@@ -14,8 +14,8 @@ export function sewingOrderPrintout(d: PrintableDesign, options: PrintOptions): 
       heading: s.title,
       mark: 'sewing-section',
       blocks: [
-        { kind: 'list', style: 'steps', mark: 'sewing-step', items: s.steps.map((st) => ({ text: st.text, ...(st.count !== undefined ? { count: st.count } : {}) })) },
-        { kind: 'paragraph', tone: 'quiet', text: [{ text: 'Pressing: ', bold: true }, { text: s.pressing }] },
+        { kind: 'list', style: 'steps', itemMark: 'sewing-step', items: s.steps.map((st) => ({ text: st.text, ...(st.count !== undefined ? { count: st.count } : {}) })) },
+        { kind: 'paragraph', tone: 'quiet', mark: 'pressing', text: [{ text: 'Pressing: ', bold: true }, { text: s.pressing }] },
       ],
     })),
     layout: 'flow',
