@@ -8,7 +8,7 @@ import {
   garmentGroups,
   groupLegendEntry,
   keptFeaturePieces,
-  keptFeaturePlaces,
+  designKeptFeatures,
   planDesign,
   type DesignBody,
   type DesignPlanSummary,
@@ -225,7 +225,7 @@ export async function sharedDesign(user: Express.User, commissionId: number) {
     derived: { finished: v.derived.finished, target: v.derived.target, difference: v.derived.difference, centre: v.derived.centre, parts: v.derived.parts, positions: v.derived.positions, layoutFabrics: v.derived.layoutFabrics, totals: { blocks: v.derived.totals.blocks } },
     fabrics: fabricLegend(sources, v.body).map(({ key, kind, name, hex, stripes }) => ({ key, kind, name, hex, ...(stripes ? { stripes } : {}) })),
     // Where the kept features go, in the client's own garments' words; nothing of the plan itself.
-    keptFeatures: keptFeaturePlaces(v.body, v.derived, keptFeaturePieces(v.plan, sources)).map(({ position, rail, feature, garment }) => ({ position, rail, feature, garment })),
+    keptFeatures: designKeptFeatures(v, sources).map(({ position, rail, feature, garment }) => ({ position, rail, feature, garment })),
     clientResponse: v.clientResponse,
     clientNote: v.clientNote,
     respondedAt: v.respondedAt,

@@ -6,7 +6,7 @@
 import type { CutRegion, PanelPlan } from '../cut-plan/cut-plan-types';
 import { fabricKey } from '../design/design-body';
 import { designDrawing } from '../design/design-drawing';
-import { keptFeatureLabel, keptFeaturePieces, keptFeaturePlaces } from '../design/kept-feature-places';
+import { designKeptFeatures, keptFeatureLabel } from '../design/kept-feature-places';
 import { keptFeatureId, panelId, stockFabricId } from '../design/plan-input';
 import { keptLines, pieceLine, pieceNumber, stepText } from '../design/cut-list-words';
 import { NO_DESIGN_YET, measuresIn, versionLine, type PrintOptions, type PrintableDesign } from './printable-design';
@@ -22,7 +22,7 @@ export function cutListPrintout(d: PrintableDesign, options: PrintOptions): Prin
   const system = v.body.units;
   const m = measuresIn(system);
   const pieces = new Map(v.derived.pieces.map((p) => [p.id, p]));
-  const kept = keptFeaturePlaces(v.body, v.derived, keptFeaturePieces(v.plan, d));
+  const kept = designKeptFeatures(v, d);
   const features = new Map(d.garments.flatMap((g) => g.panels.flatMap((p) => (p.features ?? []).map((f, i) => [keptFeatureId(p.id, i), f] as const))));
   const hexOf = (key: string) => d.fabrics.find((f) => f.key === key)?.hex ?? UNKNOWN_HEX;
   const placements = v.plan.plan.placements;

@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
-import { DesignBody, DesignDerivation, DesignPlanSummary, DomainError, Length, deriveDesign, formatFabricLength, formatLength, keptFeaturePieces, keptFeaturePlaces, printoutPdfs, PRINTOUTS } from '@keepstitch/shared';
+import { DesignBody, DesignDerivation, DesignPlanSummary, DomainError, Length, deriveDesign, designKeptFeatures, formatFabricLength, formatLength, printoutPdfs, PRINTOUTS } from '@keepstitch/shared';
 import { Subject, debounceTime, switchMap, catchError, of } from 'rxjs';
 
 import { messageFor } from '../core/api-error';
@@ -86,7 +86,7 @@ export class DesignPage {
     const b = this.body();
     const d = this.derivation().derived;
     const p = this.plan();
-    return b && d && p ? keptFeaturePlaces(b, d, keptFeaturePieces(p)) : [];
+    return b && d && p ? designKeptFeatures({ body: b, derived: d, plan: p }) : [];
   });
 
   private readonly replan$ = new Subject<DesignBody>();
