@@ -5,7 +5,7 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { provideRouter } from '@angular/router';
-import { DesignBody, DesignSources, SAFE_SLEEP, SMALL_PARTS, deriveDesign, planDesign } from '@keepstitch/shared';
+import { DesignBody, DesignSources, PrintoutSources, SAFE_SLEEP, SMALL_PARTS, buildPrintout, contentWords, deriveDesign, planDesign, printoutOf } from '@keepstitch/shared';
 
 import { designScreen, plateDesign, threeShirts, version } from '../../testing/design-screen';
 import { signedInAs } from '../../testing/signed-in-as';
@@ -14,6 +14,17 @@ import { CareCard, GarmentSource, groupFabric } from './design';
 import { PrintoutPage } from './printout-page';
 
 // One page draws every printout from its content model; each printout's page is checked here as it prints.
+
+/** Words as compared: spacing aside. */
+const flat = (s: string) => s.replace(/\s+/g, ' ').trim();
+
+/** Every word the content model gives the page for this printout and data, missing from the page. */
+function missingWords(page: HTMLElement, id: string, data: PrintoutSources[keyof PrintoutSources]): string[] {
+  const shown = flat(page.textContent!);
+  const d = new Date();
+  const printedOn = `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
+  return contentWords(buildPrintout(printoutOf(id)!, data as never, { printedOn }), 'page').map(flat).filter((w) => !shown.includes(w));
+}
 
 const inch = (n: number) => String((n * 254) / 10);
 
@@ -82,6 +93,11 @@ describe('PrintoutPage: cut-list', () => {
     const steps = [...page.querySelectorAll('.kept-step')].map(text);
     expect(steps.length).toBe(1);
     expect(steps[0]).toContain('which keeps the breast pocket from the Green checked flannel shirt, centred, for block 4; cut with the feature centred');
+  });
+
+  it('shows every word of the cut list its content model holds', () => {
+    const fabrics = [...shirts.fabrics, groupFabric(body.groups![0]!, shirts.fabrics)];
+    expect(missingWords(page, 'cut-list', { commission: { id: 5, title: 'Work-shirt memory quilt' }, version: version(3, body, { plan }), garments, stock: [], fabrics })).toEqual([]);
   });
 
   it('draws the top with the kept block marked, and keys the group as stripes of its garments', () => {
@@ -321,6 +337,12 @@ describe('PrintoutPage: care-card', () => {
     httpMock.expectOne('/api/commissions/5/care-card').flush(body);
     await fixture.whenStable();
   }
+
+  it('shows every word of the care card its content model holds', async () => {
+    await open('owner');
+    await flush();
+    expect(missingWords(page, 'care-card', card)).toEqual([]);
+  });
 
   it('gives the client washing, what went in by fibre, the maker and the safety notices, deferring to local guidance', async () => {
     await open('client');
