@@ -1,4 +1,4 @@
-import { contentFigures, wordsText, type Block, type CheckSquaresFigure, type PrintoutContent, type Template } from '@keepstitch/shared';
+import { contentFigures, templateOutline, wordsText, type Block, type CheckSquaresFigure, type PrintoutContent, type Template } from '@keepstitch/shared';
 import { PAPER_SIZES, PT_PER_MM, type Paper } from './pdf-document';
 
 /** Overlap between neighbouring tiles of a template larger than one page: 1/2 in. */
@@ -12,39 +12,20 @@ interface Path {
   kind: 'cut' | 'finished';
 }
 
-/** A template's outlines in points, y down, with its top-left at (0, 0). */
+/** A template's outlines in points, y down, with its top-left at (0, 0): the shared outline at 1 mm = 72 / 25.4 pt. */
 export function templatePaths(t: Template): { paths: Path[]; width: number; height: number; grain: [[number, number], [number, number]] } {
-  let raw: Path[];
-  if (t.kind === 'blade') {
-    raw = [
-      { kind: 'cut', points: t.cut.map((p) => [p.x, p.y] as [number, number]) },
-      { kind: 'finished', points: t.finished.map((p) => [p.x, p.y] as [number, number]) },
-    ];
-  } else if (t.kind === 'circle') {
-    const ring = (r: number): [number, number][] => Array.from({ length: 181 }, (_, i) => [r * Math.cos((i * Math.PI) / 90), r * Math.sin((i * Math.PI) / 90)]);
-    raw = [
-      { kind: 'cut', points: ring(t.fabricRadiusMm) },
-      { kind: 'finished', points: ring(t.cardRadiusMm) },
-    ];
-  } else {
-    const s = t.allowanceMm;
-    const arc = (r: number): [number, number][] => Array.from({ length: 91 }, (_, i) => [r * Math.cos((i * Math.PI) / 180), r * Math.sin((i * Math.PI) / 180)]);
-    raw = [
-      { kind: 'cut', points: [[-s, -s], [t.fabricRadiusMm, -s], ...arc(t.fabricRadiusMm), [-s, t.fabricRadiusMm], [-s, -s]] },
-      { kind: 'finished', points: [[0, 0], ...arc(t.cardRadiusMm), [0, 0]] },
-    ];
-  }
-  const all = raw.flatMap((p) => p.points);
-  const minX = Math.min(...all.map((p) => p[0]));
-  const maxX = Math.max(...all.map((p) => p[0]));
-  const minY = Math.min(...all.map((p) => p[1]));
-  const maxY = Math.max(...all.map((p) => p[1]));
-  // mm with y up -> points with y down.
-  const toPt = ([x, y]: [number, number]): [number, number] => [(x - minX) * PT_PER_MM, (maxY - y) * PT_PER_MM];
-  const paths = raw.map((p) => ({ kind: p.kind, points: p.points.map(toPt) }));
-  const cx = t.kind === 'quarter-circle' ? t.cardRadiusMm / 2 : (minX + maxX) / 2;
-  const grain: [[number, number], [number, number]] = [toPt([cx, minY + (maxY - minY) * 0.2]), toPt([cx, minY + (maxY - minY) * 0.8])];
-  return { paths, width: (maxX - minX) * PT_PER_MM, height: (maxY - minY) * PT_PER_MM, grain };
+  const o = templateOutline(t);
+  const pt = ([x, y]: readonly [number, number]): [number, number] => [x * PT_PER_MM, y * PT_PER_MM];
+  return {
+    paths: [
+      { kind: 'cut', points: o.cut.map(pt) },
+      { kind: 'finished', points: o.inner.map(pt) },
+    ],
+    width: o.widthMm * PT_PER_MM,
+    height: o.heightMm * PT_PER_MM,
+    // From the lower end to the upper, as the arrowheads are drawn.
+    grain: [pt([o.grain.x2, o.grain.y2]), pt([o.grain.x1, o.grain.y1])],
+  };
 }
 
 /** The check squares at the foot of a sheet: each square at its size in millimetres, its name and how to read it beside it. */

@@ -4,3 +4,4 @@ export * from './printouts';
 export * from './cut-list-printout';
 export * from './templates-printout';
 export * from './care-card-printout';
+export * from './template-outline';

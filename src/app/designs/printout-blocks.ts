@@ -1,10 +1,9 @@
 import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, input } from '@angular/core';
-import { Block, Figure, KeyFabric, PanelFigure, Run, TemplateFigure, Words } from '@keepstitch/shared';
+import { Block, Figure, KeyFabric, OutlinePoint, PanelFigure, Run, SHEET_AREA_MM, TemplateFigure, Words, templateInnerLine, templateOutline } from '@keepstitch/shared';
 
 import { swatchOf } from './design';
 import { QuiltDrawing } from './quilt-drawing';
-import { SHEET_AREA_MM, templateOutline } from './template-outline';
 
 /** Space round a template's drawing for its line widths, and below it for its name, mm. */
 const PAD_MM = 4;
@@ -45,7 +44,9 @@ export class PrintoutBlocks {
 
   /** A template's outline in an SVG whose user unit is the millimetre, so it prints 1:1. */
   protected sheet(f: TemplateFigure) {
-    const outline = templateOutline(f.template);
+    const o = templateOutline(f.template);
+    const points = (list: readonly OutlinePoint[]) => list.map((p) => p.join(',')).join(' ');
+    const outline = { ...o, cut: points(o.cut), inner: points(o.inner), innerLabel: templateInnerLine(f.template) };
     const widthMm = round(outline.widthMm + 2 * PAD_MM);
     const heightMm = round(outline.heightMm + 2 * PAD_MM + LABEL_MM);
     return {
