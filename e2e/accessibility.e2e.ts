@@ -1,6 +1,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../seeds/demo/accounts';
+import { PRINTOUTS } from '../shared/src/index';
 import { launchBrowser, openPage, signIn } from './support/browser';
 
 /**
@@ -69,7 +70,7 @@ describe('accessibility, end to end', () => {
   it('finds nothing on the owner’s design and printing pages', async () => {
     const { page, problems } = await signedIn(DEMO_ACCOUNTS.owner);
     const { commission } = await workShirt(page);
-    const found = await check(page, [`/designs/${commission}`, `/designs/${commission}/cut-list`, `/designs/${commission}/sewing-order`, `/designs/${commission}/templates`, `/designs/${commission}/care-card`]);
+    const found = await check(page, [`/designs/${commission}`, ...PRINTOUTS.map((p) => `/designs/${commission}/${p.id}`)]);
     expect(found).toEqual([]);
     expect(problems).toEqual([]);
   });
@@ -90,7 +91,7 @@ describe('accessibility, end to end', () => {
     const { page, problems } = await signedIn(DEMO_ACCOUNTS.clientA);
     const list = await (await page.request.get('/api/commissions')).json();
     const commission = list.items[0].id as number;
-    const found = await check(page, ['/portal', `/portal/${commission}`, `/designs/${commission}/review`, `/designs/${commission}/care-card`, '/my-details']);
+    const found = await check(page, ['/portal', `/portal/${commission}`, `/designs/${commission}/review`, ...PRINTOUTS.filter((p) => p.roles.includes('client')).map((p) => `/designs/${commission}/${p.id}`), '/my-details']);
     expect(found).toEqual([]);
     expect(problems).toEqual([]);
   });

@@ -1,6 +1,7 @@
 import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { DEMO_ACCOUNTS } from '../seeds/demo/accounts';
+import { PRINTOUTS, printoutPdfs } from '../shared/src/index';
 import { launchBrowser, openPage, screenshot, signIn } from './support/browser';
 import { SCREENSHOT_DIR } from './support/e2e-env';
 import { renderPdfPage } from './support/render-pdf';
@@ -88,8 +89,8 @@ describe('design, cut plan and printouts, end to end', () => {
     await screenshot(page, 'cut-list-print');
     await page.emulateMedia({ media: 'screen' });
 
-    // The PDFs, downloaded with the owner's session.
-    for (const url of [`/api/commissions/${commissionId}/design/cut-list.pdf`, `/api/commissions/${commissionId}/design/sewing-order.pdf`, `/api/commissions/${commissionId}/design/templates.pdf?paper=a4`, `/api/commissions/${commissionId}/design/templates.pdf?paper=letter`, `/api/commissions/${commissionId}/care-card.pdf`]) {
+    // Every printout's PDFs, downloaded with the owner's session.
+    for (const { url } of PRINTOUTS.flatMap((p) => printoutPdfs(p, commissionId))) {
       const res = await page.request.get(url);
       expect(res.status()).toBe(200);
       expect(res.headers()['content-type']).toBe('application/pdf');

@@ -9,10 +9,14 @@
 import Decimal from 'decimal.js';
 import os from 'node:os';
 import { performance } from 'node:perf_hooks';
-import { deriveDesign, planDesign, type DesignBody, type DesignSources } from '../shared/src/index';
-import { cutListPdf } from '../server/designs/printouts/cut-list-pdf';
-import { templatesPdf } from '../server/designs/printouts/templates-pdf';
-import type { PrintableDesign } from '../server/designs/printouts/printable';
+import { buildPrintout, deriveDesign, planDesign, printoutOf, type DesignBody, type DesignSources, type PrintableDesign } from '../shared/src/index';
+import { printoutPdf } from '../server/designs/printouts/printout-pdf';
+
+/** A printout's content and its PDF, as the route makes them. */
+function printPdf(id: string, printable: PrintableDesign, paper?: 'a4' | 'letter'): Promise<Buffer> {
+  const content = buildPrintout(printoutOf(id)!, printable as never, { printedOn: '2026-01-01', paper });
+  return printoutPdf(content, { documentTitle: id, paper });
+}
 
 const inch = (n: number) => new Decimal(n).times('25.4').toString();
 
@@ -84,22 +88,17 @@ async function main(): Promise<void> {
     plan = planDesign(body, derived, src);
     if (i >= 2) replan.push(performance.now() - t0);
   }
-  const printable: PrintableDesign = {
-    commission: { id: 1, title: 'Benchmark quilt' } as PrintableDesign['commission'],
-    version: { version: 1, body, derived, plan } as PrintableDesign['version'],
-    sources: src,
-    fabrics: [],
-  };
+  const printable: PrintableDesign = { commission: { id: 1, title: 'Benchmark quilt' }, version: { version: 1, body, derived, plan }, garments: src.garments, stock: src.stock, fabrics: [] };
   const pdfTimes: number[] = [];
   let bytes = 0;
   for (let i = 0; i < runs + 2; i++) {
     const t0 = performance.now();
-    const pdf = await cutListPdf(printable);
+    const pdf = await printPdf('cut-list', printable);
     if (i >= 2) pdfTimes.push(performance.now() - t0);
     bytes = pdf.length;
   }
   const t0 = performance.now();
-  await templatesPdf(printable, 'a4');
+  await printPdf('templates', printable, 'a4');
   const templatesMs = performance.now() - t0;
 
   console.log(`Printouts benchmark on ${os.cpus()[0]?.model ?? 'this machine'} (${os.cpus().length} cores), Node ${process.version}`);

@@ -1,3 +1,4 @@
+import { PRINTOUTS, printoutRoute } from '@keepstitch/shared';
 import type { Caller } from './roles';
 
 const EVERYONE: readonly Caller[] = ['anonymous', 'owner', 'workroom', 'client'];
@@ -7,6 +8,8 @@ const STUDIO: readonly Caller[] = ['owner', 'workroom'];
 /** Money: the owner and the client it concerns; never the workroom. */
 const CLIENT_OR_OWNER: readonly Caller[] = ['owner', 'client'];
 const CLIENT: readonly Caller[] = ['client'];
+/** Each printout's PDF with who may print it, from the printouts' registry. */
+const PRINTOUT_PDFS = Object.fromEntries(PRINTOUTS.map((p) => [printoutRoute(p), p.roles])) as Record<ReturnType<typeof printoutRoute>, readonly Caller[]>;
 
 /**
  * The one place that says who may call each API route. Routers are built with
@@ -51,11 +54,9 @@ export const ROUTE_POLICY = {
   'POST /api/commissions/:id/design/share': OWNER,
   'GET /api/commissions/:id/design/shared': SIGNED_IN,
   'POST /api/commissions/:id/design/response': CLIENT,
-  'GET /api/commissions/:id/design/cut-list.pdf': STUDIO,
-  'GET /api/commissions/:id/design/sewing-order.pdf': STUDIO,
-  'GET /api/commissions/:id/design/templates.pdf': STUDIO,
   'GET /api/commissions/:id/care-card': SIGNED_IN,
-  'GET /api/commissions/:id/care-card.pdf': SIGNED_IN,
+  // The printouts' PDFs: cut list, sewing order and templates for the studio, the care card for the client too.
+  ...PRINTOUT_PDFS,
 
   'GET /api/garments/:id': SIGNED_IN,
   'PATCH /api/garments/:id': STUDIO,

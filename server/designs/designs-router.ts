@@ -3,11 +3,9 @@ import { securedRouter } from '../core/secured-router';
 import { parseId, parseInput } from '../core/validate';
 import { clientResponseSchema, designBodySchema, paperSchema, saveDesignSchema } from './designs-schemas';
 import * as designs from './designs-service';
-import type { DesignBody } from '@keepstitch/shared';
-import { cutListPdf } from './printouts/cut-list-pdf';
-import { sewingOrderPdf } from './printouts/sewing-order-pdf';
-import { templatesPdf } from './printouts/templates-pdf';
-import { careCardPdf } from './printouts/care-card-pdf';
+import { PRINTOUTS, buildPrintout, printoutFileName, printoutPdfPath, type DesignBody, type PrintoutSource, type PrintoutSources } from '@keepstitch/shared';
+import { today } from '../core/calendar';
+import { printoutPdf } from './printouts/printout-pdf';
 
 const WHAT = 'That commission';
 
@@ -17,6 +15,12 @@ function sendPdf(res: Response, name: string, pdf: Buffer): void {
   res.setHeader('Cache-Control', 'no-store');
   res.send(pdf);
 }
+
+/** What each kind of printout is drawn from, read for the caller. */
+const PRINTOUT_DATA: { [S in PrintoutSource]: (user: Express.User, commissionId: number) => Promise<PrintoutSources[S]> } = {
+  design: designs.printable,
+  'care-card': designs.careCard,
+};
 
 /** A commission's design, its versions, the client's review and the workroom printouts. */
 export function designsRouter() {
@@ -50,25 +54,17 @@ export function designsRouter() {
     const { response, note } = parseInput(clientResponseSchema, req.body, 'answer');
     res.json(await designs.respondToDesign(req.user!, id, response, note));
   });
-  r.get('/:id/design/cut-list.pdf', async (req, res) => {
-    const p = await designs.printable(req.user!, idOf(req.params['id']));
-    sendPdf(res, `cut-list-${p.commission.id}-v${p.version.version}.pdf`, await cutListPdf(p));
-  });
-  r.get('/:id/design/sewing-order.pdf', async (req, res) => {
-    const p = await designs.printable(req.user!, idOf(req.params['id']));
-    sendPdf(res, `sewing-order-${p.commission.id}-v${p.version.version}.pdf`, await sewingOrderPdf(p));
-  });
-  r.get('/:id/design/templates.pdf', async (req, res) => {
-    const { paper } = parseInput(paperSchema, req.query, 'printout request');
-    const p = await designs.printable(req.user!, idOf(req.params['id']));
-    sendPdf(res, `templates-${p.commission.id}-v${p.version.version}-${paper}.pdf`, await templatesPdf(p, paper));
-  });
   r.get('/:id/care-card', async (req, res) => {
     res.json(await designs.careCard(req.user!, idOf(req.params['id'])));
   });
-  r.get('/:id/care-card.pdf', async (req, res) => {
-    const card = await designs.careCard(req.user!, idOf(req.params['id']));
-    sendPdf(res, `care-card-${card.commission.id}.pdf`, await careCardPdf(card));
-  });
+  // Every printout's PDF, from the printouts' registry.
+  for (const p of PRINTOUTS) {
+    r.get(`/:id${printoutPdfPath(p)}`, async (req, res) => {
+      const paper = p.papers ? parseInput(paperSchema, req.query, 'printout request').paper : undefined;
+      const data = await PRINTOUT_DATA[p.source](req.user!, idOf(req.params['id']));
+      const content = buildPrintout(p, data, { printedOn: today(), ...(paper ? { paper } : {}) });
+      sendPdf(res, printoutFileName(p, data, paper), await printoutPdf(content, { documentTitle: `${p.title}: ${data.commission.title}`, ...(paper ? { paper } : {}) }));
+    });
+  }
   return r.router;
 }

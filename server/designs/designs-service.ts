@@ -8,13 +8,14 @@ import {
   garmentGroups,
   groupLegendEntry,
   keptFeaturePieces,
-  keptFeaturePlaces,
+  designKeptFeatures,
   planDesign,
   type DesignBody,
   type DesignPlanSummary,
   type DesignSources,
   type FabricRef,
   type FibreGroup,
+  type PrintableDesign,
 } from '@keepstitch/shared';
 import { AppError } from '../core/app-error';
 import { nextVersion } from '../core/paging';
@@ -222,7 +223,7 @@ export async function sharedDesign(user: Express.User, commissionId: number) {
     derived: { finished: v.derived.finished, target: v.derived.target, difference: v.derived.difference, centre: v.derived.centre, parts: v.derived.parts, positions: v.derived.positions, layoutFabrics: v.derived.layoutFabrics, totals: { blocks: v.derived.totals.blocks } },
     fabrics: fabricLegend(sources, v.body).map(({ key, kind, name, hex, stripes }) => ({ key, kind, name, hex, ...(stripes ? { stripes } : {}) })),
     // Where the kept features go, in the client's own garments' words; nothing of the plan itself.
-    keptFeatures: keptFeaturePlaces(v.body, v.derived, keptFeaturePieces(v.plan, sources)).map(({ position, rail, feature, garment }) => ({ position, rail, feature, garment })),
+    keptFeatures: designKeptFeatures(v, sources).map(({ position, rail, feature, garment }) => ({ position, rail, feature, garment })),
     clientResponse: v.clientResponse,
     clientNote: v.clientNote,
     respondedAt: v.respondedAt,
@@ -239,12 +240,12 @@ export async function respondToDesign(user: Express.User, commissionId: number, 
 }
 
 /** The latest version for the printouts, with everything they name. */
-export async function printable(user: Express.User, commissionId: number) {
+export async function printable(user: Express.User, commissionId: number): Promise<PrintableDesign> {
   const c = await staffCommission(user, commissionId);
   const v = await latestVersion(c.id);
   if (!v) throw AppError.notFound(NO_DESIGN);
   const sources = await designSources(c.id);
-  return { commission: c, version: v, sources, fabrics: fabricLegend(sources, v.body) };
+  return { commission: { id: c.id, title: c.title }, version: v, garments: sources.garments, stock: sources.stock, fabrics: fabricLegend(sources, v.body) };
 }
 
 const WASHING = [

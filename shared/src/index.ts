@@ -45,3 +45,6 @@ export * from './money/quote-totals';
 // A commission's design: derivation, drawing and its cut plan.
 export * from './design/index';
 export * from './money/quote-suggestion';
+
+// The printouts: one content model each, drawn by the print page and the PDF.
+export * from './printouts/index';

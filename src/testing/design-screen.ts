@@ -1,4 +1,4 @@
-import { DesignBody, DesignPlanSummary, deriveDesign } from '@keepstitch/shared';
+import { DesignBody, DesignPlanSummary, deriveDesign, fabricKey } from '@keepstitch/shared';
 
 import { DesignScreen, DesignVersion, GarmentSource } from '../app/designs/design';
 
@@ -78,6 +78,6 @@ export function threeShirts(): { garments: GarmentSource[]; fabrics: DesignScree
     { id: 10, description: 'Green checked flannel shirt', colour: 'Green and cream check', fibre: 'flannel', print: 'non_directional', construction: 'woven', panels: [panel(101, 'back', 21, 26.5)] },
   ];
   const hex: Record<number, string> = { 8: '#9db7d5', 9: '#26355d', 10: '#4f7a52' };
-  const fabrics = garments.map((g) => ({ key: `garment:${g.id}`, kind: 'garment' as const, id: g.id, name: g.description, colour: g.colour, hex: hex[g.id]!, detail: '1 panel' }));
+  const fabrics = garments.map((g) => ({ key: fabricKey({ kind: 'garment', garmentId: g.id }), kind: 'garment' as const, id: g.id, name: g.description, colour: g.colour, hex: hex[g.id]!, detail: '1 panel' }));
   return { garments, fabrics };
 }

@@ -1,7 +1,6 @@
-import { designDrawing, keptFeatureLabel, keptFeatureOutline, type DesignBody, type DesignDerivation, type KeptFeaturePlace } from '@keepstitch/shared';
-import type { PrintableDesign } from './printable';
+import { designDrawing, keptFeatureOutline, type DesignBody, type DesignDerivation, type KeptFeaturePlace, type KeyFabric, type QuiltTopFigure } from '@keepstitch/shared';
 
-type Legend = PrintableDesign['fabrics'];
+type Legend = readonly KeyFabric[];
 type Point = [number, number];
 
 /** The hatching of a shape the planner fills from any garment, as the app draws it. */
@@ -71,10 +70,7 @@ export function drawQuiltTop(doc: PDFKit.PDFDocument, x: number, y: number, widt
 }
 
 /** The key to the drawing from (x, y): each fabric it shows with its swatch, then each kept feature's mark. Returns the y below it. */
-export function drawTopKey(doc: PDFKit.PDFDocument, x: number, y: number, width: number, body: DesignBody, derived: DesignDerivation, legend: Legend, kept: readonly KeptFeaturePlace[]): number {
-  // In the legend's order (garments, studio fabrics, groups), then the planner's choice.
-  const fills = new Set(designDrawing(body, derived).shapes.map((s) => s.fill));
-  const shown = [...legend.map((f) => f.key).filter((k) => fills.has(k)), ...[...fills].filter((k) => !legend.some((f) => f.key === k))];
+export function drawTopKey(doc: PDFKit.PDFDocument, x: number, y: number, width: number, top: QuiltTopFigure): number {
   const textX = x + 16;
   const textW = width - 16;
   doc.font('Lato').fontSize(8.5).fillColor('#000000');
@@ -85,19 +81,17 @@ export function drawTopKey(doc: PDFKit.PDFDocument, x: number, y: number, width:
     line = Math.max(doc.y, line + 11) + 2;
   };
   const square = (top: number): Point[] => [[x, top], [x + 10, top], [x + 10, top + 10], [x, top + 10]];
-  for (const key of shown) {
-    const item = legend.find((f) => f.key === key);
-    const name = item ? item.name : 'Planner chooses (any garment)';
-    row((top) => {
-      fillFabric(doc, square(top), key, legend, 2.5);
-      doc.save().lineWidth(0.4).polygon(...square(top)).stroke('#000000').restore();
-    }, item?.stripes ? `${name} (a group: stripes of its garments)` : name);
+  for (const item of top.key) {
+    row((t) => {
+      fillFabric(doc, square(t), item.key, top.fabrics, 2.5);
+      doc.save().lineWidth(0.4).polygon(...square(t)).stroke('#000000').restore();
+    }, item.name);
   }
-  for (const k of kept) {
-    row((top) => {
-      doc.save().rect(x, top, 10, 10).fill('#e6e6e6').restore();
-      keptMark(doc, square(top), 10);
-    }, `${keptFeatureLabel(k)}: that block's piece is cut with the feature centred.`);
+  for (const text of top.keptKey) {
+    row((t) => {
+      doc.save().rect(x, t, 10, 10).fill('#e6e6e6').restore();
+      keptMark(doc, square(t), 10);
+    }, text);
   }
   return line;
 }

@@ -72,3 +72,12 @@ export function keptFeatureLabel(place: KeptFeaturePlace): string {
 export function keptFeatureNote(k: Pick<KeptFeaturePlace, 'feature' | 'garment'> & { position?: number }): string {
   return `keeps ${what(k)}, centred${k.position === undefined ? '' : `, for block ${k.position + 1}`}; cut with the feature centred`;
 }
+
+/**
+ * Where the kept features of a design go in its top, worked out once for the
+ * design page, the client's review and the printouts: the plan's kept features
+ * (read against the garments for a plan stored before it listed them) placed in the derivation.
+ */
+export function designKeptFeatures(design: { body: DesignBody; derived: DesignDerivation; plan: Pick<DesignPlanSummary, 'plan' | 'keptFeatures'> }, sources?: FeatureNames): (KeptFeaturePiece & KeptFeaturePlace)[] {
+  return keptFeaturePlaces(design.body, design.derived, keptFeaturePieces(design.plan, sources));
+}

@@ -15,7 +15,8 @@ import { blockKind } from './kinds';
 import type { DesignSources, KeptFeaturePiece, SourceGarment } from './plan-design';
 
 export const panelId = (id: number) => `panel-${id}`;
-const stockFabricId = (id: number) => `stock-${id}`;
+/** The cut plan's id of a studio fabric, as panelId is of a garment panel. */
+export const stockFabricId = (id: number) => `stock-${id}`;
 
 /** The group a reference names; the design must have it. */
 function groupFor(body: DesignBody, fabric: FabricRef & { kind: 'group' }) {

@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
-import { DesignBody, DesignDerivation, DesignPlanSummary, DomainError, Length, deriveDesign, formatFabricLength, formatLength, keptFeaturePieces, keptFeaturePlaces } from '@keepstitch/shared';
+import { DesignBody, DesignDerivation, DesignPlanSummary, DomainError, Length, deriveDesign, designKeptFeatures, formatFabricLength, formatLength, printoutPdfs, PRINTOUTS } from '@keepstitch/shared';
 import { Subject, debounceTime, switchMap, catchError, of } from 'rxjs';
 
 import { messageFor } from '../core/api-error';
@@ -86,7 +86,7 @@ export class DesignPage {
     const b = this.body();
     const d = this.derivation().derived;
     const p = this.plan();
-    return b && d && p ? keptFeaturePlaces(b, d, keptFeaturePieces(p)) : [];
+    return b && d && p ? designKeptFeatures({ body: b, derived: d, plan: p }) : [];
   });
 
   private readonly replan$ = new Subject<DesignBody>();
@@ -190,9 +190,15 @@ export class DesignPage {
     });
   }
 
-  protected pdf(kind: Parameters<DesignsApi['pdf']>[1]): string {
-    return this.api.pdf(this.commissionId(), kind);
-  }
+  /** Each printout this role may print, its page and its PDFs, from the printouts' registry. */
+  protected readonly printouts = computed(() =>
+    PRINTOUTS.filter((p) => this.auth.role() !== null && p.roles.includes(this.auth.role()!)).map((p) => ({
+      id: p.id,
+      title: p.title,
+      needsDesign: p.source === 'design',
+      pdfs: printoutPdfs(p, this.commissionId()).map((x) => ({ url: x.url, testId: `pdf-${p.id}${x.paper ? `-${x.paper}` : ''}`, label: x.paperName ? `${p.title} PDF, ${x.paperName}` : `${p.title} PDF` })),
+    })),
+  );
 
   protected fabricLength(mm: string): string {
     const l = Length.millimetres(mm);

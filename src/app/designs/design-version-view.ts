@@ -1,7 +1,7 @@
 import { DatePipe, PercentPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
-import { BLOCK_KIND_LABELS, Length, MATTRESS_PRESETS, formatLength, keptFeaturePieces, keptFeaturePlaces } from '@keepstitch/shared';
+import { BLOCK_KIND_LABELS, Length, MATTRESS_PRESETS, designKeptFeatures, formatLength } from '@keepstitch/shared';
 
 import { DesignVersion } from './design';
 import { QuiltDrawing } from './quilt-drawing';
@@ -58,7 +58,7 @@ export class DesignVersionView {
   protected readonly kindLabels = BLOCK_KIND_LABELS;
   protected readonly kept = computed(() => {
     const v = this.version();
-    return keptFeaturePlaces(v.body, v.derived, keptFeaturePieces(v.plan));
+    return designKeptFeatures(v);
   });
   protected readonly size = computed(() => {
     const d = this.version().derived;

@@ -1,4 +1,4 @@
-import { UNKNOWN_FABRIC_COLOUR, groupLegendEntry, groupStripes, type DesignBody, type DesignDerivation, type DesignPlanSummary, type GarmentGroup } from '@keepstitch/shared';
+import { UNKNOWN_FABRIC_COLOUR, fabricKey, groupLegendEntry, groupStripes, type DesignBody, type DesignDerivation, type DesignPlanSummary, type GarmentGroup } from '@keepstitch/shared';
 import * as z from 'zod/mini';
 
 const object = <T>() => z.custom<T>((v) => typeof v === 'object' && v !== null);
@@ -110,12 +110,12 @@ export type CareCard = z.infer<typeof careCardSchema>;
 /** A group as a fabric of the legend, as the server gives it: drawn in stripes of its garments' colours. */
 export function groupFabric(group: GarmentGroup, legend: readonly Fabric[]): Fabric {
   const hex = new Map(legend.map((f) => [f.key, f.hex]));
-  return { ...groupLegendEntry(group, (id) => hex.get(`garment:${id}`)), kind: 'group', id: null, colour: null };
+  return { ...groupLegendEntry(group, (id) => hex.get(fabricKey({ kind: 'garment', garmentId: id }))), kind: 'group', id: null, colour: null };
 }
 
 /** The stripes a group is drawn in, from the drawing colours by fabric key. */
 export function groupColours(group: Pick<GarmentGroup, 'garmentIds'>, colours: Readonly<Record<string, string | undefined>>): string[] {
-  return groupStripes(group.garmentIds, (id) => colours[`garment:${id}`]);
+  return groupStripes(group.garmentIds, (id) => colours[fabricKey({ kind: 'garment', garmentId: id })]);
 }
 
 /** A CSS background for a swatch: one colour, or diagonal stripes of a group's garments. */

@@ -1,6 +1,6 @@
 import { HttpClient, HttpContext } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
-import type { DesignBody } from '@keepstitch/shared';
+import type { DesignBody, PrintoutSource, PrintoutSources } from '@keepstitch/shared';
 import { Observable, map } from 'rxjs';
 
 import { REPORT_API_ERRORS } from '../core/api-error';
@@ -47,17 +47,12 @@ export class DesignsApi {
     return this.http.post<unknown>(`/api/commissions/${commissionId}/design/response`, { response, note }, quiet).pipe(map(() => undefined));
   }
 
-  /** Addresses of the server's PDFs (opened by the browser, not through HttpClient). */
-  pdf(commissionId: number, kind: 'cut-list' | 'sewing-order' | 'templates-a4' | 'templates-letter' | 'care-card'): string {
-    switch (kind) {
-      case 'templates-a4':
-        return `/api/commissions/${commissionId}/design/templates.pdf?paper=a4`;
-      case 'templates-letter':
-        return `/api/commissions/${commissionId}/design/templates.pdf?paper=letter`;
-      case 'care-card':
-        return `/api/commissions/${commissionId}/care-card.pdf`;
-      default:
-        return `/api/commissions/${commissionId}/design/${kind}.pdf`;
-    }
+  /** What a printout is drawn from: the design screen's latest version with its garments, or the care card. */
+  printoutData<S extends PrintoutSource>(source: S, commissionId: number): Observable<PrintoutSources[S]> {
+    const data: { [K in PrintoutSource]: () => Observable<PrintoutSources[K]> } = {
+      design: () => this.screen(commissionId).pipe(map((s) => ({ commission: s.commission, version: s.current, garments: s.garments, stock: s.stock, fabrics: s.fabrics }))),
+      'care-card': () => this.careCard(commissionId),
+    };
+    return data[source]();
   }
 }

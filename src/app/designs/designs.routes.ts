@@ -1,19 +1,15 @@
 import { Routes } from '@angular/router';
+import { PRINTOUTS } from '@keepstitch/shared';
 
 import { roleGuard } from '../core/role-guard';
 import { unsavedWorkGuard } from '../core/unsaved-work';
-import { CareCardPrint } from './care-card-print';
-import { CutListPrint } from './cut-list-print';
 import { DesignPage } from './design-page';
 import { DesignReview } from './design-review';
-import { SewingOrderPrint } from './sewing-order-print';
-import { TemplatesPrint } from './templates-print';
+import { PrintoutPage } from './printout-page';
 
 export const designsRoutes: Routes = [
   { path: ':id', title: 'Design', canActivate: [roleGuard('owner', 'workroom')], canDeactivate: [unsavedWorkGuard], component: DesignPage },
-  { path: ':id/cut-list', title: 'Cut list', canActivate: [roleGuard('owner', 'workroom')], component: CutListPrint },
-  { path: ':id/sewing-order', title: 'Sewing order', canActivate: [roleGuard('owner', 'workroom')], component: SewingOrderPrint },
-  { path: ':id/templates', title: 'Templates', canActivate: [roleGuard('owner', 'workroom')], component: TemplatesPrint },
-  { path: ':id/care-card', title: 'Care card', canActivate: [roleGuard('owner', 'workroom', 'client')], component: CareCardPrint },
+  // Every printout's page, from the printouts' registry.
+  ...PRINTOUTS.map((p) => ({ path: `:id/${p.id}`, title: p.title, canActivate: [roleGuard(...p.roles)], component: PrintoutPage, data: { printout: p.id } })),
   { path: ':id/review', title: 'Your design', canActivate: [roleGuard('client')], component: DesignReview },
 ];

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, computed, input, output } from '@angular/core';
-import { DesignBody, DesignDerivation, KeptFeaturePlace, UNKNOWN_FABRIC_COLOUR, designDrawing, garmentGroups, keptFeatureLabel, keptFeatureOutline } from '@keepstitch/shared';
+import { DesignBody, DesignDerivation, KeptFeaturePlace, UNKNOWN_FABRIC_COLOUR, designDrawing, fabricKey, garmentGroups, keptFeatureLabel, keptFeatureOutline } from '@keepstitch/shared';
 
 import { groupColours } from './design';
 
@@ -58,7 +58,7 @@ let drawings = 0;
           </g>
         }
       </svg>
-      @if (marks().length) {
+      @if (legend() && marks().length) {
         <div class="kept-key" data-testid="kept-legend">
           <p>
             <svg class="symbol" viewBox="0 0 16 16" aria-hidden="true"><rect x="1.5" y="1.5" width="13" height="13" fill="#e6e6e6" stroke="#000" stroke-width="1.5" stroke-dasharray="3 2" /><circle cx="8" cy="8" r="2.5" fill="#000" stroke="#fff" stroke-width="1" /></svg>
@@ -93,6 +93,8 @@ export class QuiltDrawing {
   readonly colours = input<Readonly<Record<string, string>>>({});
   /** Where the plan keeps features whole. */
   readonly kept = input<readonly KeptFeaturePlace[]>([]);
+  /** Whether to name the kept features below the drawing (a printout keys them itself). */
+  readonly legend = input(true);
   readonly positionPicked = output<number>();
 
   /** Pattern ids are the page's: each drawing has its own, so two drawings of different versions never share stripes. */
@@ -120,7 +122,7 @@ export class QuiltDrawing {
     const keys = new Set(this.drawing().shapes.map((s) => s.fill).filter((f) => f.startsWith('group:')));
     const groups = garmentGroups(this.body());
     return [...keys].map((key) => {
-      const group = groups.find((g) => `group:${g.id}` === key);
+      const group = groups.find((g) => fabricKey({ kind: 'group', groupId: g.id }) === key);
       const stripes = group ? groupColours(group, this.colours()) : [];
       return { key, id: this.patternId(key), stripes: stripes.length ? stripes : [UNKNOWN_FABRIC_COLOUR] };
     });
