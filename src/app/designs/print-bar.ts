@@ -1,13 +1,10 @@
-import { ChangeDetectionStrategy, Component, DestroyRef, effect, inject, input, output, signal, untracked } from '@angular/core';
-import type { Observable, Subscription } from 'rxjs';
+import { ChangeDetectionStrategy, Component, input, output } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 
 import { LoadStatus } from '../shared/load-status';
-
-/** Where a print page's loading stands. */
-export type PrintState = 'loading' | 'ready' | 'failed';
+import type { LoadState } from '../shared/loader';
 
 /**
  * The strip above a page made for paper: back, Print, the page's PDF links
@@ -46,45 +43,10 @@ export class PrintBar {
   readonly backLabel = input('Back to the design');
   /** What the page is, in a sentence: "cut list", "care card". */
   readonly what = input.required<string>();
-  readonly state = input.required<PrintState>();
+  readonly state = input.required<LoadState>();
   readonly retry = output<void>();
 
   protected print(): void {
     window.print();
-  }
-}
-
-/**
- * What a print page loads, with the state its bar shows and a way to load it
- * again. Create it in a field initialiser: it loads at once and again when
- * what `fetch` reads changes (the commission id), and stops with the page.
- */
-export class PrintLoad<T> {
-  readonly value = signal<T | null>(null);
-  readonly state = signal<PrintState>('loading');
-  private running?: Subscription;
-
-  constructor(private readonly fetch: () => Observable<T>) {
-    effect(() => {
-      const request = this.fetch();
-      untracked(() => this.start(request));
-    });
-    inject(DestroyRef).onDestroy(() => this.running?.unsubscribe());
-  }
-
-  reload(): void {
-    this.start(untracked(() => this.fetch()));
-  }
-
-  private start(request: Observable<T>): void {
-    this.running?.unsubscribe();
-    this.state.set('loading');
-    this.running = request.subscribe({
-      next: (v) => {
-        this.value.set(v);
-        this.state.set('ready');
-      },
-      error: () => this.state.set('failed'),
-    });
   }
 }

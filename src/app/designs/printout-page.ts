@@ -4,7 +4,8 @@ import { buildPrintout, printoutOf, printoutPdfs, type PrintoutSources } from '@
 
 import { Auth } from '../core/auth';
 import { DesignsApi } from './designs-api';
-import { PrintBar, PrintLoad } from './print-bar';
+import { Loader } from '../shared/loader';
+import { PrintBar } from './print-bar';
 import { PrintoutBlocks } from './printout-blocks';
 
 /** Today in the browser's calendar, YYYY-MM-DD, as a printout is dated. */
@@ -38,7 +39,7 @@ export class PrintoutPage {
     if (!p) throw new Error(`No printout "${this.printout()}".`);
     return p;
   });
-  protected readonly loaded = new PrintLoad<PrintoutSources[keyof PrintoutSources]>(() => this.api.printoutData(this.def().source, this.commissionId()));
+  protected readonly loaded = new Loader<PrintoutSources[keyof PrintoutSources]>(() => this.api.printoutData(this.def().source, this.commissionId()), { reloadInPlace: false });
   protected readonly content = computed(() => {
     const data = this.loaded.value();
     return data ? buildPrintout(this.def(), data as never, { printedOn: today() }) : null;

@@ -13,6 +13,11 @@ export interface LoaderOptions<T> {
   ended?: (ok: boolean) => void;
   /** A 404 shows as `missing` (for a page with its own "not found" view); otherwise it is a failure like any other. */
   tellMissing?: boolean;
+  /**
+   * False: every load, a reload too, shows progress and leaves the state until
+   * it ends (a page for paper, whose Print waits for what it will print).
+   */
+  reloadInPlace?: boolean;
 }
 
 /**
@@ -45,7 +50,7 @@ export class Loader<T> {
 
   private start(request: Observable<T>): void {
     this.running?.unsubscribe();
-    if (this.state() !== 'ready') this.state.set('loading');
+    if (this.state() !== 'ready' || this.options.reloadInPlace === false) this.state.set('loading');
     this.running = request.subscribe({
       next: (value) => {
         this.value.set(value);
