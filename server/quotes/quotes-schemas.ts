@@ -3,10 +3,12 @@ import { z } from 'zod';
 import { STAGES } from '@keepstitch/shared';
 import { optionalText } from '../core/validate';
 
+const QUANTITY = /^\d{1,8}(\.\d{1,4})?$/;
+
 const decimalText = z
   .union([z.number(), z.string().trim()], { message: 'Quantity must be a number.' })
   .transform((v) => String(v))
-  .refine((s) => /^\d{1,8}(\.\d{1,4})?$/.test(s) && Number(s) > 0, 'Quantity must be a number above 0 with at most 4 decimal places.');
+  .refine((s) => QUANTITY.test(s) && Number(s) > 0, 'Quantity must be a number above 0 with at most 4 decimal places.');
 
 export const quoteLineSchema = z
   .object({
@@ -40,6 +42,8 @@ export const quoteSchema = z
   .superRefine((q, ctx) => {
     let charged = new Decimal(0);
     q.lines.forEach((l, i) => {
+      // A line whose own quantity or price is refused is reported by its own check (zod still runs this one).
+      if (!QUANTITY.test(l.quantity) || !Number.isInteger(l.unitPricePence)) return;
       const amount = new Decimal(l.quantity).times(l.unitPricePence);
       if (amount.abs().gt(MAX_QUOTE_NET_PENCE)) {
         ctx.addIssue({ code: 'custom', path: ['lines', i, 'quantity'], message: `This line comes to more than ${MAX_QUOTE_WORDS}. Check its quantity and price.` });
