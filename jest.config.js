@@ -22,10 +22,10 @@ module.exports = {
       testMatch: ['<rootDir>/server/**/*.spec.ts'],
       transform: {
         '^.+\\.ts$': ['ts-jest', { tsconfig: '<rootDir>/server/tsconfig.json' }],
-        // file-type and its helpers ship only as ES modules: compile them for jest.
+        // file-type and its helpers, and p-limit, ship only as ES modules: compile them for jest.
         '^.+\\.js$': ['ts-jest', { tsconfig: { allowJs: true, module: 'commonjs', target: 'ES2022' } }],
       },
-      transformIgnorePatterns: ['/node_modules/(?!(file-type|strtok3|token-types|@tokenizer|uint8array-extras|@borewit)/)'],
+      transformIgnorePatterns: ['/node_modules/(?!(file-type|strtok3|token-types|@tokenizer|uint8array-extras|@borewit|p-limit|yocto-queue)/)'],
       moduleNameMapper: { ...moduleNameMapper, '^file-type$': '<rootDir>/node_modules/file-type/index.js' },
       globalSetup: '<rootDir>/server/testing/global-setup.ts',
     },

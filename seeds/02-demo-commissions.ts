@@ -3,7 +3,7 @@ import { readdir, unlink } from 'node:fs/promises';
 import path from 'node:path';
 import sharp from 'sharp';
 import { DATA_DIR } from '../server/core/config';
-import { storeImages } from '../server/photos/image-store';
+import { storeImageBuffer } from '../server/photos/image-store';
 import { DEMO_ACCOUNTS } from './demo/accounts';
 
 /** A fabric-like picture drawn here (checks or stripes), standing in for a photo of a garment. */
@@ -113,10 +113,10 @@ export async function seed(knex: Knex): Promise<void> {
         features: JSON.stringify(features.map((f) => ({ name: f.name, xMm: inches(f.x), yMm: inches(f.y), widthMm: inches(f.width), heightMm: inches(f.height) }))),
       })),
     );
-    const [image] = await storeImages(uploadDir, [{ originalname: `${s.description.toLowerCase().replace(/\W+/g, '-')}.jpg`, buffer: await fabricPicture(s.colours, s.kind) }]);
+    const image = await storeImageBuffer(uploadDir, `${s.description.toLowerCase().replace(/\W+/g, '-')}.jpg`, await fabricPicture(s.colours, s.kind));
     await knex('photos').insert({ ...image, commissionId: quilt.id, garmentId: g.id, kind: 'garment', uploadedBy: rosalind.id, caption: s.story });
   }
-  const [progress] = await storeImages(uploadDir, [{ originalname: 'pressed-shirts.jpg', buffer: await fabricPicture(['#9db7d5', '#4f7a52', '#23335a', '#a33b3b'], 'stripe') }]);
+  const progress = await storeImageBuffer(uploadDir, 'pressed-shirts.jpg', await fabricPicture(['#9db7d5', '#4f7a52', '#23335a', '#a33b3b'], 'stripe'));
   await knex('photos').insert({ ...progress, commissionId: quilt.id, garmentId: null, kind: 'progress', uploadedBy: owner.id, caption: 'All four shirts washed and pressed' });
 
   const dresses = [

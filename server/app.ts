@@ -9,6 +9,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { AppConfig } from './core/config';
 import { apiNotFound, errorMiddleware } from './core/error-middleware';
+import { refuseBadText } from './core/validate';
 import { assertPolicyCovered } from './core/secured-router';
 import { configurePassport } from './auth/passport-setup';
 import { createCsrf } from './auth/csrf';
@@ -76,6 +77,8 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
         },
       },
       strictTransportSecurity: config.secureCookies,
+      // The same answer as frame-ancestors 'none' above, for browsers that only read X-Frame-Options.
+      xFrameOptions: { action: 'deny' },
     }),
   );
 
@@ -103,6 +106,7 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
   );
   app.use(passport.session());
   app.use('/api', csrf.protect);
+  app.use('/api', refuseBadText);
 
   app.use(
     authRouter({

@@ -1,18 +1,10 @@
 import { z } from 'zod';
 import { AGE_GROUP, COMMISSION_KIND, COMMISSION_TEXT_LIMITS as TEXT, STAGES, ALL_STAGES } from '@keepstitch/shared';
-import { optionalText } from '../core/validate';
+import { isoDate, MAX_INT, optionalText, recordId } from '../core/validate';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 
-const isoDate = z
-  .string({ message: 'Enter a date as YYYY-MM-DD.' })
-  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter a date as YYYY-MM-DD.')
-  .refine((s) => {
-    const d = new Date(`${s}T00:00:00Z`);
-    return !Number.isNaN(d.getTime()) && d.toISOString().slice(0, 10) === s;
-  }, 'That date does not exist.');
-
 const commissionFields = {
-  clientId: z.number({ message: 'Choose the client.' }).int().positive('Choose the client.'),
+  clientId: recordId('Choose the client.'),
   title: z.string({ message: 'Title is required.' }).trim().min(1, 'Title is required.').max(200, 'A title can be at most 200 characters.'),
   kind: z.enum(COMMISSION_KIND.values, { message: 'Choose what kind of piece it is.' }),
   recipient: optionalText(200, 'Who it is for'),
@@ -56,7 +48,7 @@ export const listCommissionsQuerySchema = z
       .transform((s) => s.split(',').filter(Boolean))
       .pipe(z.array(z.enum(ALL_STAGES, { message: 'stage must be one of the commission stages.' })))
       .optional(),
-    clientId: z.coerce.number().int().positive().optional(),
+    clientId: z.coerce.number().int().positive().max(MAX_INT, 'clientId must be the id of a client.').optional(),
     dueWithinDays: z.coerce.number().int().min(0).max(3650).optional(),
     q: z.string().trim().max(200).optional(),
   })

@@ -12,8 +12,13 @@ import { tableFingerprints } from '../testing/table-fingerprints';
 
 const ROOT = path.resolve(__dirname, '..', '..');
 
-const files = (dir: string) =>
-  Object.fromEntries(readdirSync(dir).sort().map((f) => [f, createHash('sha256').update(readFileSync(path.join(dir, f))).digest('hex')]));
+/** Every file under a folder (its subfolders too, such as the uploads' incoming/), by path, with a hash of its bytes. */
+const files = (dir: string, prefix = ''): Record<string, string> =>
+  Object.fromEntries(
+    readdirSync(dir, { withFileTypes: true })
+      .sort((a, b) => a.name.localeCompare(b.name))
+      .flatMap((e) => (e.isDirectory() ? Object.entries(files(path.join(dir, e.name), `${prefix}${e.name}/`)) : [[`${prefix}${e.name}`, createHash('sha256').update(readFileSync(path.join(dir, e.name))).digest('hex')]])),
+  );
 
 describe('npm run backup and npm run restore', () => {
   let t: TestApp;

@@ -4,6 +4,24 @@ import { ZodError } from 'zod';
 import { AppError } from './app-error';
 import { fieldMessages } from './validate';
 
+/**
+ * PostgreSQL's "data exception" codes for a value the database cannot hold
+ * (a number past its column, a date out of range, a NUL in text). Validation
+ * refuses these first; this is the net for a value that slips past it. The
+ * statement failed, so nothing it meant to write was kept.
+ */
+const DATA_EXCEPTION_MESSAGES: Record<string, string> = {
+  '22003': 'A number in the request is too large to keep. Check the amounts and quantities and try again.',
+  '22008': 'A date in the request is out of range. Check the dates and try again.',
+  '22007': 'A date in the request could not be read. Enter dates as YYYY-MM-DD.',
+  '22021': 'The request holds a character that cannot be kept (such as a NUL byte). Remove it and try again.',
+  '22P05': 'The request holds a character that cannot be kept. Remove it and try again.',
+  '22001': 'A text in the request is too long to keep. Shorten it and try again.',
+};
+
+/** busboy's own words for a multipart body it cannot read (it has no error codes). */
+const MALFORMED_UPLOAD = /^(Malformed part header|Malformed urlencoded form|Unexpected end of form|Multipart: Boundary not found|Unsupported content type|Missing Content-Type|Part terminated early)/;
+
 const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', '57P01', '57P02', '57P03', '08006', '08001', '08003']);
 
 /** True when an error says the database cannot be reached right now. */
@@ -53,6 +71,11 @@ function toAppError(err: unknown): AppError {
   }
   if (e.type === 'entity.parse.failed') return new AppError(400, 'bad_json', 'The request body is not valid JSON.');
   if (e.type === 'entity.too.large') return new AppError(413, 'too_large', 'The request is too large.');
+  const dbCode = (err as { nativeError?: { code?: unknown } }).nativeError?.code ?? e.code;
+  if (typeof dbCode === 'string' && DATA_EXCEPTION_MESSAGES[dbCode]) return new AppError(400, 'out_of_range', DATA_EXCEPTION_MESSAGES[dbCode]);
+  if (err instanceof Error && !e.code && MALFORMED_UPLOAD.test(err.message)) {
+    return new AppError(400, 'upload_rejected', 'The upload could not be read. A file name may hold a character that cannot be sent (such as a control character): rename the file and try again.');
+  }
   if (err instanceof DBError) return new AppError(500, 'internal', 'Something went wrong on our side. Nothing was changed.');
   if (typeof e.status === 'number' && e.status >= 400 && e.status < 500) {
     return new AppError(e.status, 'bad_request', 'The request could not be understood.');

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { BLOCK_KINDS, GARMENT_GROUP_ID, GARMENT_GROUP_LIMITS, blockInputsByName, garmentGroupProblems, type DesignBody, type KindInput } from '@keepstitch/shared';
-import { optionalText } from '../core/validate';
+import { optionalText, recordId } from '../core/validate';
 
 /** An exact length in millimetres as a decimal string, above zero and at most 50 m. */
 const mm = (label: string) =>
@@ -8,7 +8,7 @@ const mm = (label: string) =>
     .string({ message: `${label} is required.` })
     .regex(/^[0-9]{1,5}(\.[0-9]{1,12})?$/, `${label} must be millimetres, such as 304.8.`)
     .refine((v) => Number(v) > 0 && Number(v) <= 50_000, `${label} must be above 0 and at most 50 m.`);
-const id = z.number().int().positive();
+const id = recordId('Choose a garment or stock fabric by its id.');
 const count = (label: string, max: number) => z.number({ message: `${label} must be a whole number.` }).int(`${label} must be a whole number.`).min(1, `${label} must be at least 1.`).max(max, `${label} can be at most ${max}.`);
 
 const groupId = z.string({ message: 'A group id is required.' }).regex(GARMENT_GROUP_ID, 'A group id is lower-case letters, digits and dashes, such as g1.');

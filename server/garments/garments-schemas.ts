@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import Decimal from 'decimal.js';
 import { COLOUR_RUN, CONSTRUCTION, CUSTODY_TEXT_LIMITS as CUSTODY, FEATURE, FIBRE, GARMENT_TEXT_LIMITS as TEXT, GRAIN, KEPT_FEATURE_LIMITS, Length, PREWASH, PRINT, formatLength, type PanelFeature } from '@keepstitch/shared';
-import { optionalText } from '../core/validate';
+import { optionalText, recordId } from '../core/validate';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 
 const oneOf = (values: readonly string[], message: string) => z.enum(values as [string, ...string[]], { message });
@@ -61,7 +61,7 @@ export const custodyEventSchema = z
       z
         .object({
           kind: z.literal('correction'),
-          correctsEventId: z.number({ message: 'Say which entry this corrects.' }).int().positive(),
+          correctsEventId: recordId('Say which entry this corrects.'),
           note: z.string({ message: 'Say what was wrong.' }).trim().min(1, 'Say what was wrong.').max(CUSTODY.note, `A note can be at most ${CUSTODY.note} characters.`),
         })
         .strict(),

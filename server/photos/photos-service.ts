@@ -4,7 +4,7 @@ import { AppError } from '../core/app-error';
 import { CommissionModel } from '../models/commission-model';
 import { findVisibleCommission, findVisibleGarment } from '../commissions/commission-access';
 import { PhotoModel } from '../models/photo-model';
-import { removeFiles, storeImages, type UploadedFile } from './image-store';
+import { emptyIncoming, INCOMING_DIR, removeFiles, storeImages, type UploadedFile } from './image-store';
 
 /** Stores photos and their rows together: if the rows cannot be written, the files go too. */
 async function save(uploadDir: string, files: UploadedFile[], row: Pick<PhotoModel, 'commissionId' | 'garmentId' | 'kind' | 'uploadedBy'>, caption: string | null) {
@@ -46,14 +46,16 @@ export const UNCLAIMED_DIR = 'unclaimed';
 
 /**
  * Tidies what an interrupted upload can leave in the photo folder, at start-up
- * before any upload can be in flight: half-written ".part" files are removed;
+ * before any upload can be in flight: files still being received (in
+ * INCOMING_DIR) and half-written ".part" files are removed;
  * stored files that no photo row names (their row was never committed) are
  * moved into an "unclaimed" folder beside them, never deleted, since a folder
  * shared with another database must not lose a client's photos.
  */
 export async function removeOrphanFiles(uploadDir: string): Promise<{ removed: string[]; unclaimed: string[] }> {
+  const incoming = (await emptyIncoming(uploadDir)).map((n) => `${INCOMING_DIR}/${n}`);
   const names = await readdir(uploadDir).catch(() => [] as string[]);
-  if (!names.length) return { removed: [], unclaimed: [] };
+  if (!names.length) return { removed: incoming, unclaimed: [] };
   const rows = await PhotoModel.query().select('fileName', 'thumbName');
   const kept = new Set(rows.flatMap((r) => [r.fileName, r.thumbName]));
   const removed = names.filter((n) => n.endsWith('.part'));
@@ -63,5 +65,5 @@ export async function removeOrphanFiles(uploadDir: string): Promise<{ removed: s
     await mkdir(path.join(uploadDir, UNCLAIMED_DIR), { recursive: true });
     await Promise.all(unclaimed.map((n) => rename(path.join(uploadDir, n), path.join(uploadDir, UNCLAIMED_DIR, n)).catch(() => undefined)));
   }
-  return { removed, unclaimed };
+  return { removed: [...incoming, ...removed], unclaimed };
 }

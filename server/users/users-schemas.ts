@@ -1,5 +1,6 @@
 import { PASSWORD_LENGTH } from '@keepstitch/shared';
 import { z } from 'zod';
+import { recordId } from '../core/validate';
 
 /** The rule for every password set in Keepstitch. */
 export const passwordSchema = z
@@ -17,7 +18,7 @@ export const createUserSchema = z
       .pipe(z.email('Enter an e-mail address like name@example.org.')),
     name: z.string({ message: 'Name is required.' }).trim().min(1, 'Name is required.').max(200, 'A name can be at most 200 characters.'),
     role: z.enum(['workroom', 'client'], { message: 'Role must be workroom or client.' }),
-    clientId: z.number({ message: 'Choose the client record this sign-in belongs to.' }).int().positive().optional(),
+    clientId: recordId('Choose the client record this sign-in belongs to.').optional(),
     password: passwordSchema,
   })
   .strict()
