@@ -1,6 +1,6 @@
 import type { NextFunction, Request, Response } from 'express';
 import { AppError } from '../core/app-error';
-import { securedRouter } from '../core/secured-router';
+import { securedRouter, signedInUser } from '../core/secured-router';
 import { parseInput } from '../core/validate';
 import { changePasswordSchema, signInSchema } from './auth-schemas';
 import { changeOwnPassword } from '../users/users-service';
@@ -44,7 +44,7 @@ export function authRouter({ csrf, limits, sessionCookieName, passport }: AuthRo
   // Guessing the current password is limited like guessing at sign-in.
   r.post('/password', async (req, res, next) => {
     const { currentPassword, newPassword } = parseInput(changePasswordSchema, req.body, 'password');
-    const user = req.user!;
+    const user = signedInUser(req);
     await limits.checkCurrentPassword(
       user.id,
       () => changeOwnPassword(user.id, currentPassword, newPassword),

@@ -1,4 +1,4 @@
-import { securedRouter } from '../core/secured-router';
+import { securedRouter, signedInUser } from '../core/secured-router';
 import { parseId, parseInput } from '../core/validate';
 import { createClientSchema, listClientsQuerySchema, updateClientSchema } from './clients-schemas';
 import * as clients from './clients-service';
@@ -8,22 +8,22 @@ export function clientsRouter() {
 
   r.get('/', async (req, res) => {
     const query = parseInput(listClientsQuerySchema, req.query, 'list request');
-    res.json(await clients.listClients(req.user!, query));
+    res.json(await clients.listClients(signedInUser(req), query));
   });
 
   r.post('/', async (req, res) => {
     const input = parseInput(createClientSchema, req.body, 'client');
-    res.status(201).json(await clients.createClient(req.user!, input));
+    res.status(201).json(await clients.createClient(signedInUser(req), input));
   });
 
   r.get('/:id', async (req, res) => {
-    res.json(await clients.getClient(req.user!, parseId(req.params['id'], 'That client')));
+    res.json(await clients.getClient(signedInUser(req), parseId(req.params['id'], 'That client')));
   });
 
   r.patch('/:id', async (req, res) => {
     const id = parseId(req.params['id'], 'That client');
     const input = parseInput(updateClientSchema, req.body, 'client');
-    res.json(await clients.updateClient(req.user!, id, input));
+    res.json(await clients.updateClient(signedInUser(req), id, input));
   });
 
   r.delete('/:id', async (req, res) => {

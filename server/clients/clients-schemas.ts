@@ -1,10 +1,11 @@
+import { CLIENT_TEXT_LIMITS } from '@keepstitch/shared';
 import { z } from 'zod';
 import { optionalText } from '../core/validate';
 
 const optionalEmail = z
   .string({ message: 'E-mail must be text.' })
   .trim()
-  .max(254, 'An e-mail address can be at most 254 characters.')
+  .max(CLIENT_TEXT_LIMITS.email, `An e-mail address can be at most ${CLIENT_TEXT_LIMITS.email} characters.`)
   .refine((s) => s === '' || z.email().safeParse(s).success, 'Enter an e-mail address like name@example.org.')
   .transform((s) => (s === '' ? null : s.toLowerCase()))
   .nullable()
@@ -13,7 +14,7 @@ const optionalEmail = z
 const optionalPhone = z
   .string({ message: 'Phone must be text.' })
   .trim()
-  .max(40, 'A phone number can be at most 40 characters.')
+  .max(CLIENT_TEXT_LIMITS.phone, `A phone number can be at most ${CLIENT_TEXT_LIMITS.phone} characters.`)
   .refine((s) => s === '' || /^\+?[0-9][0-9 ()./-]{4,}$/.test(s), 'Enter a phone number with digits, spaces and + - ( ) only.')
   .transform((s) => (s === '' ? null : s))
   .nullable()
@@ -24,11 +25,11 @@ const clientFields = {
     .string({ message: 'Name is required.' })
     .trim()
     .min(1, 'Name is required.')
-    .max(200, 'A name can be at most 200 characters.'),
+    .max(CLIENT_TEXT_LIMITS.name, `A name can be at most ${CLIENT_TEXT_LIMITS.name} characters.`),
   email: optionalEmail,
   phone: optionalPhone,
-  address: optionalText(1000, 'Address'),
-  notes: optionalText(5000, 'Notes'),
+  address: optionalText(CLIENT_TEXT_LIMITS.address, 'Address'),
+  notes: optionalText(CLIENT_TEXT_LIMITS.notes, 'Notes'),
   portfolioConsent: z.boolean({ message: 'Portfolio consent must be yes or no.' }).optional(),
 };
 
@@ -45,7 +46,7 @@ export const listClientsQuerySchema = z
     pageSize: z.coerce.number({ message: 'pageSize must be 1 to 100.' }).int('pageSize must be 1 to 100.').min(1, 'pageSize must be 1 to 100.').max(100, 'pageSize must be 1 to 100.').default(25),
     sort: z.enum(['name', 'email', 'createdAt'], { message: 'sort must be name, email or createdAt.' }).default('name'),
     dir: z.enum(['asc', 'desc'], { message: 'dir must be asc or desc.' }).default('asc'),
-    q: z.string().trim().max(200, 'The filter can be at most 200 characters.').optional(),
+    q: z.string().trim().max(CLIENT_TEXT_LIMITS.filter, `The filter can be at most ${CLIENT_TEXT_LIMITS.filter} characters.`).optional(),
   })
   .strict();
 

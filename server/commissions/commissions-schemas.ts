@@ -5,12 +5,12 @@ import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-inp
 
 const commissionFields = {
   clientId: recordId('Choose the client.'),
-  title: z.string({ message: 'Title is required.' }).trim().min(1, 'Title is required.').max(200, 'A title can be at most 200 characters.'),
+  title: z.string({ message: 'Title is required.' }).trim().min(1, 'Title is required.').max(TEXT.title, `A title can be at most ${TEXT.title} characters.`),
   kind: z.enum(COMMISSION_KIND.values, { message: 'Choose what kind of piece it is.' }),
-  recipient: optionalText(200, 'Who it is for'),
+  recipient: optionalText(TEXT.recipient, 'Who it is for'),
   ageGroup: z.enum(AGE_GROUP.values, { message: 'Choose the age group of who it is for.' }),
-  occasion: optionalText(200, 'Occasion'),
-  sizePreset: optionalText(60, 'Size preset'),
+  occasion: optionalText(TEXT.occasion, 'Occasion'),
+  sizePreset: optionalText(TEXT.sizePreset, 'Size preset'),
   width: lengthField('Width').nullable().optional(),
   length: lengthField('Length').nullable().optional(),
   unit: lengthUnitSchema.default('in'),
@@ -50,7 +50,7 @@ export const listCommissionsQuerySchema = z
       .optional(),
     clientId: z.coerce.number().int().positive().max(MAX_INT, 'clientId must be the id of a client.').optional(),
     dueWithinDays: z.coerce.number().int().min(0).max(3650).optional(),
-    q: z.string().trim().max(200).optional(),
+    q: z.string().trim().max(TEXT.filter, `The filter can be at most ${TEXT.filter} characters.`).optional(),
   })
   .strict();
 

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { BLOCK_KINDS, GARMENT_GROUP_ID, GARMENT_GROUP_LIMITS, blockInputsByName, garmentGroupProblems, type DesignBody, type KindInput } from '@keepstitch/shared';
+import { BLOCK_KINDS, GARMENT_GROUP_ID, GARMENT_GROUP_LIMITS, blockInputsByName, garmentGroupProblems, type DesignBody, type KindInput, DESIGN_TEXT_LIMITS } from '@keepstitch/shared';
 import { optionalText, recordId } from '../core/validate';
 
 /** An exact length in millimetres as a decimal string, above zero and at most 50 m. */
@@ -44,7 +44,7 @@ function inputSchema(input: KindInput) {
 const blockSchema = z
   .object({
     id: z.string().regex(/^[A-Z][A-Z0-9]{0,3}$/, 'A block id is a capital letter, such as A.'),
-    name: z.string().trim().min(1, 'Name the block.').max(100),
+    name: z.string().trim().min(1, 'Name the block.').max(DESIGN_TEXT_LIMITS.blockName, `A block name can be at most ${DESIGN_TEXT_LIMITS.blockName} characters.`),
     kind: z.enum(BLOCK_KINDS, { message: 'Choose a block kind.' }),
     ...Object.fromEntries([...blockInputsByName()].map(([name, inputs]) => [name, inputSchema(inputs[0]!)])),
   })
@@ -54,7 +54,7 @@ const blockSchema = z
 export const designBodySchema = z
   .object({
     units: z.enum(['imperial', 'metric']),
-    target: z.object({ preset: z.string().max(60).nullable(), dropMm: mm('Drop').nullable(), widthMm: mm('Target width'), lengthMm: mm('Target length') }).strict(),
+    target: z.object({ preset: z.string().max(DESIGN_TEXT_LIMITS.preset).nullable(), dropMm: mm('Drop').nullable(), widthMm: mm('Target width'), lengthMm: mm('Target length') }).strict(),
     layout: z
       .object({
         setting: z.enum(['straight', 'on-point']),
@@ -99,12 +99,12 @@ export const designBodySchema = z
     for (const [path, message] of Object.entries(garmentGroupProblems(body as DesignBody))) ctx.addIssue({ code: 'custom', path: path.split('.').map((p) => (/^\d+$/.test(p) ? Number(p) : p)), message });
   });
 
-export const saveDesignSchema = z.object({ body: designBodySchema, note: optionalText(1000, 'Note') }).strict();
+export const saveDesignSchema = z.object({ body: designBodySchema, note: optionalText(DESIGN_TEXT_LIMITS.versionNote, 'Note') }).strict();
 
 export const clientResponseSchema = z
   .object({
     response: z.enum(['approved', 'changes_requested'], { message: 'Approve the design or ask for a change.' }),
-    note: optionalText(2000, 'Note'),
+    note: optionalText(DESIGN_TEXT_LIMITS.responseNote, 'Note'),
   })
   .strict()
   .refine((v) => v.response === 'approved' || !!v.note, { message: 'Say what you would like changed.', path: ['note'] });

@@ -1,4 +1,4 @@
-import { securedRouter } from '../core/secured-router';
+import { securedRouter, signedInUser } from '../core/secured-router';
 import { parseId, parseInput } from '../core/validate';
 import { custodyEventSchema, panelSchema, updateGarmentSchema, updatePanelSchema } from './garments-schemas';
 import * as garments from './garments-service';
@@ -7,33 +7,33 @@ export function garmentsRouter() {
   const commissionGarments = securedRouter('/api/commissions');
   commissionGarments.post('/:id/garments', async (req, res) => {
     const commissionId = parseId(req.params['id'], 'That commission');
-    res.status(201).json(await garments.createGarment(req.user!, commissionId, req.body));
+    res.status(201).json(await garments.createGarment(signedInUser(req), commissionId, req.body));
   });
 
   const r = securedRouter('/api/garments');
   r.get('/:id', async (req, res) => {
-    res.json(await garments.getGarment(req.user!, parseId(req.params['id'], 'That garment')));
+    res.json(await garments.getGarment(signedInUser(req), parseId(req.params['id'], 'That garment')));
   });
   r.patch('/:id', async (req, res) => {
     const id = parseId(req.params['id'], 'That garment');
-    res.json(await garments.updateGarment(req.user!, id, parseInput(updateGarmentSchema, req.body, 'garment')));
+    res.json(await garments.updateGarment(signedInUser(req), id, parseInput(updateGarmentSchema, req.body, 'garment')));
   });
   r.post('/:id/events', async (req, res) => {
     const id = parseId(req.params['id'], 'That garment');
-    res.status(201).json(await garments.addCustodyEvent(req.user!, id, parseInput(custodyEventSchema, req.body, 'custody event')));
+    res.status(201).json(await garments.addCustodyEvent(signedInUser(req), id, parseInput(custodyEventSchema, req.body, 'custody event')));
   });
   r.post('/:id/panels', async (req, res) => {
     const id = parseId(req.params['id'], 'That garment');
-    res.status(201).json(await garments.addPanel(req.user!, id, parseInput(panelSchema, req.body, 'panel')));
+    res.status(201).json(await garments.addPanel(signedInUser(req), id, parseInput(panelSchema, req.body, 'panel')));
   });
 
   const panels = securedRouter('/api/panels');
   panels.patch('/:id', async (req, res) => {
     const id = parseId(req.params['id'], 'That panel');
-    res.json(await garments.updatePanel(req.user!, id, parseInput(updatePanelSchema, req.body, 'panel')));
+    res.json(await garments.updatePanel(signedInUser(req), id, parseInput(updatePanelSchema, req.body, 'panel')));
   });
   panels.delete('/:id', async (req, res) => {
-    await garments.deletePanel(req.user!, parseId(req.params['id'], 'That panel'));
+    await garments.deletePanel(signedInUser(req), parseId(req.params['id'], 'That panel'));
     res.status(204).end();
   });
 

@@ -1,10 +1,10 @@
 import { z } from 'zod';
 import Decimal from 'decimal.js';
-import { COLOUR_RUN, CONSTRUCTION, CUSTODY_TEXT_LIMITS as CUSTODY, FEATURE, FIBRE, GARMENT_TEXT_LIMITS as TEXT, GRAIN, KEPT_FEATURE_LIMITS, Length, PREWASH, PRINT, formatLength, type PanelFeature } from '@keepstitch/shared';
+import { COLOUR_RUN, CONSTRUCTION, CUSTODY_TEXT_LIMITS as CUSTODY, FEATURE, FIBRE, GARMENT_TEXT_LIMITS as TEXT, GRAIN, KEPT_FEATURE_LIMITS, Length, PREWASH, PRINT, formatLength, type PanelFeature, PANEL_TEXT_LIMITS } from '@keepstitch/shared';
 import { optionalText, recordId } from '../core/validate';
 import { lengthField, lengthUnitSchema, toMillimetres } from '../core/length-input';
 
-const oneOf = (values: readonly string[], message: string) => z.enum(values as [string, ...string[]], { message });
+const oneOf = <T extends string>(values: readonly [T, ...T[]], message: string) => z.enum(values, { message });
 
 const featureSchema = z
   .object({
@@ -72,7 +72,7 @@ export const custodyEventSchema = z
 /** A kept feature as typed: its name, the top-left corner from the panel's top-left, and its size. */
 const panelFeatureSchema = z
   .object({
-    name: z.string({ message: 'Name the kept feature (for example "breast pocket").' }).trim().min(1, 'Name the kept feature (for example "breast pocket").').max(60, 'A feature name can be at most 60 characters.'),
+    name: z.string({ message: 'Name the kept feature (for example "breast pocket").' }).trim().min(1, 'Name the kept feature (for example "breast pocket").').max(PANEL_TEXT_LIMITS.featureName, 'A feature name can be at most 60 characters.'),
     x: lengthField('From the left', { allowZero: true }),
     y: lengthField('From the top', { allowZero: true }),
     width: lengthField('Width'),
@@ -81,7 +81,7 @@ const panelFeatureSchema = z
   .strict();
 
 const panelFields = {
-  name: z.string({ message: 'Name the panel (for example "back").' }).trim().min(1, 'Name the panel (for example "back").').max(60),
+  name: z.string({ message: 'Name the panel (for example "back").' }).trim().min(1, 'Name the panel (for example "back").').max(PANEL_TEXT_LIMITS.name, `A panel name can be at most ${PANEL_TEXT_LIMITS.name} characters.`),
   width: lengthField('Width'),
   height: lengthField('Height'),
   unit: lengthUnitSchema.default('in'),

@@ -2,7 +2,7 @@ import express from 'express';
 import type { Knex } from 'knex';
 import type Stripe from 'stripe';
 import type { AppConfig } from '../core/config';
-import { securedRouter } from '../core/secured-router';
+import { securedRouter, signedInUser } from '../core/secured-router';
 import { parseId } from '../core/validate';
 import * as payments from './payments-service';
 import { paymentState } from './payment-state';
@@ -22,16 +22,16 @@ export function paymentsWebhookRouter(provider: Stripe, config: AppConfig, knex:
 export function paymentsRouter(provider: Stripe, config: AppConfig, kickMail: () => void) {
   const quotes = securedRouter('/api/quotes');
   quotes.post('/:id/deposit-checkout', async (req, res) => {
-    res.json(await payments.depositCheckout(provider, config, req.user!, parseId(req.params['id'], 'That quote')));
+    res.json(await payments.depositCheckout(provider, config, signedInUser(req), parseId(req.params['id'], 'That quote')));
   });
 
   const commissions = securedRouter('/api/commissions');
   commissions.post('/:id/balance-checkout', async (req, res) => {
-    res.json(await payments.balanceCheckout(provider, config, req.user!, parseId(req.params['id'], 'That commission')));
+    res.json(await payments.balanceCheckout(provider, config, signedInUser(req), parseId(req.params['id'], 'That commission')));
   });
   commissions.get('/:id/payments', async (req, res) => {
     const id = parseId(req.params['id'], 'That commission');
-    const [items, state] = await Promise.all([payments.listPayments(req.user!, id), paymentState(id)]);
+    const [items, state] = await Promise.all([payments.listPayments(signedInUser(req), id), paymentState(id)]);
     res.json({
       items,
       due: state ? { depositPence: state.depositPence, depositPaid: state.depositPaid, balancePence: state.balancePence, balancePaid: state.balancePaid, quoteId: state.quote.id } : null,

@@ -3,7 +3,7 @@ import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import multer from 'multer';
 import { AppError } from '../core/app-error';
-import { securedRouter } from '../core/secured-router';
+import { securedRouter, signedInUser } from '../core/secured-router';
 import { BAD_TEXT_MESSAGE, hasBadText, parseId } from '../core/validate';
 import { INCOMING_DIR, MAX_PHOTO_BYTES, MAX_PHOTOS_PER_REQUEST, removeFiles } from './image-store';
 import * as photos from './photos-service';
@@ -38,20 +38,20 @@ export function photosRouter(uploadDir: string) {
 
   const garments = securedRouter('/api/garments');
   garments.post('/:id/photos', upload, async (req, res) => {
-    const items = await received(req, (list) => photos.addGarmentPhotos(req.user!, parseId(req.params['id'], 'That garment'), list, caption(req.body), uploadDir));
+    const items = await received(req, (list) => photos.addGarmentPhotos(signedInUser(req), parseId(req.params['id'], 'That garment'), list, caption(req.body), uploadDir));
     res.status(201).json({ items });
   });
 
   const commissions = securedRouter('/api/commissions');
   commissions.post('/:id/photos', upload, async (req, res) => {
-    const items = await received(req, (list) => photos.addProgressPhotos(req.user!, parseId(req.params['id'], 'That commission'), list, caption(req.body), uploadDir));
+    const items = await received(req, (list) => photos.addProgressPhotos(signedInUser(req), parseId(req.params['id'], 'That commission'), list, caption(req.body), uploadDir));
     res.status(201).json({ items });
   });
 
   const r = securedRouter('/api/photos');
   for (const which of ['image', 'thumb'] as const) {
     r.get(`/:id/${which}`, async (req, res) => {
-      const file = await photos.photoFile(req.user!, parseId(req.params['id'], 'That photo'), which, uploadDir);
+      const file = await photos.photoFile(signedInUser(req), parseId(req.params['id'], 'That photo'), which, uploadDir);
       // Never kept by the browser: after signing out on a shared computer, a client's photos must not show from its cache.
       res.setHeader('Cache-Control', 'no-store');
       res.type(file.mime).sendFile(file.path, { dotfiles: 'allow' });

@@ -1,6 +1,6 @@
 import Decimal from 'decimal.js';
 import { z } from 'zod';
-import { STAGES } from '@keepstitch/shared';
+import { STAGES, QUOTE_TEXT_LIMITS } from '@keepstitch/shared';
 import { optionalText } from '../core/validate';
 
 const QUANTITY = /^\d{1,8}(\.\d{1,4})?$/;
@@ -13,9 +13,9 @@ const decimalText = z
 export const quoteLineSchema = z
   .object({
     kind: z.enum(['material', 'labour', 'extra', 'discount'], { message: 'Choose material, labour, extra or discount.' }),
-    description: z.string({ message: 'Describe the line.' }).trim().min(1, 'Describe the line.').max(300),
+    description: z.string({ message: 'Describe the line.' }).trim().min(1, 'Describe the line.').max(QUOTE_TEXT_LIMITS.lineDescription, `A line can be at most ${QUOTE_TEXT_LIMITS.lineDescription} characters.`),
     quantity: decimalText,
-    unit: z.string().trim().max(20).default('item'),
+    unit: z.string().trim().max(QUOTE_TEXT_LIMITS.lineUnit, `A unit can be at most ${QUOTE_TEXT_LIMITS.lineUnit} characters.`).default('item'),
     unitPricePence: z.number({ message: 'Price must be an amount in pence.' }).int('Price must be whole pence.').min(-10_000_000).max(10_000_000),
     stage: z.enum(STAGES).nullable().optional(),
   })
@@ -34,7 +34,7 @@ const MAX_QUOTE_WORDS = '£1,000,000';
 
 export const quoteSchema = z
   .object({
-    intro: optionalText(2000, 'Introduction'),
+    intro: optionalText(QUOTE_TEXT_LIMITS.intro, 'Introduction'),
     lines: z.array(quoteLineSchema).min(1, 'A quote needs at least one line.').max(200, 'At most 200 lines.'),
     depositPercent: z.number().min(0, 'Deposit must be 0 to 100 percent.').max(100, 'Deposit must be 0 to 100 percent.').optional(),
   })
@@ -54,7 +54,7 @@ export const quoteSchema = z
     }
   });
 
-export const acceptSchema = z.object({ name: z.string({ message: 'Type your name to accept.' }).trim().min(2, 'Type your name to accept.').max(200) }).strict();
-export const declineSchema = z.object({ note: optionalText(2000, 'Note') }).strict();
+export const acceptSchema = z.object({ name: z.string({ message: 'Type your name to accept.' }).trim().min(2, 'Type your name to accept.').max(QUOTE_TEXT_LIMITS.acceptName) }).strict();
+export const declineSchema = z.object({ note: optionalText(QUOTE_TEXT_LIMITS.declineNote, 'Note') }).strict();
 
 export type QuoteInput = z.infer<typeof quoteSchema>;

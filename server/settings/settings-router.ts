@@ -1,23 +1,23 @@
 import { z } from 'zod';
-import { VAT_RATES } from '@keepstitch/shared';
+import { SETTINGS_TEXT_LIMITS as L, VAT_RATES } from '@keepstitch/shared';
 import { securedRouter } from '../core/secured-router';
 import { optionalText, parseInput } from '../core/validate';
 import { StudioSettingsModel } from '../models/settings-model';
 
 export const settingsSchema = z
   .object({
-    studioName: z.string().trim().min(1, 'Give the studio a name.').max(200),
-    makerName: z.string().trim().max(200),
-    address: z.string().trim().max(1000),
-    email: optionalText(254, 'E-mail'),
+    studioName: z.string().trim().min(1, 'Give the studio a name.').max(L.studioName, `A studio name can be at most ${L.studioName} characters.`),
+    makerName: z.string().trim().max(L.makerName, `A name can be at most ${L.makerName} characters.`),
+    address: z.string().trim().max(L.address, `An address can be at most ${L.address} characters.`),
+    email: optionalText(L.email, 'E-mail'),
     hourlyRatePence: z.number({ message: 'Hourly rate must be an amount in pence.' }).int().min(0, 'The hourly rate cannot be negative.').max(100_000),
     vatRegistered: z.boolean({ message: 'Say whether the studio is VAT registered.' }),
-    vatRate: z.enum(VAT_RATES as unknown as [string, ...string[]], { message: 'VAT rate must be 20, 5 or 0.' }),
+    vatRate: z.enum(VAT_RATES, { message: 'VAT rate must be 20, 5 or 0.' }),
     vatMode: z.enum(['line', 'invoice'], { message: 'Work VAT per line or on the total.' }),
-    vatNumber: optionalText(20, 'VAT number'),
+    vatNumber: optionalText(L.vatNumber, 'VAT number'),
     depositPercent: z.number({ message: 'Deposit must be a percentage.' }).min(0, 'Deposit must be 0 to 100 percent.').max(100, 'Deposit must be 0 to 100 percent.'),
     validityDays: z.number({ message: 'Validity must be a number of days.' }).int().min(1, 'A quote is valid for at least a day.').max(365, 'At most 365 days.'),
-    paymentTerms: z.string().trim().max(2000),
+    paymentTerms: z.string().trim().max(L.paymentTerms, `Payment terms can be at most ${L.paymentTerms} characters.`),
     blockMinutes: z.record(z.string().max(40), z.number().min(0).max(10_000)),
   })
   .partial()

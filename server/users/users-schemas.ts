@@ -1,4 +1,4 @@
-import { PASSWORD_LENGTH } from '@keepstitch/shared';
+import { PASSWORD_LENGTH, USER_TEXT_LIMITS } from '@keepstitch/shared';
 import { z } from 'zod';
 import { recordId } from '../core/validate';
 
@@ -14,9 +14,9 @@ export const createUserSchema = z
       .string({ message: 'E-mail is required.' })
       .trim()
       .toLowerCase()
-      .max(254, 'An e-mail address can be at most 254 characters.')
+      .max(USER_TEXT_LIMITS.email, `An e-mail address can be at most ${USER_TEXT_LIMITS.email} characters.`)
       .pipe(z.email('Enter an e-mail address like name@example.org.')),
-    name: z.string({ message: 'Name is required.' }).trim().min(1, 'Name is required.').max(200, 'A name can be at most 200 characters.'),
+    name: z.string({ message: 'Name is required.' }).trim().min(1, 'Name is required.').max(USER_TEXT_LIMITS.name, `A name can be at most ${USER_TEXT_LIMITS.name} characters.`),
     role: z.enum(['workroom', 'client'], { message: 'Role must be workroom or client.' }),
     clientId: recordId('Choose the client record this sign-in belongs to.').optional(),
     password: passwordSchema,

@@ -1,6 +1,6 @@
 import type { Stage } from '@keepstitch/shared';
 import type { AppConfig } from '../core/config';
-import { securedRouter } from '../core/secured-router';
+import { securedRouter, signedInUser } from '../core/secured-router';
 import { parseId, parseInput } from '../core/validate';
 import { stageMoveSchema } from '../commissions/commissions-schemas';
 import { getCommission } from './commission-page';
@@ -13,13 +13,13 @@ export function workroomRouter(config: AppConfig, kickMail: () => void) {
   const r = securedRouter('/api/commissions');
 
   r.get('/:id', async (req, res) => {
-    res.json(await getCommission(req.user!, parseId(req.params['id'], WHAT)));
+    res.json(await getCommission(signedInUser(req), parseId(req.params['id'], WHAT)));
   });
 
   r.post('/:id/stage', async (req, res) => {
     const id = parseId(req.params['id'], WHAT);
     const { to, note } = parseInput(stageMoveSchema, req.body, 'stage move');
-    const moved = await moveStage(req.user!, id, to as Stage, note, config.appUrl);
+    const moved = await moveStage(signedInUser(req), id, to as Stage, note, config.appUrl);
     if (moved.mailed) kickMail();
     res.json({ id: moved.id, stage: moved.stage, nextStages: moved.nextStages });
   });

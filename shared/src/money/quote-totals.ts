@@ -10,7 +10,7 @@ import { DomainError } from '../errors';
  */
 export type VatMode = 'line' | 'invoice';
 export type VatRate = '20' | '5' | '0';
-export const VAT_RATES: readonly VatRate[] = ['20', '5', '0'];
+export const VAT_RATES = ['20', '5', '0'] as const satisfies readonly VatRate[];
 
 export interface QuoteLineInput {
   /** Hours, metres, yards, items: any exact decimal. */

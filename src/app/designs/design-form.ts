@@ -7,7 +7,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { BLOCK_KINDS, BLOCK_KIND_LABELS, BedRegion, BlockKind, BlockParams, BlockSpec, DesignBody, DomainError, Length, LengthUnit, MATTRESS_PRESETS, MattressPreset, Size, TYPICAL_DROP, formatInches, formatLength, formatMetric, KindInput, blockInputsByName, blockKind, quiltSizeForBed, tryParseLength } from '@keepstitch/shared';
+import { BLOCK_KINDS, DESIGN_TEXT_LIMITS, BLOCK_KIND_LABELS, BedRegion, BlockKind, BlockParams, BlockSpec, DesignBody, DomainError, Length, LengthUnit, MATTRESS_PRESETS, MattressPreset, Size, TYPICAL_DROP, formatInches, formatLength, formatMetric, KindInput, blockInputsByName, blockKind, quiltSizeForBed, tryParseLength } from '@keepstitch/shared';
 import { debounceTime } from 'rxjs';
 
 import { StockSource } from './design';
@@ -263,7 +263,7 @@ export class DesignForm {
     }
     return new FormGroup({
       id: new FormControl(b.id, { nonNullable: true }),
-      name: new FormControl(b.name, { nonNullable: true, validators: [Validators.required, Validators.maxLength(100)] }),
+      name: new FormControl(b.name, { nonNullable: true, validators: [Validators.required, Validators.maxLength(DESIGN_TEXT_LIMITS.blockName)] }),
       kind: new FormControl<BlockKind>(b.kind, { nonNullable: true }),
       params: new FormGroup(params),
     });
