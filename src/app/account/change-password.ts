@@ -12,7 +12,7 @@ import { PASSWORD_LENGTH } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { keepUnsavedWork } from '../core/unsaved-work';
-import { applyServerFieldErrors } from '../shared/server-field-errors';
+import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { AccountApi } from './account-api';
 
 /** The repeated password must match the new one. */

@@ -24,7 +24,7 @@ import { filter, switchMap, tap } from 'rxjs';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
-import { applyServerFieldErrors } from '../shared/server-field-errors';
+import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { Client, ClientDraft } from './client';
 import { ClientsApi } from './clients-api';
 import { DeleteClientDialog, DeleteClientDialogData } from './delete-client-dialog';

@@ -22,8 +22,8 @@ import { ActivatedRoute, Router, RouterLink } from '@angular/router';
 import { debounceTime, distinctUntilChanged, map, tap } from 'rxjs';
 
 import { Auth } from '../core/auth';
-import { LoadStatus } from '../shared/load-status';
-import { ServerPage } from '../shared/server-page';
+import { LoadStatus } from '../ui/load-status';
+import { ServerPage } from '../ui/server-page';
 import { ClientRow, ClientSortField } from './client';
 import { ClientsApi } from './clients-api';
 

@@ -11,7 +11,7 @@ import { Observable, of } from 'rxjs';
 import { messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
-import { LoadStatus } from '../shared/load-status';
+import { LoadStatus } from '../ui/load-status';
 import { Commission, daysLeftText } from './commission';
 import { CommissionsApi } from './commissions-api';
 import { MoveNoteDialog, MoveNoteDialogData } from './move-note-dialog';

@@ -17,9 +17,9 @@ import { ClientsApi } from '../clients/clients-api';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
-import { lengthText, readingText, typedLength, unitForMillimetres } from '../shared/length-text';
-import { Loader } from '../shared/loader';
-import { applyServerFieldErrors } from '../shared/server-field-errors';
+import { lengthText, readingText, typedLength, unitForMillimetres } from '../ui/length-text';
+import { Loader } from '../ui/loader';
+import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { Commission, CommissionChanges, CommissionDraft, orNull } from './commission';
 import { CommissionsApi } from './commissions-api';
 

@@ -22,10 +22,10 @@ import { ALL_STAGES, COMMISSION_KIND, STAGE_LABELS, Stage } from '@keepstitch/sh
 import { debounceTime, distinctUntilChanged, map, merge } from 'rxjs';
 
 import { Auth } from '../core/auth';
-import { LoadStatus } from '../shared/load-status';
-import { ServerPage } from '../shared/server-page';
+import { LoadStatus } from '../ui/load-status';
+import { ServerPage } from '../ui/server-page';
 import { Commission, CommissionSortField, daysLeftText } from './commission';
-import { showDate } from '../shared/dates';
+import { showDate } from '../ui/dates';
 import { CommissionsApi } from './commissions-api';
 
 const sortFields: readonly CommissionSortField[] = ['deadline', 'createdAt', 'title', 'stage'];

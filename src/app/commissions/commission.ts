@@ -28,7 +28,7 @@ import {
 } from '@keepstitch/shared';
 import * as z from 'zod/mini';
 
-import { photoSchema } from '../shared/photo';
+import { photoSchema } from '../ui/photo';
 
 const stage = z.enum(ALL_STAGES);
 /** One of a vocabulary's stored values, or none. */

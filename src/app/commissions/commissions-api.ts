@@ -26,7 +26,7 @@ import {
   panelSchema,
   stageReplySchema,
 } from './commission';
-import { withoutNulls } from '../shared/without-nulls';
+import { withoutNulls } from '../ui/without-nulls';
 
 /** Errors of these calls are shown by the page beside the form that sent them. */
 const quiet = { context: new HttpContext().set(REPORT_API_ERRORS, false) };

@@ -6,7 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { keepUnsavedWork } from '../core/unsaved-work';
-import { FieldError } from '../shared/field-error';
+import { FieldError } from '../ui/field-error';
 import { GarmentDetail } from './commission';
 import { CommissionsApi } from './commissions-api';
 import { GARMENT_CHOICES, GARMENT_CHOICE_FIELDS, GarmentSave, garmentChanges, garmentControls, garmentFormValues, keptFeaturesFrom } from './garment-form';

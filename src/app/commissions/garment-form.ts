@@ -4,7 +4,7 @@ import { COLOUR_RUN, CONSTRUCTION, ColourRun, Construction, FIBRE, Fibre, GARMEN
 import type { Observable } from 'rxjs';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
-import { applyServerFieldErrors } from '../shared/server-field-errors';
+import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { GarmentDetail, GarmentDraft, orNull } from './commission';
 import { KeptFeatureForm } from './kept-feature-form';
 

@@ -11,8 +11,8 @@ import { GRAIN, Grain, Length, LengthUnit, PANEL_TEXT_LIMITS, formatInches } fro
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
-import { applyServerFieldErrors } from '../shared/server-field-errors';
-import { lengthText, readingText, showMillimetres } from '../shared/length-text';
+import { applyServerFieldErrors } from '../ui/server-field-errors';
+import { lengthText, readingText, showMillimetres } from '../ui/length-text';
 import { Panel, PanelDraft, PanelFeature, PanelFeatureDraft } from './commission';
 import { CommissionsApi } from './commissions-api';
 

@@ -14,7 +14,7 @@ import { messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
-import { LoadStatus } from '../shared/load-status';
+import { LoadStatus } from '../ui/load-status';
 import { DesignScreen, DesignVersion, Fabric, starterDesign } from './design';
 import { DesignForm } from './design-form';
 import { DesignVersionView } from './design-version-view';

@@ -3,8 +3,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 
-import { LoadStatus } from '../shared/load-status';
-import type { LoadState } from '../shared/loader';
+import { LoadStatus } from '../ui/load-status';
+import type { LoadState } from '../ui/loader';
 
 /**
  * The strip above a page made for paper: back, Print, the page's PDF links

@@ -4,7 +4,7 @@ import { buildPrintout, printoutOf, printoutPdfs, type PrintoutSources } from '@
 
 import { Auth } from '../core/auth';
 import { DesignsApi } from './designs-api';
-import { Loader } from '../shared/loader';
+import { Loader } from '../ui/loader';
 import { PrintBar } from './print-bar';
 import { PrintoutBlocks } from './printout-blocks';
 

@@ -6,8 +6,8 @@ import { MatIconModule } from '@angular/material/icon';
 
 import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
-import { showDateTime } from '../shared/dates';
-import { LoadStatus } from '../shared/load-status';
+import { showDateTime } from '../ui/dates';
+import { LoadStatus } from '../ui/load-status';
 import { MailApi, OutboxMail, SentMail } from './mail-api';
 
 type SentState = 'loading' | 'ready' | 'not-here' | 'failed';

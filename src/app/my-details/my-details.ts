@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 
 import { Client } from '../clients/client';
 import { ClientsApi } from '../clients/clients-api';
-import { LoadStatus } from '../shared/load-status';
+import { LoadStatus } from '../ui/load-status';
 
 /** A client's own record, to check what the studio holds about them. */
 @Component({

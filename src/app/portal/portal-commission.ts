@@ -9,18 +9,18 @@ import { RouterLink } from '@angular/router';
 import { FIBRE, GARMENT_STATUS_LABELS, GARMENT_TEXT_LIMITS, STAGES, STAGE_LABELS } from '@keepstitch/shared';
 
 import { CommissionDetail, GarmentDetail } from '../commissions/commission';
-import { showDate } from '../shared/dates';
+import { showDate } from '../ui/dates';
 import { CommissionsApi } from '../commissions/commissions-api';
 import { GarmentSave, garmentDraft, someGarmentControls } from '../commissions/garment-form';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { ClientQuote } from '../quotes/client-quote';
-import { CautionCards } from '../shared/caution-cards';
-import { FieldError } from '../shared/field-error';
-import { LoadStatus } from '../shared/load-status';
-import { Loader } from '../shared/loader';
-import { PhotoGallery } from '../shared/photo-gallery';
-import { PhotoUpload } from '../shared/photo-upload';
+import { CautionCards } from '../ui/caution-cards';
+import { FieldError } from '../ui/field-error';
+import { LoadStatus } from '../ui/load-status';
+import { Loader } from '../ui/loader';
+import { PhotoGallery } from '../ui/photo-gallery';
+import { PhotoUpload } from '../ui/photo-upload';
 
 /** A client's view of one commission: where it is, its cautions, their garments and progress photos. */
 @Component({

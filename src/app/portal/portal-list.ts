@@ -5,9 +5,9 @@ import { RouterLink } from '@angular/router';
 import { COMMISSION_KIND, STAGE_LABELS } from '@keepstitch/shared';
 
 import { Commission } from '../commissions/commission';
-import { showDate } from '../shared/dates';
+import { showDate } from '../ui/dates';
 import { CommissionsApi } from '../commissions/commissions-api';
-import { LoadStatus } from '../shared/load-status';
+import { LoadStatus } from '../ui/load-status';
 
 /** A client's own commissions. The server sends only theirs. */
 @Component({

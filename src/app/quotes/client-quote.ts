@@ -22,12 +22,12 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { QUOTE_TEXT_LIMITS, formatPounds } from '@keepstitch/shared';
 import { forkJoin } from 'rxjs';
 
-import { showDate, showDateTime } from '../shared/dates';
+import { showDate, showDateTime } from '../ui/dates';
 import { messageFor } from '../core/api-error';
 import { ExternalNavigation } from '../core/external-navigation';
 import { Notices } from '../core/notices';
-import { CautionCards, CautionView } from '../shared/caution-cards';
-import { LoadStatus } from '../shared/load-status';
+import { CautionCards, CautionView } from '../ui/caution-cards';
+import { LoadStatus } from '../ui/load-status';
 import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, Quote } from './quote';
 import { QuoteSummary } from './quote-summary';
 import { QuotesApi } from './quotes-api';

@@ -5,11 +5,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { Stage, formatPounds } from '@keepstitch/shared';
 import { filter, forkJoin, switchMap } from 'rxjs';
 
-import { showDate, showDateTime } from '../shared/dates';
+import { showDate, showDateTime } from '../ui/dates';
 import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { SettingsApi } from '../settings/settings-api';
-import { LoadStatus } from '../shared/load-status';
+import { LoadStatus } from '../ui/load-status';
 import { ConfirmDialog, ConfirmDialogData } from '../core/confirm-dialog';
 import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payment, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft, REFUND_REASON_LABELS } from './quote';
 import { QuoteEditor } from './quote-editor';

@@ -12,8 +12,8 @@ import { SETTINGS_TEXT_LIMITS, formatPounds, parsePounds } from '@keepstitch/sha
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
-import { LoadStatus } from '../shared/load-status';
-import { applyServerFieldErrors } from '../shared/server-field-errors';
+import { LoadStatus } from '../ui/load-status';
+import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { SettingsApi } from './settings-api';
 import { BLOCK_KINDS, BLOCK_KIND_LABELS, BlockKind, StudioSettings, StudioSettingsPatch, VAT_RATE_LABELS } from './studio-settings';
 

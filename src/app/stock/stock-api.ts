@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
 import { REPORT_API_ERRORS } from '../core/api-error';
-import { withoutNulls } from '../shared/without-nulls';
+import { withoutNulls } from '../ui/without-nulls';
 import { StockDraft, StockItem, stockItemSchema, stockListSchema } from './stock-item';
 
 const quiet = { context: new HttpContext().set(REPORT_API_ERRORS, false) };

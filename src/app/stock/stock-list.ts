@@ -13,9 +13,9 @@ import { FIBRE, Fibre, Length, STOCK_TEXT_LIMITS, formatFabricLength } from '@ke
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Auth } from '../core/auth';
 import { Notices } from '../core/notices';
-import { lengthText, readingText, showMillimetres } from '../shared/length-text';
-import { LoadStatus } from '../shared/load-status';
-import { applyServerFieldErrors } from '../shared/server-field-errors';
+import { lengthText, readingText, showMillimetres } from '../ui/length-text';
+import { LoadStatus } from '../ui/load-status';
+import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { DeleteStockDialog, DeleteStockDialogData } from './delete-stock-dialog';
 import { StockApi } from './stock-api';
 import { StockDraft, StockItem } from './stock-item';

@@ -16,7 +16,7 @@ import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { ClientsApi } from '../clients/clients-api';
 import { keepUnsavedWork } from '../core/unsaved-work';
-import { applyServerFieldErrors } from '../shared/server-field-errors';
+import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { NewUser, UsersApi, minPasswordLength } from './users-api';
 
 type NewRole = NewUser['role'];

@@ -9,7 +9,7 @@ import { catchError, forkJoin, map, of } from 'rxjs';
 import { Notices } from '../core/notices';
 import { User, roleLabels } from '../core/user';
 import { ClientsApi } from '../clients/clients-api';
-import { LoadStatus } from '../shared/load-status';
+import { LoadStatus } from '../ui/load-status';
 import { ResetPasswordDialog, ResetPasswordDialogData } from './reset-password-dialog';
 import { UsersApi } from './users-api';
 
