@@ -7,9 +7,10 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import { BLOCK_KINDS, DESIGN_TEXT_LIMITS, BLOCK_KIND_LABELS, BedRegion, BlockKind, BlockParams, BlockSpec, DesignBody, DomainError, Length, LengthUnit, MATTRESS_PRESETS, MattressPreset, Size, TYPICAL_DROP, formatInches, formatLength, formatMetric, KindInput, blockInputsByName, blockKind, quiltSizeForBed, tryParseLength } from '@keepstitch/shared';
+import { BLOCK_KINDS, DESIGN_TEXT_LIMITS, BLOCK_KIND_LABELS, BlockKind, BlockParams, BlockSpec, DesignBody, DomainError, Length, Size, TYPICAL_DROP, formatLength, KindInput, blockInputsByName, blockKind, tryParseLength } from '@keepstitch/shared';
 import { debounceTime } from 'rxjs';
 
+import { unitOf, lengthForEditing, lengthAsMeasured, millimetresOf, lengthValidator, lengthsValidator, sameButFabrics, PRESET_GROUPS, presetOf, lengthOrZero, bedQuiltSize, bedGives } from './design-lengths';
 import { StockSource } from './design';
 
 /** A block input's control: a count as a number, a length as typed in the maker's unit, a choice as its value. */
@@ -25,83 +26,6 @@ type BlockGroup = FormGroup<{
 
 /** Every block kind's inputs by the field they set (kinds sharing a field declare it alike). */
 const INPUTS_BY_NAME = blockInputsByName();
-
-const unitOf = (units: 'imperial' | 'metric'): LengthUnit => (units === 'imperial' ? 'in' : 'cm');
-
-/** A stored length shown for editing in the maker's unit ("12", "30.5"). */
-export function lengthForEditing(mm: string | undefined | null, units: 'imperial' | 'metric'): string {
-  if (!mm) return '';
-  return Length.millimetres(mm).to(unitOf(units)).toDecimalPlaces(4).toString();
-}
-
-/**
- * A worked-out length as a ruler or tape reads it, for a field that only shows it:
- * "77 1/8" (nearest 1/8 in) rather than "77.1496", or "196" cm to the millimetre.
- */
-export function lengthAsMeasured(length: Length, units: 'imperial' | 'metric'): string {
-  return units === 'imperial' ? formatInches(length, 'nearest', '') : formatMetric(length, 'cm').replace(/ cm$/, '');
-}
-
-/** Typed text to exact millimetres, or null when it cannot be read. */
-export function millimetresOf(text: string, units: 'imperial' | 'metric'): string | null {
-  if (text.trim() === '') return null;
-  const parsed = tryParseLength(text, unitOf(units));
-  return parsed.ok && parsed.length.mm.gt(0) ? parsed.length.mm.toString() : null;
-}
-
-function lengthValidator(form: () => 'imperial' | 'metric', required = true) {
-  return (c: AbstractControl<string>): ValidationErrors | null => {
-    const text = c.value ?? '';
-    if (text.trim() === '') return required ? { required: true } : null;
-    const parsed = tryParseLength(text, unitOf(form()));
-    return parsed.ok ? null : { length: parsed.error.message };
-  };
-}
-
-function lengthsValidator(form: () => 'imperial' | 'metric') {
-  return (c: AbstractControl<string>): ValidationErrors | null => {
-    const parts = (c.value ?? '').split(',').map((s) => s.trim()).filter(Boolean);
-    for (const p of parts) {
-      const parsed = tryParseLength(p, unitOf(form()));
-      if (!parsed.ok) return { length: `"${p}": ${parsed.error.message}` };
-    }
-    return null;
-  };
-}
-
-/** The same design but for its fabric choices (groups and assignments), which the fabric board changes. */
-const sameButFabrics = (a: DesignBody, b: DesignBody) => JSON.stringify({ ...a, groups: [], assignments: [] }) === JSON.stringify({ ...b, groups: [], assignments: [] });
-
-/** The bed presets by region, for the size menu. */
-const PRESET_GROUPS: readonly { region: BedRegion; presets: readonly MattressPreset[] }[] = (['UK', 'EU', 'US'] as const).map((region) => ({
-  region,
-  presets: MATTRESS_PRESETS.filter((p) => p.region === region),
-}));
-
-const presetOf = (id: string | null): MattressPreset | undefined => (id ? MATTRESS_PRESETS.find((p) => p.id === id) : undefined);
-
-/** A drop or tuck as typed (0 allowed), or null when it cannot be read. */
-function lengthOrZero(text: string, units: 'imperial' | 'metric'): Length | null {
-  if (text.trim() === '') return Length.zero;
-  const parsed = tryParseLength(text, unitOf(units), { allowZero: true });
-  return parsed.ok ? parsed.length : null;
-}
-
-/** The quilt size for a bed preset, drop and pillow tuck, through the shared bed maths. */
-export function bedQuiltSize(presetId: string, drop: Length, pillowTuck: Length): Size {
-  const preset = presetOf(presetId);
-  if (!preset) throw new DomainError('unknown-preset', `There is no bed size "${presetId}".`, 'bed');
-  return quiltSizeForBed({ mattress: preset.size, drop, pillowTuck }).size;
-}
-
-/** Whether a bed with this drop and tuck is the stored width; false when the bed maths refuses them. */
-function bedGives(presetId: string, drop: Length, tuck: Length, widthMm: string): boolean {
-  try {
-    return bedQuiltSize(presetId, drop, tuck).width.mm.eq(widthMm);
-  } catch {
-    return false;
-  }
-}
 
 /** The design's size, layout, blocks and finishing, as a typed form; emits a design body while valid. */
 @Component({
