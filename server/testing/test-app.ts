@@ -41,6 +41,11 @@ export async function startTestApp(overrides: Partial<AppConfig> = {}): Promise<
     ...overrides,
   };
   const sessionPool = new Pool({ connectionString: db.url, max: 3 });
+  // As in server/index.ts: an idle connection that PostgreSQL ends (here, the test database dropped at
+  // close while a connection still idles) is reported on the pool; without a listener it would crash the run.
+  sessionPool.on('error', (err) => {
+    if (process.env['TEST_SERVER_LOG']) console.error('Session pool:', err.message);
+  });
   const app = createApp({ config, knex: db.knex, sessionPool, log: process.env['TEST_SERVER_LOG'] ? (e) => console.error(e) : () => undefined });
   return {
     app,
