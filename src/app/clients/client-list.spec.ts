@@ -17,7 +17,8 @@ import { Router, provideRouter } from '@angular/router';
 import { Role } from '../core/user';
 import { signedInAs } from '../../testing/signed-in-as';
 import { ClientRow } from './client';
-import { CLIENT_FILTER_DELAY, ClientList } from './client-list';
+import { LIST_FILTER_DELAY } from '../ui/server-page';
+import { ClientList } from './client-list';
 
 const ownerRows: ClientRow[] = [
   { id: 1, name: 'Alder Quince', email: 'alder@example.test', phone: '01632 960 111', createdAt: '2026-03-04T10:00:00Z' },
@@ -37,7 +38,7 @@ describe('ClientList', () => {
         provideHttpClient(),
         provideHttpClientTesting(),
         signedInAs(role),
-        { provide: CLIENT_FILTER_DELAY, useValue: 5 },
+        { provide: LIST_FILTER_DELAY, useValue: 5 },
       ],
     });
     httpMock = TestBed.inject(HttpTestingController);

@@ -4,7 +4,6 @@ import {
   ChangeDetectionStrategy,
   Component,
   DestroyRef,
-  InjectionToken,
   computed,
   inject,
   signal,
@@ -23,16 +22,11 @@ import { debounceTime, distinctUntilChanged, map, tap } from 'rxjs';
 
 import { Auth } from '../core/auth';
 import { LoadStatus } from '../ui/load-status';
-import { ServerPage } from '../ui/server-page';
+import { LIST_FILTER_DELAY, ServerPage } from '../ui/server-page';
 import { ClientRow, ClientSortField } from './client';
 import { ClientsApi } from './clients-api';
 
 const sortFields: readonly ClientSortField[] = ['name', 'email', 'createdAt'];
-
-/** How long to wait after the last key press before filtering on the server (ms). */
-export const CLIENT_FILTER_DELAY = new InjectionToken<number>('CLIENT_FILTER_DELAY', {
-  factory: () => 300,
-});
 
 /**
  * The client records, paged, sorted and filtered on the server.
@@ -63,7 +57,7 @@ export class ClientList implements AfterViewInit {
   private readonly router = inject(Router);
   private readonly route = inject(ActivatedRoute);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly filterDelay = inject(CLIENT_FILTER_DELAY);
+  private readonly filterDelay = inject(LIST_FILTER_DELAY);
   private readonly page = new ServerPage<ClientRow>();
 
   protected readonly paginator = viewChild.required(MatPaginator);

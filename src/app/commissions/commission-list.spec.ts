@@ -12,7 +12,8 @@ import { provideRouter } from '@angular/router';
 
 import { signedInAs } from '../../testing/signed-in-as';
 import { Commission } from './commission';
-import { COMMISSION_FILTER_DELAY, CommissionList } from './commission-list';
+import { LIST_FILTER_DELAY } from '../ui/server-page';
+import { CommissionList } from './commission-list';
 
 const late: Commission = {
   id: 1,
@@ -46,7 +47,7 @@ describe('CommissionList', () => {
         provideHttpClient(),
         provideHttpClientTesting(),
         signedInAs(role),
-        { provide: COMMISSION_FILTER_DELAY, useValue: 0 },
+        { provide: LIST_FILTER_DELAY, useValue: 0 },
       ],
     });
     fixture = TestBed.createComponent(CommissionList);

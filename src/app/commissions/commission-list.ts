@@ -3,7 +3,6 @@ import {
   ChangeDetectionStrategy,
   Component,
   DestroyRef,
-  InjectionToken,
   computed,
   inject,
   viewChild,
@@ -23,17 +22,12 @@ import { debounceTime, distinctUntilChanged, map, merge } from 'rxjs';
 
 import { Auth } from '../core/auth';
 import { LoadStatus } from '../ui/load-status';
-import { ServerPage } from '../ui/server-page';
+import { LIST_FILTER_DELAY, ServerPage } from '../ui/server-page';
 import { Commission, CommissionSortField, daysLeftText } from './commission';
 import { showDate } from '../ui/dates';
 import { CommissionsApi } from './commissions-api';
 
 const sortFields: readonly CommissionSortField[] = ['deadline', 'createdAt', 'title', 'stage'];
-
-/** How long to wait after the last key press before filtering on the server (ms). */
-export const COMMISSION_FILTER_DELAY = new InjectionToken<number>('COMMISSION_FILTER_DELAY', {
-  factory: () => 300,
-});
 
 /** The commissions, paged, sorted and filtered on the server; deadlines first by default. */
 @Component({
@@ -60,7 +54,7 @@ export class CommissionList implements AfterViewInit {
   private readonly auth = inject(Auth);
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
-  private readonly filterDelay = inject(COMMISSION_FILTER_DELAY);
+  private readonly filterDelay = inject(LIST_FILTER_DELAY);
   private readonly page = new ServerPage<Commission>();
 
   protected readonly paginator = viewChild.required(MatPaginator);

@@ -1,8 +1,13 @@
-import { DestroyRef, Signal, computed, signal } from '@angular/core';
+import { DestroyRef, InjectionToken, Signal, computed, signal } from '@angular/core';
 import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import type { MatPaginator } from '@angular/material/paginator';
 import type { MatSort } from '@angular/material/sort';
 import { Observable, Subject, catchError, merge, of, share, startWith, switchMap, tap } from 'rxjs';
+
+/** How long a list waits after the last key press in its filter before asking the server (ms). */
+export const LIST_FILTER_DELAY = new InjectionToken<number>('LIST_FILTER_DELAY', {
+  factory: () => 300,
+});
 
 /** What a list asks the server for besides its own filters: which page, how long, in which order. */
 export interface PageRequest {
