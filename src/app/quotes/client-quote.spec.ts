@@ -152,6 +152,12 @@ describe('ClientQuote', () => {
     expect(navigation.goTo).toHaveBeenCalledWith('http://127.0.0.1:4327/pay/cs_test_1');
   });
 
+  it('asks for nothing more while a payment is held for the studio to check, and says so', async () => {
+    await open([accepted], { ...owing, items: [{ id: 4, kind: 'deposit', amountPence: 5550, receivedPence: 5000, status: 'held', paidAt: '2026-12-02T10:05:00Z' }] });
+    expect(page.querySelector('[data-testid=client-payment-held]')?.textContent).toContain('deposit payment of £50.00 has reached the studio');
+    expect(page.textContent).not.toContain('Pay deposit');
+  });
+
   it('says plainly when the card payment service is down, and stays on the page', async () => {
     await open([accepted], owing);
     await (await button(/Pay deposit/)).click();

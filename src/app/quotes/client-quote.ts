@@ -106,14 +106,16 @@ export class ClientQuote {
     return !!q && q.status === 'sent' && !q.expired;
   });
   protected readonly due = computed(() => this.payments()?.due ?? null);
+  /** A payment that reached the studio but not for the amount asked: the studio checks it, and nothing more is asked meanwhile. */
+  protected readonly held = computed(() => (this.payments()?.items ?? []).find((p) => p.status === 'held') ?? null);
   protected readonly canPayDeposit = computed(() => {
     const q = this.quote();
     const due = this.due();
-    return !!q && q.status === 'accepted' && !!due && due.quoteId === q.id && !due.depositPaid && due.depositPence > 0;
+    return !this.held() && !!q && q.status === 'accepted' && !!due && due.quoteId === q.id && !due.depositPaid && due.depositPence > 0;
   });
   protected readonly canPayBalance = computed(() => {
     const due = this.due();
-    return !!due && due.depositPaid && !due.balancePaid && due.balancePence > 0;
+    return !this.held() && !!due && due.depositPaid && !due.balancePaid && due.balancePence > 0;
   });
 
   private pollTimer: ReturnType<typeof setTimeout> | null = null;
