@@ -20,6 +20,8 @@ const NOT_FOUND = 'That commission';
  * the client the care card and what comes back of each garment.
  */
 export async function moveStage(user: Express.User, id: number, to: Stage, note: string | null | undefined, appUrl: string) {
+  // The care card is drawn first: its reads use connections of their own, which a held transaction must not wait for.
+  const card = to === 'delivered' ? await careCardPdf(user, id) : null;
   return CommissionModel.transaction(async (trx) => {
     const c = await CommissionModel.query(trx).findById(id).forUpdate();
     if (!c) throw AppError.notFound(NOT_FOUND);
@@ -33,7 +35,7 @@ export async function moveStage(user: Express.User, id: number, to: Stage, note:
     await CommissionModel.query(trx).patch({ stage: to }).findById(id);
     let mailed = false;
     if (to === 'ready') mailed = await tellClientReady(trx, c, appUrl);
-    if (to === 'delivered') mailed = await tellClientDelivered(trx, user, c, appUrl);
+    if (card) mailed = await tellClientDelivered(trx, c, card, appUrl);
     return { id, stage: to, nextStages: nextStages(to, facts), stageOptions: stageOptions(to, facts), mailed };
   });
 }
@@ -50,7 +52,7 @@ async function tellClientReady(trx: Knex.Transaction, c: CommissionModel, appUrl
 }
 
 /** "Delivered", with the care card PDF and one line per garment on what comes back, queued with the move. */
-async function tellClientDelivered(trx: Knex.Transaction, user: Express.User, c: CommissionModel, appUrl: string): Promise<boolean> {
+async function tellClientDelivered(trx: Knex.Transaction, c: CommissionModel, card: { pdf: Buffer; fileName: string }, appUrl: string): Promise<boolean> {
   const client = await ClientModel.query(trx).findById(c.clientId);
   if (!client?.email) return false;
   const settings = await StudioSettingsModel.current(trx);
@@ -60,7 +62,6 @@ async function tellClientDelivered(trx: Knex.Transaction, user: Express.User, c:
     .map((g) => ({ g, custody: states.get(g.id)! }))
     .filter(({ custody }) => custody.state.status !== 'withdrawn')
     .map(({ g, custody }) => whatComesBack(g, custodyEnding(custody.events.map(toCustodyEvent))));
-  const card = await careCardPdf(user, c.id);
   const mail = deliveredMail({ clientName: client.name, studioName: settings.studioName, title: c.title, comesBack, link: `${appUrl}/portal/${c.id}` });
   await enqueueMail(trx, { kind: 'delivered', to: client.email, ...mail, commissionId: c.id, attachments: [{ filename: card.fileName, contentType: 'application/pdf', content: card.pdf }] });
   return true;
