@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, OnInit, inject, input, output, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, OnInit, computed, inject, input, output, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -15,10 +15,16 @@ import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { CustodyEventDraft, Garment } from './commission';
 import { CommissionsApi } from './commissions-api';
 
-type Ending = 'used' | 'returned' | 'leftovers_returned';
-const ENDINGS: readonly Ending[] = ['used', 'returned', 'leftovers_returned'];
+type Ending = 'used' | 'returned' | 'leftovers_returned' | 'withdrawn';
+/** A garment in the studio ends in the piece or going back; one that never came is withdrawn. */
+const IN_STUDIO: readonly Ending[] = ['used', 'returned', 'leftovers_returned'];
+const NEVER_CAME: readonly Ending[] = ['withdrawn'];
 
-/** How one garment's custody ends at delivery: used in the piece, returned whole, or its leftovers returned, with how and a note. */
+/**
+ * How one garment's custody ends at delivery: used in the piece, returned
+ * whole, or its leftovers returned, with how and a note; or, if it never
+ * came, withdrawn.
+ */
 @Component({
   selector: 'ks-custody-ending-form',
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, FieldError],
@@ -34,7 +40,7 @@ export class CustodyEndingForm implements OnInit {
   /** After the entry is recorded; the page reloads. */
   readonly recorded = output<void>();
 
-  protected readonly endings = ENDINGS.map((value) => ({ value, label: CUSTODY_LABELS[value] }));
+  protected readonly endings = computed(() => (this.garment().status === 'expected' ? NEVER_CAME : IN_STUDIO).map((value) => ({ value, label: CUSTODY_LABELS[value] })));
   protected readonly limits = CUSTODY_TEXT_LIMITS;
   protected readonly form = new FormGroup({
     ending: new FormControl<Ending>('used', { nonNullable: true }),
@@ -52,15 +58,20 @@ export class CustodyEndingForm implements OnInit {
   }
 
   ngOnInit(): void {
-    // A garment the client wants something back from most likely ends with its leftovers returned.
-    if (this.garment().returnsToClient) this.form.controls.ending.setValue('leftovers_returned');
+    this.form.controls.ending.setValue(this.likelyEnding());
+  }
+
+  /** Withdrawn for a garment that never came; leftovers returned when the client wants something back; else used in the piece. */
+  private likelyEnding(): Ending {
+    const g = this.garment();
+    return g.status === 'expected' ? 'withdrawn' : g.returnsToClient ? 'leftovers_returned' : 'used';
   }
 
   protected record(): void {
     const v = this.form.getRawValue();
     const c = this.form.controls;
     this.error.set(null);
-    const sendsBack = v.ending !== 'used';
+    const sendsBack = v.ending !== 'used' && v.ending !== 'withdrawn';
     const byPost = sendsBack && v.returnMethod === 'post';
     const shown = byPost ? [c.note, c.trackingRef] : [c.note];
     if (shown.some((control) => control.hasError('maxlength'))) {
@@ -74,14 +85,14 @@ export class CustodyEndingForm implements OnInit {
     }
     const note = v.note.trim() || undefined;
     const draft: CustodyEventDraft =
-      v.ending === 'used'
-        ? { kind: 'used', note }
+      v.ending === 'used' || v.ending === 'withdrawn'
+        ? { kind: v.ending, note }
         : { kind: v.ending, returnMethod: v.returnMethod, ...(byPost ? { trackingRef: v.trackingRef.trim() } : {}), note };
     this.saving.set(true);
     this.api.recordEvent(this.garment().id, draft).subscribe({
       next: (reply) => {
         this.saving.set(false);
-        this.form.reset();
+        this.form.reset({ ending: this.likelyEnding() });
         this.notices.info(`“${this.garment().description}”: ${GARMENT_STATUS_LABELS[reply.state.status].toLowerCase()}.`);
         this.recorded.emit();
       },

@@ -26,6 +26,7 @@ const commission: CommissionDetail = {
     { id: 31, description: 'Blue work shirt', status: 'used', returnsToClient: null },
     { id: 32, description: 'Floral dress', status: 'cut', returnsToClient: 'Collar, cuffs and the buttons' },
     { id: 33, description: 'School jumper', status: 'in_studio' },
+    { id: 34, description: 'Wool scarf', status: 'expected' },
   ],
   progressPhotos: [],
   stageHistory: [],
@@ -68,11 +69,12 @@ describe('DeliveryChecklist', () => {
       'Returns to the client: nothing asked for',
       'Returns to the client: Collar, cuffs and the buttons',
       'Returns to the client: nothing asked for',
+      'Returns to the client: nothing asked for',
     ]);
     expect(rows()[0].querySelector('[data-testid="delivery-status"]')?.textContent).toBe('Used in the piece');
-    expect(element.querySelector('[data-testid="delivery-progress"]')?.textContent).toBe('1 of 3 garments accounted for.');
+    expect(element.querySelector('[data-testid="delivery-progress"]')?.textContent).toBe('1 of 4 garments accounted for.');
     expect(element.querySelector('[data-testid="delivery-waiting"]')?.textContent).toBe(
-      'Record what became of “Floral dress” and “School jumper” first (used in the piece, returned whole or leftovers returned): their custody is still open.',
+      'Record what became of “Floral dress”, “School jumper” and “Wool scarf” first (used in the piece, returned whole or leftovers returned): their custody is still open.',
     );
     // An ended custody has no form; each open one has its own.
     expect(rows()[0].querySelector('ks-custody-ending-form')).toBeNull();
@@ -115,10 +117,23 @@ describe('DeliveryChecklist', () => {
     request.flush({ event: { id: 91, kind: 'used', at: '2026-12-04T10:00:00Z' }, state: { status: 'used', received: true, washed: false, place: null } });
   });
 
+  it('offers only withdrawn for a garment that never came', async () => {
+    const within = await loader.getChildLoader('[data-garment="34"]');
+    const what = (await (await within.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'What became of it' }))).getControl(MatSelectHarness))!;
+    expect(await what.getValueText()).toBe('Withdrawn (not coming)');
+    await what.open();
+    expect(await Promise.all((await what.getOptions()).map((o) => o.getText()))).toEqual(['Withdrawn (not coming)']);
+    await what.close();
+    await (await within.getHarness(MatButtonHarness.with({ text: 'Record for “Wool scarf”' }))).click();
+    const request = httpMock.expectOne('/api/garments/34/events');
+    expect(request.request.body).toEqual({ kind: 'withdrawn' });
+    request.flush({ event: { id: 92, kind: 'withdrawn', at: '2026-12-04T10:00:00Z' }, state: { status: 'withdrawn', received: false, washed: false, place: null } });
+  });
+
   it('says delivery can be recorded once every custody has ended', async () => {
     fixture.componentRef.setInput('commission', {
       ...commission,
-      garments: commission.garments.map((g) => ({ ...g, status: g.id === 33 ? 'withdrawn' : 'returned' })),
+      garments: commission.garments.map((g) => ({ ...g, status: g.id >= 33 ? 'withdrawn' : 'returned' })),
     });
     await fixture.whenStable();
     expect(element.querySelector('[data-testid="delivery-waiting"]')).toBeNull();
