@@ -84,6 +84,8 @@ export const FIELD_POLICY = {
       stageHistory: { see: ALL },
       hours: { see: STUDIO },
       nextStages: { see: STUDIO },
+      /** Every other stage, allowed or refused with the reason. */
+      stageOptions: { see: STUDIO },
       facts: { see: ALL },
     },
   },

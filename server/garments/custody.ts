@@ -27,5 +27,5 @@ export function statesFrom(garmentIds: number[], events: CustodyEventModel[]): C
 }
 
 export function toCustodyEvent(e: CustodyEventModel): CustodyEvent {
-  return { id: e.id, kind: e.kind, at: e.at.toISOString(), place: e.place, returnMethod: e.returnMethod, trackingRef: e.trackingRef, correctsEventId: e.correctsEventId };
+  return { id: e.id, kind: e.kind, at: e.at.toISOString(), place: e.place, returnMethod: e.returnMethod, trackingRef: e.trackingRef, note: e.note, correctsEventId: e.correctsEventId };
 }

@@ -57,6 +57,16 @@ export const custodyEventSchema = z
         })
         .strict()
         .refine((v) => v.returnMethod !== 'post' || !!v.trackingRef, { path: ['trackingRef'], message: 'Give the tracking reference for a garment sent by post.' }),
+      z.object({ kind: z.literal('used'), note: optionalText(CUSTODY.note, 'Note') }).strict(),
+      z
+        .object({
+          kind: z.literal('leftovers_returned'),
+          returnMethod: z.enum(['in_person', 'post'], { message: 'Say how the leftovers were returned: in person or by post.' }),
+          trackingRef: optionalText(CUSTODY.trackingRef, 'Tracking reference'),
+          note: optionalText(CUSTODY.note, 'Note'),
+        })
+        .strict()
+        .refine((v) => v.returnMethod !== 'post' || !!v.trackingRef, { path: ['trackingRef'], message: 'Give the tracking reference for leftovers sent by post.' }),
       z.object({ kind: z.literal('withdrawn'), note: optionalText(CUSTODY.note, 'Note') }).strict(),
       z
         .object({
@@ -66,7 +76,7 @@ export const custodyEventSchema = z
         })
         .strict(),
     ],
-    { message: 'Choose what happened: received, washed, stored, moved, cut, returned, withdrawn or correction.' },
+    { message: 'Choose what happened: received, washed, stored, moved, cut, used in the piece, returned whole, leftovers returned, withdrawn or correction.' },
   );
 
 /** A kept feature as typed: its name, the top-left corner from the panel's top-left, and its size. */

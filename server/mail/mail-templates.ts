@@ -2,8 +2,9 @@ import { formatPounds } from '@keepstitch/shared';
 
 const escape = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
-function html(paragraphs: string[], link?: { href: string; label: string }): string {
-  const body = paragraphs.map((p) => `<p>${escape(p).replace(/\n/g, '<br>')}</p>`).join('\n');
+function html(paragraphs: string[], link?: { href: string; label: string }, list: readonly string[] = []): string {
+  const items = list.length ? `\n<ul>${list.map((l) => `<li>${escape(l)}</li>`).join('')}</ul>` : '';
+  const body = paragraphs.map((p) => `<p>${escape(p).replace(/\n/g, '<br>')}</p>`).join('\n') + items;
   const button = link ? `<p><a href="${escape(link.href)}" style="display:inline-block;padding:10px 18px;background:#4a6650;color:#fff;text-decoration:none;border-radius:6px">${escape(link.label)}</a></p>` : '';
   return `<!doctype html><html><body style="font-family:Lato,Arial,sans-serif;line-height:1.5;color:#222">${body}${button}</body></html>`;
 }
@@ -66,4 +67,16 @@ export function overpaymentMail(p: { studioName: string; clientName: string; tit
     'Keepstitch asks the card payment service to refund it straight away. The commission page shows, under Payments, whether the refund has gone through; if it has not, use Refund there.',
   ];
   return { subject: `Paid twice, being refunded: ${p.title}`, text: `${lines.join('\n\n')}\n${p.link}\n\n${p.studioName}\n`, html: html(lines, { href: p.link, label: 'Open the commission' }) };
+}
+
+/** To the client on delivery: the care card is attached, and each garment says what comes back. */
+export function deliveredMail(p: { clientName: string; studioName: string; title: string; comesBack: readonly string[]; link: string }): Mail {
+  const lines = [
+    `Dear ${p.clientName},`,
+    `Your piece "${p.title}" has been delivered. Its care card is attached as a PDF: how to wash it, and what went into it.`,
+  ];
+  const list = p.comesBack.length ? ['What comes back to you with it:', p.comesBack.map((l) => `- ${l}`).join('\n')] : [];
+  const text = `${[...lines, ...list].join('\n\n')}\n\nYou can see your commission on your page:\n${p.link}\n\nWith thanks,\n${p.studioName}\n`;
+  const paragraphs = p.comesBack.length ? [...lines, 'What comes back to you with it:'] : lines;
+  return { subject: `Delivered: ${p.title}`, text, html: html(paragraphs, { href: p.link, label: 'Open your page' }, p.comesBack) };
 }

@@ -1,4 +1,4 @@
-import { cautionsFor, featuresToRemove, nextStages } from '@keepstitch/shared';
+import { cautionsFor, featuresToRemove, nextStages, stageOptions } from '@keepstitch/shared';
 import { AppError } from '../core/app-error';
 import { present } from '../core/field-policy';
 import { readTogether } from '../core/read-together';
@@ -58,7 +58,7 @@ export async function getCommission(user: Express.User, id: number) {
   const states = statesFrom(garments.map((g) => g.id), events);
   const panelsOf = groupBy(panels, (p) => p.garmentId);
   const photosOf = groupBy(photos, (p) => p.garmentId);
-  const facts = factsFrom(states, money);
+  const facts = factsFrom(states, money, garments);
   const garmentViews = garments.map((g) => {
     const custody = states.get(g.id)!;
     return present('garment', user.role, {
@@ -80,6 +80,7 @@ export async function getCommission(user: Express.User, id: number) {
     stageHistory: moves.map((m) => ({ id: m.id, fromStage: m.fromStage, toStage: m.toStage, note: staff ? m.note : undefined, movedAt: m.movedAt })),
     hours,
     nextStages: staff ? nextStages(c.stage, facts) : undefined,
+    stageOptions: staff ? stageOptions(c.stage, facts) : undefined,
     facts,
   });
 }

@@ -1,4 +1,4 @@
-import { checkStageMove, moveNeedsNote, nextStages, type Stage } from '@keepstitch/shared';
+import { checkStageMove, custodyEnding, moveNeedsNote, nextStages, stageOptions, whatComesBack, type Stage } from '@keepstitch/shared';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
 import { ClientModel } from '../models/client-model';
@@ -6,7 +6,9 @@ import { CommissionModel, StageMoveModel } from '../models/commission-model';
 import { StudioSettingsModel } from '../models/settings-model';
 import { paymentState } from '../payments/payment-state';
 import { enqueueMail } from '../mail/outbox-service';
-import { readyMail } from '../mail/mail-templates';
+import { deliveredMail, readyMail } from '../mail/mail-templates';
+import { custodyStates, toCustodyEvent } from '../garments/custody';
+import { careCardPdf } from '../designs/care-card-pdf';
 import { stageFacts } from './stage-facts';
 
 const NOT_FOUND = 'That commission';
@@ -14,9 +16,12 @@ const NOT_FOUND = 'That commission';
 /**
  * Moves a commission to another stage by the shared stage rules, with the
  * facts they need (garments in, money owing) read in the same transaction,
- * and records the move; reaching Ready tells the client.
+ * and records the move; reaching Ready tells the client, and delivery sends
+ * the client the care card and what comes back of each garment.
  */
 export async function moveStage(user: Express.User, id: number, to: Stage, note: string | null | undefined, appUrl: string) {
+  // The care card is drawn first: its reads use connections of their own, which a held transaction must not wait for.
+  const card = to === 'delivered' ? await careCardPdf(user, id) : null;
   return CommissionModel.transaction(async (trx) => {
     const c = await CommissionModel.query(trx).findById(id).forUpdate();
     if (!c) throw AppError.notFound(NOT_FOUND);
@@ -30,7 +35,8 @@ export async function moveStage(user: Express.User, id: number, to: Stage, note:
     await CommissionModel.query(trx).patch({ stage: to }).findById(id);
     let mailed = false;
     if (to === 'ready') mailed = await tellClientReady(trx, c, appUrl);
-    return { id, stage: to, nextStages: nextStages(to, facts), mailed };
+    if (card) mailed = await tellClientDelivered(trx, c, card, appUrl);
+    return { id, stage: to, nextStages: nextStages(to, facts), stageOptions: stageOptions(to, facts), mailed };
   });
 }
 
@@ -42,5 +48,21 @@ async function tellClientReady(trx: Knex.Transaction, c: CommissionModel, appUrl
   const money = await paymentState(c.id, trx);
   const mail = readyMail({ clientName: client.name, studioName: settings.studioName, title: c.title, balancePence: money?.balancePaid ? 0 : (money?.balancePence ?? 0), link: `${appUrl}/portal/${c.id}` });
   await enqueueMail(trx, { kind: 'ready', to: client.email, ...mail, commissionId: c.id });
+  return true;
+}
+
+/** "Delivered", with the care card PDF and one line per garment on what comes back, queued with the move. */
+async function tellClientDelivered(trx: Knex.Transaction, c: CommissionModel, card: { pdf: Buffer; fileName: string }, appUrl: string): Promise<boolean> {
+  const client = await ClientModel.query(trx).findById(c.clientId);
+  if (!client?.email) return false;
+  const settings = await StudioSettingsModel.current(trx);
+  const garments = await CommissionModel.relatedQuery('garments', trx).for(c.id).orderBy('garments.id');
+  const states = await custodyStates(garments.map((g) => g.id), trx);
+  const comesBack = garments
+    .map((g) => ({ g, custody: states.get(g.id)! }))
+    .filter(({ custody }) => custody.state.status !== 'withdrawn')
+    .map(({ g, custody }) => whatComesBack(g, custodyEnding(custody.events.map(toCustodyEvent))));
+  const mail = deliveredMail({ clientName: client.name, studioName: settings.studioName, title: c.title, comesBack, link: `${appUrl}/portal/${c.id}` });
+  await enqueueMail(trx, { kind: 'delivered', to: client.email, ...mail, commissionId: c.id, attachments: [{ filename: card.fileName, contentType: 'application/pdf', content: card.pdf }] });
   return true;
 }

@@ -21,7 +21,7 @@ export function workroomRouter(config: AppConfig, kickMail: () => void) {
     const { to, note } = parseInput(stageMoveSchema, req.body, 'stage move');
     const moved = await moveStage(signedInUser(req), id, to as Stage, note, config.appUrl);
     if (moved.mailed) kickMail();
-    res.json({ id: moved.id, stage: moved.stage, nextStages: moved.nextStages });
+    res.json({ id: moved.id, stage: moved.stage, nextStages: moved.nextStages, stageOptions: moved.stageOptions });
   });
 
   return r.router;

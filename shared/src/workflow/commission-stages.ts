@@ -1,3 +1,5 @@
+import { checkDelivery } from './delivery';
+
 /**
  * The stages a commission moves through in the workroom, in order, and the
  * rules for moving between them. Shared by the server (which enforces them)
@@ -52,6 +54,8 @@ export interface StageFacts {
   garmentsReceived: number;
   /** An accepted quote still has money owing. */
   balanceDue?: boolean;
+  /** Garments (by description) whose custody has not ended: delivery waits for them. */
+  openCustody?: string[];
 }
 
 export type MoveCheck = { ok: true } | { ok: false; reason: string };
@@ -66,7 +70,7 @@ const FIRST_HANDS_ON = stageIndex('garments_in');
  *   "garments in" on each stage is passed one at a time: no cutting before the
  *   garments are in and prepared, no delivery before ready.
  * - "Garments in" needs at least one garment received; cutting needs every garment received.
- * - Delivery waits for the balance of an accepted quote.
+ * - Delivery waits for the balance of an accepted quote and for every garment's custody to end.
  */
 export function checkStageMove(from: Stage, to: Stage, facts: StageFacts): MoveCheck {
   if (from === to) return { ok: false, reason: `The commission is already at "${STAGE_LABELS[to]}".` };
@@ -83,6 +87,10 @@ export function checkStageMove(from: Stage, to: Stage, facts: StageFacts): MoveC
   }
   if (to === 'delivered' && facts.balanceDue) {
     return { ok: false, reason: 'The balance has not been paid yet; it is due before delivery.' };
+  }
+  if (to === 'delivered') {
+    const custody = checkDelivery(facts.openCustody ?? []);
+    if (!custody.ok) return custody;
   }
   if (to === 'garments_in' && facts.garmentsReceived === 0) {
     return { ok: false, reason: 'Record at least one garment as received before moving to "Garments in".' };
@@ -113,4 +121,15 @@ export function moveNeedsNote(from: Stage, to: Stage): boolean {
 /** The stages a commission may move to next, in order. */
 export function nextStages(from: Stage, facts: StageFacts): Stage[] {
   return ALL_STAGES.filter((to) => checkStageMove(from, to, facts).ok);
+}
+
+/** A stage the commission might move to, whether it may now, and if not why. */
+export type StageOption = { stage: Stage; allowed: true } | { stage: Stage; allowed: false; reason: string };
+
+/** Every stage but the current one, in order, each allowed or refused with the reason. */
+export function stageOptions(from: Stage, facts: StageFacts): StageOption[] {
+  return ALL_STAGES.filter((to) => to !== from).map((to) => {
+    const check = checkStageMove(from, to, facts);
+    return check.ok ? { stage: to, allowed: true as const } : { stage: to, allowed: false as const, reason: check.reason };
+  });
 }

@@ -66,3 +66,14 @@ describe('garment custody derived from its events', () => {
     expect(next()).toBe('received');
   });
 });
+
+describe('a place given on receipt', () => {
+  it('is where the garment is stored, without a separate Stored entry', () => {
+    const state = deriveCustody([
+      { id: 1, kind: 'announced', at: '2026-11-01T09:00:00Z' },
+      { id: 2, kind: 'received', place: 'Box 7', at: '2026-11-02T09:00:00Z' },
+    ]);
+    expect(state).toMatchObject({ status: 'in_studio', place: 'Box 7' });
+    expect(likelyNextEvent(state)).toBe('moved');
+  });
+});

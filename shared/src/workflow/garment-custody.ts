@@ -3,7 +3,7 @@
  * has been done to it are derived from them, never stored on their own. A
  * mistaken event is not edited or deleted: a later "correction" event voids it.
  */
-export const CUSTODY_KINDS = ['announced', 'received', 'washed', 'stored', 'moved', 'cut', 'returned', 'withdrawn', 'correction'] as const;
+export const CUSTODY_KINDS = ['announced', 'received', 'washed', 'stored', 'moved', 'cut', 'used', 'returned', 'leftovers_returned', 'withdrawn', 'correction'] as const;
 export type CustodyKind = (typeof CUSTODY_KINDS)[number];
 
 export const CUSTODY_LABELS: Readonly<Record<CustodyKind, string>> = {
@@ -13,7 +13,9 @@ export const CUSTODY_LABELS: Readonly<Record<CustodyKind, string>> = {
   stored: 'Stored',
   moved: 'Moved',
   cut: 'Cut',
-  returned: 'Returned to the client',
+  used: 'Used in the piece (nothing comes back)',
+  returned: 'Returned whole to the client',
+  leftovers_returned: 'Leftovers returned to the client',
   withdrawn: 'Withdrawn (not coming)',
   correction: 'Correction',
 };
@@ -29,20 +31,34 @@ export interface CustodyEvent {
   place?: string | null;
   returnMethod?: ReturnMethod | null;
   trackingRef?: string | null;
+  note?: string | null;
   /** For a correction: the event it voids. */
   correctsEventId?: number | null;
 }
 
-export const GARMENT_STATUSES = ['expected', 'in_studio', 'cut', 'returned', 'withdrawn'] as const;
+export const GARMENT_STATUSES = ['expected', 'in_studio', 'cut', 'used', 'returned', 'leftovers_returned', 'withdrawn'] as const;
 export type GarmentStatus = (typeof GARMENT_STATUSES)[number];
 
 export const GARMENT_STATUS_LABELS: Readonly<Record<GarmentStatus, string>> = {
   expected: 'Expected',
   in_studio: 'In the studio',
   cut: 'Cut',
-  returned: 'Returned',
+  used: 'Used in the piece',
+  returned: 'Returned whole',
+  leftovers_returned: 'Leftovers returned',
   withdrawn: 'Withdrawn',
 };
+
+/**
+ * The statuses that end a garment's custody: it went into the piece, went
+ * back whole, its leftovers went back, or it never came. Any other status
+ * (expected, in the studio, cut) is still open.
+ */
+export const CUSTODY_ENDED: readonly GarmentStatus[] = ['used', 'returned', 'leftovers_returned', 'withdrawn'];
+
+export function custodyEnded(status: GarmentStatus): boolean {
+  return CUSTODY_ENDED.includes(status);
+}
 
 export interface CustodyState {
   status: GarmentStatus;
@@ -70,6 +86,8 @@ export function deriveCustody(events: readonly CustodyEvent[]): CustodyState {
       case 'received':
         state.received = true;
         if (state.status === 'expected' || state.status === 'withdrawn') state.status = 'in_studio';
+        // A place given on receipt is where it is stored.
+        if (e.place) state.place = e.place;
         break;
       case 'washed':
         state.washed = true;
@@ -81,8 +99,10 @@ export function deriveCustody(events: readonly CustodyEvent[]): CustodyState {
       case 'cut':
         state.status = 'cut';
         break;
+      case 'used':
       case 'returned':
-        state.status = 'returned';
+      case 'leftovers_returned':
+        state.status = e.kind;
         state.place = null;
         break;
       case 'withdrawn':
@@ -96,6 +116,9 @@ export function deriveCustody(events: readonly CustodyEvent[]): CustodyState {
 /** Which events make sense next; the server refuses the others with the reason. */
 export function checkCustodyEvent(current: CustodyState, kind: CustodyKind): { ok: true } | { ok: false; reason: string } {
   const inStudio = current.status === 'in_studio' || current.status === 'cut';
+  if ((current.status === 'used' || current.status === 'leftovers_returned') && kind !== 'correction') {
+    return { ok: false, reason: `This garment's custody has ended (${GARMENT_STATUS_LABELS[current.status].toLowerCase()}); correct that entry if it was a mistake.` };
+  }
   switch (kind) {
     case 'announced':
       return { ok: false, reason: 'A garment is announced once, when it is added.' };
@@ -108,7 +131,10 @@ export function checkCustodyEvent(current: CustodyState, kind: CustodyKind): { o
     case 'moved':
     case 'cut':
       return inStudio ? { ok: true } : { ok: false, reason: 'Record the garment as received first.' };
+    case 'used':
+      return inStudio ? { ok: true } : { ok: false, reason: 'Only a garment in the studio can be used in the piece.' };
     case 'returned':
+    case 'leftovers_returned':
       return inStudio ? { ok: true } : { ok: false, reason: 'Only a garment in the studio can be returned.' };
     case 'withdrawn':
       return current.received ? { ok: false, reason: 'A garment already received cannot be withdrawn; record its return instead.' } : { ok: true };

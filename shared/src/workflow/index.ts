@@ -3,3 +3,4 @@ export * from './garment-custody';
 export * from './vocabulary';
 export * from './cautions';
 export * from './text-limits';
+export * from './delivery';

@@ -8,7 +8,7 @@ import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
-import { cautionsFor } from '@keepstitch/shared';
+import { cautionsFor, stageOptions } from '@keepstitch/shared';
 
 import { signedInAs } from '../../testing/signed-in-as';
 import { Notices } from '../core/notices';
@@ -48,6 +48,7 @@ const detail: CommissionDetail = {
     total: '2.00',
   },
   nextStages: ['enquiry', 'quoted', 'garments_in', 'cancelled'],
+  stageOptions: stageOptions('booked', { garmentCount: 1, garmentsReceived: 1 }),
   facts: { garmentCount: 1, garmentsReceived: 1 },
 };
 
@@ -132,6 +133,21 @@ describe('CommissionPage', () => {
     httpMock.expectOne('/api/commissions/3').flush({ ...detail, stage: 'enquiry' });
     await fixture.whenStable();
     expect(page.querySelector('[data-testid="current-stage"]')?.textContent).toContain('Enquiry');
+  });
+
+  it('lists a stage not allowed yet as disabled, with the reason in its text', async () => {
+    const next = (await (await field('Next stage')).getControl(MatSelectHarness))!;
+    await next.open();
+    const options = await next.getOptions();
+    const texts = await Promise.all(options.map((o) => o.getText()));
+    expect(texts).toContain('Garments in');
+    const cutting = options[texts.findIndex((t) => t.startsWith('Cutting'))]!;
+    expect(await cutting.getText()).toBe('Cutting (not now: "Cutting" comes after "Garments in": move to that stage first.)');
+    expect(await cutting.isDisabled()).toBeTrue();
+    const garmentsIn = options[texts.indexOf('Garments in')]!;
+    expect(await garmentsIn.isDisabled()).toBeFalse();
+    // The current stage is not offered.
+    expect(texts.some((t) => t.startsWith('Booked'))).toBeFalse();
   });
 
   it("shows the server's reason when a move forward is refused", async () => {

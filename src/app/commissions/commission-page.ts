@@ -32,9 +32,10 @@ import { Loader } from '../ui/loader';
 import { Photo } from '../ui/photo';
 import { PhotoGallery } from '../ui/photo-gallery';
 import { PhotoUpload } from '../ui/photo-upload';
-import { CommissionDetail, daysLeftText } from './commission';
+import { CommissionDetail, StageChoice, daysLeftText } from './commission';
 import { showDate, todayIso } from '../ui/dates';
 import { CommissionsApi } from './commissions-api';
+import { DeliveryChecklist } from './delivery-checklist';
 import { GarmentIntake } from './garment-intake';
 
 /** One commission: summary and cautions, garments, stage and its history, hours, progress photos. */
@@ -56,6 +57,7 @@ import { GarmentIntake } from './garment-intake';
     GarmentIntake,
     QuoteSection,
     LoadStatus,
+    DeliveryChecklist,
   ],
   templateUrl: './commission-page.html',
   styleUrl: './commission-page.scss',
@@ -111,6 +113,13 @@ export class CommissionPage {
   });
   protected readonly loggingHours = signal(false);
   protected readonly hoursError = signal<string | null>(null);
+
+  /** Every other stage, those not allowed yet disabled with the reason; from the moves allowed when the server gives only those. */
+  protected readonly stageChoices = computed<StageChoice[]>(() => {
+    const c = this.commission();
+    return c?.stageOptions ?? (c?.nextStages ?? []).map((stage) => ({ stage, allowed: true }));
+  });
+  protected readonly canMove = computed(() => this.stageChoices().some((o) => o.allowed));
 
   protected readonly garmentPhotos = computed(() => (this.commission()?.garments ?? []).flatMap((g) => g.photos ?? []));
   protected readonly hoursByStage = computed(() => {

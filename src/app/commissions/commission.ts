@@ -132,6 +132,10 @@ export const eventReplySchema = z.object({
   state: z.object({ status: z.custom<GarmentStatus>((v) => typeof v === 'string'), received: z.boolean(), washed: z.boolean(), place: z.nullable(z.string()) }),
 });
 
+/** A stage the commission might move to: allowed, or refused with the reason. */
+const stageOptionSchema = z.object({ stage, allowed: z.boolean(), reason: z.optional(z.string()) });
+export type StageChoice = z.infer<typeof stageOptionSchema>;
+
 const hoursEntrySchema = z.object({
   id: z.number(),
   stage,
@@ -153,11 +157,12 @@ export const commissionDetailSchema = z.extend(commissionSchema, {
     z.object({ entries: z.array(hoursEntrySchema), byStage: z.record(z.string(), z.string()), total: z.string() }),
   ),
   nextStages: z.optional(z.array(stage)),
-  facts: z.object({ garmentCount: z.number(), garmentsReceived: z.number() }),
+  stageOptions: z.optional(z.array(stageOptionSchema)),
+  facts: z.object({ garmentCount: z.number(), garmentsReceived: z.number(), openCustody: z.optional(z.array(z.string())) }),
 });
 export type CommissionDetail = z.infer<typeof commissionDetailSchema>;
 
-export const stageReplySchema = z.object({ id: z.number(), stage, nextStages: z.optional(z.array(stage)) });
+export const stageReplySchema = z.object({ id: z.number(), stage, nextStages: z.optional(z.array(stage)), stageOptions: z.optional(z.array(stageOptionSchema)) });
 export type StageReply = z.infer<typeof stageReplySchema>;
 
 export type CommissionSortField = 'deadline' | 'createdAt' | 'title' | 'stage';
@@ -215,7 +220,9 @@ export type CustodyEventDraft =
   | { kind: 'stored'; place: string; note?: string }
   | { kind: 'moved'; place: string; note?: string }
   | { kind: 'cut'; note?: string }
+  | { kind: 'used'; note?: string }
   | { kind: 'returned'; returnMethod: ReturnMethod; trackingRef?: string; note?: string }
+  | { kind: 'leftovers_returned'; returnMethod: ReturnMethod; trackingRef?: string; note?: string }
   | { kind: 'withdrawn'; note?: string }
   | { kind: 'correction'; correctsEventId: number; note: string };
 

@@ -94,7 +94,7 @@ describe('GarmentPage custody', () => {
   });
 
   it('asks for the tracking reference of a posted return before sending it', async () => {
-    await chooseEvent('Returned to the client');
+    await chooseEvent('Returned whole to the client');
     const how = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'How' }));
     await (await how.getControl(MatSelectHarness))!.clickOptions({ text: 'By post' });
     await fixture.whenStable();
@@ -112,6 +112,20 @@ describe('GarmentPage custody', () => {
       { status: 201, statusText: 'Created' },
     );
     httpMock.expectOne('/api/garments/21').flush({ ...garment, status: 'returned', place: null });
+  });
+
+  it('records the leftovers returned in person, with the return fields a whole return has', async () => {
+    await chooseEvent('Leftovers returned to the client');
+    expect(await loader.getAllHarnesses(MatFormFieldHarness.with({ floatingLabelText: 'How' }))).not.toEqual([]);
+    await type('Note', 'Collar and cuffs, handed over at the studio');
+    await record();
+    const request = httpMock.expectOne('/api/garments/21/events');
+    expect(request.request.body).toEqual({ kind: 'leftovers_returned', returnMethod: 'in_person', note: 'Collar and cuffs, handed over at the studio' });
+    request.flush(
+      { event: { id: 5, kind: 'leftovers_returned', at: '2026-11-05T09:00:00Z' }, state: { status: 'leftovers_returned', received: true, washed: false, place: null } },
+      { status: 201, statusText: 'Created' },
+    );
+    httpMock.expectOne('/api/garments/21').flush({ ...garment, status: 'leftovers_returned', place: null });
   });
 
   it('takes a place as long as the server keeps, and marks a longer one without sending it', async () => {

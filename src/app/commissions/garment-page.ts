@@ -38,8 +38,8 @@ import { CommissionsApi } from './commissions-api';
 import { GarmentDetailsForm } from './garment-details-form';
 import { PanelsEditor } from './panels-editor';
 
-type RecordableKind = 'received' | 'washed' | 'stored' | 'moved' | 'cut' | 'returned' | 'withdrawn' | 'correction';
-const RECORDABLE: readonly RecordableKind[] = ['received', 'washed', 'stored', 'moved', 'cut', 'returned', 'withdrawn', 'correction'];
+type RecordableKind = 'received' | 'washed' | 'stored' | 'moved' | 'cut' | 'used' | 'returned' | 'leftovers_returned' | 'withdrawn' | 'correction';
+const RECORDABLE: readonly RecordableKind[] = ['received', 'washed', 'stored', 'moved', 'cut', 'used', 'returned', 'leftovers_returned', 'withdrawn', 'correction'];
 
 /** One garment: what it is, its custody log with a form to add to it, its panels and photos. */
 @Component({
@@ -148,7 +148,7 @@ export class GarmentPage {
     // Text over its limit, in a field this kind of entry shows, is marked on its field and not sent.
     const shown = [c.note];
     if (v.kind === 'received' || v.kind === 'stored' || v.kind === 'moved') shown.push(c.place);
-    if (v.kind === 'returned' && v.returnMethod === 'post') shown.push(c.trackingRef);
+    if ((v.kind === 'returned' || v.kind === 'leftovers_returned') && v.returnMethod === 'post') shown.push(c.trackingRef);
     const tooLong = shown.filter((control) => control.hasError('maxlength'));
     if (tooLong.length) {
       for (const control of tooLong) control.markAsTouched();
@@ -167,9 +167,10 @@ export class GarmentPage {
         draft = { kind: 'received', ...(place ? { place } : {}), note };
         break;
       case 'returned':
+      case 'leftovers_returned':
         if (v.returnMethod === 'post' && !v.trackingRef.trim()) return this.missing(c.trackingRef);
         draft = {
-          kind: 'returned',
+          kind: v.kind,
           returnMethod: v.returnMethod,
           ...(v.returnMethod === 'post' ? { trackingRef: v.trackingRef.trim() } : {}),
           note,
