@@ -2,18 +2,12 @@
 // which fabric goes where, and the finishing choices. Stored as JSON (every
 // length an exact millimetre decimal string) and derived by derive-design.ts.
 
-import type { BlockKind, BlockParams } from './kinds';
+import type { BlockSpec } from './kinds';
+import type { FabricRef } from './fabric-ref';
 
 export { BLOCK_KINDS, BLOCK_KIND_LABELS, BLOCK_ROLES } from './kinds';
-export type { BlockKind, BlockParams } from './kinds';
-
-/** A block of the design: its id and name, its kind, and what the kind's inputs set (kinds/). */
-export interface BlockSpec extends BlockParams {
-  /** Short id used by the pattern and assignments, e.g. "A". */
-  id: string;
-  name: string;
-  kind: BlockKind;
-}
+export type { BlockKind, BlockParams, BlockSpec } from './kinds';
+export { fabricKey, type FabricRef } from './fabric-ref';
 
 /**
  * A named group of the commission's garments, kept with the design whether or
@@ -25,12 +19,6 @@ export interface GarmentGroup {
   name: string;
   garmentIds: number[];
 }
-
-/** A fabric: one garment, one of the design's groups of garments (by id), or a studio stock fabric. */
-export type FabricRef =
-  | { kind: 'garment'; garmentId: number }
-  | { kind: 'group'; groupId: string }
-  | { kind: 'stock'; stockId: number };
 
 /**
  * What an assignment covers: a block position (every piece of that block), or
@@ -89,17 +77,4 @@ export interface DesignBody {
     /** Pieces each garment must give at least (0: no rule). */
     minimumPerGarment: number;
   };
-}
-
-/** A stable text key for a fabric reference. */
-export function fabricKey(fabric: FabricRef | null): string {
-  if (!fabric) return 'any';
-  switch (fabric.kind) {
-    case 'garment':
-      return `garment:${fabric.garmentId}`;
-    case 'stock':
-      return `stock:${fabric.stockId}`;
-    case 'group':
-      return `group:${fabric.groupId}`;
-  }
 }

@@ -9,7 +9,7 @@ import { gridLayout, StripGroup, BorderPlan } from '../grid-layout';
 import { onPointLayout } from '../on-point';
 import { DEFAULT_USABLE_WIDTH } from '../fabric-width';
 import type { DesignBody } from './design-body';
-import type { DerivedPosition, PieceGroup } from './derive-design';
+import type { DerivedPosition, PieceGroup } from './derivation-types';
 import { storedLength as L, type CutShape } from './kinds/block-kind';
 
 /** One kind of layout piece to cut, before its fabric is known. */

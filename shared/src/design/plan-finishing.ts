@@ -14,7 +14,7 @@ import { EIGHTH_YARD, roundUpToIncrement, TEN_CENTIMETRES } from '../shop-increm
 import { DEFAULT_USABLE_WIDTH } from '../fabric-width';
 import type { DesignBody } from './design-body';
 import type { DesignDerivation } from './derive-design';
-import type { DesignPlanSummary, ShoppingLine, SourceStock } from './plan-design';
+import type { DesignPlanSummary, ShoppingLine, SourceStock } from './plan-types';
 
 type Finishing = ReturnType<typeof finishingSizes>;
 

@@ -12,7 +12,7 @@ import type { DesignBody, FabricRef } from './design-body';
 import type { DerivedPiece, DesignDerivation } from './derive-design';
 import { groupOf } from './garment-groups';
 import { blockKind } from './kinds';
-import type { DesignSources, KeptFeaturePiece, SourceGarment } from './plan-design';
+import type { DesignSources, KeptFeaturePiece, SourceGarment } from './plan-types';
 
 export const panelId = (id: number) => `panel-${id}`;
 /** The cut plan's id of a studio fabric, as panelId is of a garment panel. */

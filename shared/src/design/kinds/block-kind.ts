@@ -11,7 +11,7 @@ import { Length } from '../../measure';
 import type { CutSize, RulerStep } from '../../rounding';
 import type { UnitCut } from '../../seam-allowance';
 import type { WedgeBlock } from '../../wedge-block';
-import type { DerivedPiece, DerivedPosition, SewingStep, Template } from '../derive-design';
+import type { DerivedPiece, DerivedPosition, SewingStep, Template } from '../derivation-types';
 
 interface InputBase {
   /** The field of the stored block (BlockSpec) the input sets. */

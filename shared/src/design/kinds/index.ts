@@ -2,7 +2,6 @@
 // settings page list them. A new kind is one module (see block-kind.ts) added
 // to this list; everything else reads it from here.
 
-import type { BlockSpec } from '../design-body';
 import type { BlockKindDef, InputValue, KindInput } from './block-kind';
 import { square } from './square';
 import { rectangles } from './rectangles';
@@ -24,6 +23,14 @@ type AllInputs = KindModule['inputs'][number];
 
 /** What the inputs of every kind may set on a stored block, each optional. */
 export type BlockParams = { [I in AllInputs as I['name']]?: InputValue<I> };
+
+/** A block of the design: its id and name, its kind, and what the kind's inputs set (kinds/). */
+export interface BlockSpec extends BlockParams {
+  /** Short id used by the pattern and assignments, e.g. "A". */
+  id: string;
+  name: string;
+  kind: BlockKind;
+}
 
 /** A block kind's module, read through the registry: its methods take any stored block of the kind. */
 export type BlockKindModule = BlockKindDef<BlockKind, readonly KindInput[], BlockSpec>;

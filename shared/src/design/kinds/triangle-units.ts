@@ -1,6 +1,6 @@
 // What the half- and quarter-square triangle kinds share: a block of n x n unit squares.
 
-import type { DerivedPosition, SewingStep } from '../derive-design';
+import type { DerivedPosition, SewingStep } from '../derivation-types';
 
 /** Calls `draw` with the top-left corner and side of each unit square of the block, row by row. */
 export function eachUnit(n: number, p: DerivedPosition, draw: (ux: number, uy: number, u: number) => void): void {

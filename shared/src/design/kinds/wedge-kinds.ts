@@ -8,7 +8,7 @@ import { cutSize, RulerStep } from '../../rounding';
 import { squareCut } from '../../seam-allowance';
 import { wedgeBlock } from '../../wedge-block';
 import { centreCircle, backgroundSquare } from '../../centre-circle';
-import type { DerivedPosition, SewingStep, Template } from '../derive-design';
+import type { DerivedPosition, SewingStep, Template } from '../derivation-types';
 import { AddShape, fromUnit, KindCuts, KindInput, KindSewing, plural, rect, storedLength } from './block-kind';
 
 type WedgeKind = 'plate' | 'fan';
