@@ -65,14 +65,15 @@ export async function dueReminders(settings: StudioSettingsModel, today: string)
     });
   }
 
-  // One reminder per commission for its garments listed more than N days ago and not arrived.
+  // One reminder per commission for its garments listed more than N days ago and not arrived. Its key's
+  // date is the day the first of them was listed, so changing N later does not send it again.
   const late = new Map<number, { title: string; names: string[]; dueOn: string }>();
   for (const g of expectedGarmentsFrom(garments, events)) {
-    const dueOn = addDays(g.createdAt.toISOString().slice(0, 10), settings.garmentsLateDays);
-    if (dueOn > today) continue;
-    const entry = late.get(g.commissionId) ?? { title: g['title'] as string, names: [], dueOn };
+    const listedOn = g.createdAt.toISOString().slice(0, 10);
+    if (addDays(listedOn, settings.garmentsLateDays) > today) continue;
+    const entry = late.get(g.commissionId) ?? { title: g['title'] as string, names: [], dueOn: listedOn };
     entry.names.push(g.description);
-    if (dueOn < entry.dueOn) entry.dueOn = dueOn;
+    if (listedOn < entry.dueOn) entry.dueOn = listedOn;
     late.set(g.commissionId, entry);
   }
   for (const [commissionId, g] of late) {
@@ -135,8 +136,8 @@ export function startReminderSweeps(appUrl: string, kickMail: () => void, everyM
       running = false;
     }
   };
-  void run();
+  const firstSweep = run();
   const timer = setInterval(() => void run(), everyMs);
   timer.unref();
-  return { stop: () => clearInterval(timer) };
+  return { firstSweep, stop: () => clearInterval(timer) };
 }
