@@ -77,7 +77,7 @@ describe('accessibility, end to end', () => {
 
   it('finds nothing on the owner’s studio pages, nor on a form showing its errors', async () => {
     const { page, problems } = await signedIn(DEMO_ACCOUNTS.owner);
-    const found = await check(page, ['/clients', '/stock', '/settings', '/mail', '/users', '/password']);
+    const found = await check(page, ['/overview', '/clients', '/stock', '/settings', '/mail', '/users', '/password']);
     // A form showing its errors, with their colours and their ties to the fields.
     await page.goto('/clients/new');
     await page.getByRole('button', { name: 'Save' }).click();

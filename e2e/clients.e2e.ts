@@ -15,7 +15,11 @@ describe('clients, end to end', () => {
     await page.waitForURL(/\/sign-in/);
     await screenshot(page, 'sign-in');
     await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
-    await page.waitForURL(/\/commissions/);
+    // The owner lands on what is due.
+    await page.waitForURL(/\/overview$/);
+    await page.getByRole('heading', { name: 'What is due' }).waitFor();
+    await page.getByRole('heading', { name: 'Garments still expected' }).waitFor();
+    await screenshot(page, 'overview');
     await page.getByRole('link', { name: 'Clients' }).click();
     await page.waitForURL(/\/clients/);
     await page.getByRole('heading', { name: 'Clients' }).waitFor();
@@ -51,7 +55,7 @@ describe('clients, end to end', () => {
   it('says when the list could not be loaded, and loads it on Try again', async () => {
     const { page, problems } = await openPage(browser);
     await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
-    await page.waitForURL(/\/commissions/);
+    await page.waitForURL(/\/overview$/);
     // The server is unwell for the first request of the list, then well again.
     const listUrl = /\/api\/clients\?/;
     await page.route(listUrl, (route) =>
@@ -75,7 +79,7 @@ describe('clients, end to end', () => {
   it('asks before leaving a form with typed work, and keeps it when the owner stays', async () => {
     const { page, problems } = await openPage(browser);
     await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
-    await page.waitForURL(/\/commissions/);
+    await page.waitForURL(/\/overview$/);
     await page.goto('/clients/new');
     await page.getByLabel('Name').fill('Perpetua Ashgrove');
     await page.getByRole('link', { name: 'Commissions' }).click();

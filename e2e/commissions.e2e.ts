@@ -70,7 +70,9 @@ describe('commissions and garment intake, end to end', () => {
   it('lets the owner receive and store it, measure two panels in fractions, and move a commission on the board', async () => {
     const { page, problems } = await openPage(browser);
     await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
-    await page.waitForURL(/\/commissions/);
+    await page.waitForURL(/\/overview$/);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Commissions' }).click();
+    await page.waitForURL(/\/commissions$/);
     await page.getByRole('link', { name: 'Work-shirt memory quilt' }).first().click();
     await page.getByTestId('garment-row').filter({ hasText: 'Tartan wool scarf' }).getByRole('link').click();
     await page.getByTestId('garment-status').filter({ hasText: 'Expected' }).waitFor();

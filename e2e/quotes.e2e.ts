@@ -47,7 +47,9 @@ describe('quotes and payments, end to end', () => {
   it('lets the owner make a new version of a sent quote, with live totals, and send it to the client by e-mail', async () => {
     const { page, problems } = await openPage(browser);
     await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
-    await page.waitForURL(/\/commissions/);
+    await page.waitForURL(/\/overview$/);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Commissions' }).click();
+    await page.waitForURL(/\/commissions$/);
     await page.getByRole('link', { name: CUSHIONS }).click();
     await page.waitForURL(/\/commissions\/\d+$/);
     await page.getByRole('heading', { name: 'Quote', exact: true }).waitFor();

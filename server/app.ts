@@ -28,6 +28,7 @@ import { designsRouter } from './designs/designs-router';
 import { settingsRouter } from './settings/settings-router';
 import { quotesRouter } from './quotes/quotes-router';
 import { mailRouter } from './mail/mail-router';
+import { dueRouter } from './due/due-router';
 import { paymentsRouter, paymentsWebhookRouter } from './payments/payments-router';
 import { createPaymentProvider } from './payments/payment-provider';
 import type Stripe from 'stripe';
@@ -132,10 +133,11 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
   app.use(photosRouter(config.uploadDir));
   app.use(stockRouter());
   app.use(designsRouter());
-  app.use(settingsRouter());
+  app.use(settingsRouter(config));
   app.use(quotesRouter(config, kickMail));
   app.use(paymentsRouter(provider, config, kickMail));
   app.use(mailRouter(config, kickMail));
+  app.use(dueRouter(config.appUrl));
   assertPolicyCovered();
 
   app.use('/api', apiNotFound);

@@ -5,6 +5,7 @@ import { createKnex } from './core/database';
 import { createApp } from './app';
 import { startOutboxWorker } from './mail/mailer';
 import { removeOrphanFiles } from './photos/photos-service';
+import { startReminderSweeps } from './due/reminders';
 
 /** Starts the server; SIGINT/SIGTERM close the listener and the database pools. */
 async function main(): Promise<void> {
@@ -20,6 +21,8 @@ async function main(): Promise<void> {
   sessionPool.on('error', (err) => console.error('Session pool:', err.message));
   const outbox = startOutboxWorker(knex, config);
   const app = createApp({ config, knex, sessionPool, kickMail: outbox.kick });
+  // Reminders are worked out from the data on every sweep, the first one now.
+  const reminders = startReminderSweeps(config.appUrl, outbox.kick);
   // An upload cut short by a crash leaves files without rows: clear them before serving.
   const tidy = await removeOrphanFiles(config.uploadDir).catch((err: Error) => {
     console.error(`Photo folder check failed: ${err.message}`);
@@ -37,6 +40,7 @@ async function main(): Promise<void> {
     const force = setTimeout(() => process.exit(1), 10_000);
     force.unref();
     outbox.stop();
+    reminders.stop();
     server.close(async () => {
       await Promise.allSettled([knex.destroy(), sessionPool.end()]);
       console.log('Keepstitch: stopped.');

@@ -34,8 +34,11 @@ const marker = (model: ModelName, field: string) => `zq-${model}-${field}-zq`;
  */
 const CODED = new Set(['quote.status', 'quote.vatRate', 'quote.vatMode', 'quoteLine.kind', 'quoteLine.unit', 'quoteLine.stage', 'stock.costUnit', 'garment.prewash', 'garment.colourRun', 'designVersion.clientResponse', 'user.passwordHash']);
 
-/** GET routes that read the mail server's own list, which these tests do not start. */
-const NOT_IN_SCENARIO = new Set(['GET /api/mail/sent', 'GET /api/mail/sent/:id/attachments/:n']);
+/**
+ * GET routes that read the mail server's own list, which these tests do not start, and the calendar
+ * feed, which answers only its secret address and sends iCalendar text (its spec checks what it holds).
+ */
+const NOT_IN_SCENARIO = new Set(['GET /api/mail/sent', 'GET /api/mail/sent/:id/attachments/:n', 'GET /api/calendar/:secret']);
 
 /**
  * Fields holding a design document in its own vocabulary (`totals`, `unit`,

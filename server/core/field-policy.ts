@@ -223,6 +223,45 @@ export const FIELD_POLICY = {
       respondedAt: { see: ALL },
     },
   },
+  studioSettings: {
+    table: 'studio_settings',
+    fields: {
+      id: { see: OWNER },
+      studioName: { see: OWNER },
+      makerName: { see: OWNER },
+      address: { see: OWNER },
+      email: { see: OWNER },
+      hourlyRatePence: { see: OWNER },
+      vatRegistered: { see: OWNER },
+      vatRate: { see: OWNER },
+      vatMode: { see: OWNER },
+      vatNumber: { see: OWNER },
+      depositPercent: { see: OWNER },
+      validityDays: { see: OWNER },
+      paymentTerms: { see: OWNER },
+      blockMinutes: { see: OWNER },
+      remindQuoteExpiry: { see: OWNER },
+      remindBalanceDue: { see: OWNER },
+      remindGarmentsLate: { see: OWNER },
+      garmentsLateDays: { see: OWNER },
+      /** Only the hash of the feed's secret is kept, and it never leaves the server. */
+      calendarFeedHash: { see: NOBODY },
+      calendarFeedMadeAt: { see: OWNER },
+      updatedAt: { see: OWNER },
+    },
+  },
+  /** The record of reminders mailed: the server's own, never sent. */
+  reminderSent: {
+    table: 'reminders_sent',
+    fields: {
+      id: { see: NOBODY },
+      kind: { see: NOBODY },
+      subjectId: { see: NOBODY },
+      dueOn: { see: NOBODY },
+      outboxMailId: { see: NOBODY },
+      createdAt: { see: NOBODY },
+    },
+  },
 } as const satisfies Record<string, ModelFields>;
 
 export type ModelName = keyof typeof FIELD_POLICY;

@@ -167,6 +167,10 @@ const FIXTURES: Record<string, PatchFixture> = {
       validityDays: { arb: fc.integer({ min: 1, max: 365 }), same: true },
       paymentTerms: { arb: word, same: true },
       blockMinutes: { arb: fc.dictionary(fc.constantFrom('hst', 'square', 'wedge'), fc.integer({ min: 0, max: 600 })), same: true },
+      remindQuoteExpiry: { arb: fc.boolean(), same: true },
+      remindBalanceDue: { arb: fc.boolean(), same: true },
+      remindGarmentsLate: { arb: fc.boolean(), same: true },
+      garmentsLateDays: { arb: fc.integer({ min: 1, max: 365 }), same: true },
     },
   },
 };

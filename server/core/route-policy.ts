@@ -76,6 +76,13 @@ export const ROUTE_POLICY = {
 
   'GET /api/settings': OWNER,
   'PATCH /api/settings': OWNER,
+  'POST /api/settings/calendar-feed': OWNER,
+  'DELETE /api/settings/calendar-feed': OWNER,
+
+  // What is due: the workroom's overview has no money in it (left out by the service).
+  'GET /api/overview': STUDIO,
+  // The calendar feed of deadlines: calendar apps cannot sign in, so the secret in its address is the key.
+  'GET /api/calendar/:secret': EVERYONE,
 
   // Quotes: clients see their own once sent (drafts never).
   'GET /api/commissions/:id/quotes': CLIENT_OR_OWNER,

@@ -80,3 +80,36 @@ export function deliveredMail(p: { clientName: string; studioName: string; title
   const paragraphs = p.comesBack.length ? [...lines, 'What comes back to you with it:'] : lines;
   return { subject: `Delivered: ${p.title}`, text, html: html(paragraphs, { href: p.link, label: 'Open your page' }, p.comesBack) };
 }
+
+const longDate = (day: string) => new Date(`${day}T12:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+
+/** Reminder to the client: a sent quote runs out soon. */
+export function quoteExpiryMail(p: { clientName: string; studioName: string; title: string; version: number; validUntil: string; link: string }): Mail {
+  const lines = [
+    `Dear ${p.clientName},`,
+    `A reminder that your quote for "${p.title}" (version ${p.version}) is valid until ${longDate(p.validUntil)}.`,
+    'If you would like to go ahead, you can accept it and pay the deposit on your page before then. If you have questions, just reply to this e-mail.',
+  ];
+  return { subject: `Your quote runs out on ${longDate(p.validUntil)}: ${p.title}`, text: `${lines.join('\n\n')}\n${p.link}\n\nWith thanks,\n${p.studioName}\n`, html: html(lines, { href: p.link, label: 'Open your quote' }) };
+}
+
+/** Reminder to the client: the balance is due before the piece is delivered. */
+export function balanceDueMail(p: { clientName: string; studioName: string; title: string; balancePence: number; deadline: string; link: string }): Mail {
+  const lines = [
+    `Dear ${p.clientName},`,
+    `Your piece "${p.title}" is due on ${longDate(p.deadline)}. The balance of ${formatPounds(p.balancePence)} is due before delivery.`,
+    'You can pay it on your page:',
+  ];
+  return { subject: `Balance due before delivery: ${p.title}`, text: `${lines.join('\n\n')}\n${p.link}\n\n${p.studioName}\n`, html: html(lines, { href: p.link, label: 'Pay the balance' }) };
+}
+
+/** Reminder to the client: garments the studio is still waiting for. */
+export function garmentsLateMail(p: { clientName: string; studioName: string; title: string; garments: string[]; days: number; link: string }): Mail {
+  const lines = [
+    `Dear ${p.clientName},`,
+    `For "${p.title}" we are still waiting for ${p.garments.length === 1 ? 'this garment' : 'these garments'}, listed ${p.days} or more days ago:`,
+    p.garments.map((g) => `- ${g}`).join('\n'),
+    'When you send them, you can tell us on your page. If they are already on their way, please ignore this e-mail.',
+  ];
+  return { subject: `Still waiting for your garments: ${p.title}`, text: `${lines.join('\n\n')}\n${p.link}\n\n${p.studioName}\n`, html: html(lines, { href: p.link, label: 'Open your page' }) };
+}

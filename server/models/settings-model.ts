@@ -18,10 +18,25 @@ export class StudioSettingsModel extends Model {
   validityDays!: number;
   paymentTerms!: string;
   blockMinutes!: Record<string, number>;
+  /** Reminder switches (on by default) and how many days a garment may be awaited before the client is reminded. */
+  remindQuoteExpiry!: boolean;
+  remindBalanceDue!: boolean;
+  remindGarmentsLate!: boolean;
+  garmentsLateDays!: number;
+  /** SHA-256 (hex) of the calendar feed's secret; null when there is no feed. Never sent. */
+  calendarFeedHash!: string | null;
+  calendarFeedMadeAt!: Date | null;
   updatedAt!: Date;
 
   static override get jsonAttributes() {
     return ['blockMinutes'];
+  }
+
+  /** The feed's secret stays on the server: the JSON says only whether there is a feed and since when. */
+  override $formatJson(json: Record<string, unknown>) {
+    const out = super.$formatJson(json);
+    delete out['calendarFeedHash'];
+    return out;
   }
 
   /** The one settings row, read in the transaction given (or on its own). */

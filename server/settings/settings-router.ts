@@ -1,8 +1,10 @@
 import { z } from 'zod';
 import { SETTINGS_TEXT_LIMITS as L, VAT_RATES } from '@keepstitch/shared';
+import type { AppConfig } from '../core/config';
 import { securedRouter } from '../core/secured-router';
 import { optionalText, parseInput } from '../core/validate';
 import { StudioSettingsModel } from '../models/settings-model';
+import { calendarFeedUrl, makeCalendarFeedSecret, stopCalendarFeed } from './calendar-feed-secret';
 
 export const settingsSchema = z
   .object({
@@ -19,11 +21,15 @@ export const settingsSchema = z
     validityDays: z.number({ message: 'Validity must be a number of days.' }).int().min(1, 'A quote is valid for at least a day.').max(365, 'At most 365 days.'),
     paymentTerms: z.string().trim().max(L.paymentTerms, `Payment terms can be at most ${L.paymentTerms} characters.`),
     blockMinutes: z.record(z.string().max(40), z.number().min(0).max(10_000)),
+    remindQuoteExpiry: z.boolean({ message: 'Say whether to remind clients of a quote about to run out.' }),
+    remindBalanceDue: z.boolean({ message: 'Say whether to remind clients of a balance due before delivery.' }),
+    remindGarmentsLate: z.boolean({ message: 'Say whether to remind clients of garments not yet arrived.' }),
+    garmentsLateDays: z.number({ message: 'Days before a garment reminder must be a whole number of days.' }).int('Days before a garment reminder must be a whole number of days.').min(1, 'Remind after at least 1 day.').max(365, 'Remind after at most 365 days.'),
   })
   .partial()
   .strict();
 
-export function settingsRouter() {
+export function settingsRouter(config: Pick<AppConfig, 'appUrl'>) {
   const r = securedRouter('/api/settings');
   r.get('/', async (_req, res) => {
     res.json(await StudioSettingsModel.current());
@@ -32,6 +38,16 @@ export function settingsRouter() {
     const input = parseInput(settingsSchema, req.body, 'settings');
     const patch = { ...input, ...(input.depositPercent !== undefined ? { depositPercent: String(input.depositPercent) } : {}), updatedAt: new Date() };
     res.json(await StudioSettingsModel.query().patchAndFetchById(1, patch as Partial<StudioSettingsModel>));
+  });
+  /** A new address for the calendar feed, shown this once; the one before stops working. */
+  r.post('/calendar-feed', async (_req, res) => {
+    const { secret, madeAt } = await makeCalendarFeedSecret();
+    res.status(201).json({ url: calendarFeedUrl(config.appUrl, secret), madeAt });
+  });
+  /** Turns the calendar feed off. */
+  r.delete('/calendar-feed', async (_req, res) => {
+    await stopCalendarFeed();
+    res.status(204).end();
   });
   return r.router;
 }

@@ -23,6 +23,14 @@ describe('app routes', () => {
     expect(open('stock', 'client')).toBe('/portal');
   });
 
+  it('opens what is due for the owner and the workroom, and sends a client to their portal', () => {
+    for (const role of ['owner', 'workroom'] as const) {
+      expect(open('overview', role)).withContext(role).toBeTrue();
+      TestBed.resetTestingModule();
+    }
+    expect(open('overview', 'client')).toBe('/portal');
+  });
+
   it('opens the change-password page for anyone signed in, and asks others to sign in', () => {
     for (const role of ['owner', 'workroom', 'client'] as const) {
       expect(open('password', role)).withContext(role).toBeTrue();

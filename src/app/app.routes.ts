@@ -12,6 +12,12 @@ export const pages: Routes = [
     loadComponent: () => import('./sign-in/sign-in').then((m) => m.SignIn),
   },
   {
+    path: 'overview',
+    title: 'What is due',
+    canActivate: [roleGuard('owner', 'workroom')],
+    loadComponent: () => import('./overview/overview-page').then((m) => m.OverviewPage),
+  },
+  {
     path: 'clients',
     canActivate: [roleGuard('owner', 'workroom')],
     loadChildren: () => import('./clients/clients.routes').then((m) => m.clientsRoutes),

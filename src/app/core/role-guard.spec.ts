@@ -48,7 +48,8 @@ describe('route guards', () => {
   });
 
   it('sends the bare address to the right first page', () => {
-    expect(run(homeGuard, 'owner')).toBe('/commissions');
+    expect(run(homeGuard, 'owner')).toBe('/overview');
+    expect(run(homeGuard, 'workroom')).toBe('/commissions');
     expect(run(homeGuard, null)).toBe('/sign-in');
   });
 });

@@ -46,7 +46,7 @@ describe('Shell navigation', () => {
   }
 
   it('offers studio fabric to the workroom as well as the owner', async () => {
-    expect(await navLabels('workroom')).toEqual(['Commissions', 'Clients', 'Studio fabric', 'Change password']);
+    expect(await navLabels('workroom')).toEqual(['What is due', 'Commissions', 'Clients', 'Studio fabric', 'Change password']);
   });
 
   it('lets every role change its own password', async () => {

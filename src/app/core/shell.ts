@@ -24,6 +24,7 @@ interface NavItem {
 
 /** Every place in the app, with the roles that may open it. */
 const navItems: readonly NavItem[] = [
+  { path: '/overview', label: 'What is due', icon: 'event', roles: ['owner', 'workroom'] },
   { path: '/commissions', label: 'Commissions', icon: 'assignment', roles: ['owner', 'workroom'] },
   { path: '/clients', label: 'Clients', icon: 'group', roles: ['owner', 'workroom'] },
   { path: '/stock', label: 'Studio fabric', icon: 'inventory_2', roles: ['owner', 'workroom'] },

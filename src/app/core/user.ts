@@ -30,9 +30,9 @@ export function readUser(value: unknown): User {
   throw new TypeError('The server sent something that is not a user.');
 }
 
-/** The page a role lands on after signing in. */
+/** The page a role lands on after signing in: the owner's is what is due. */
 export function homeFor(role: Role): string {
-  return role === 'client' ? '/portal' : '/commissions';
+  return role === 'owner' ? '/overview' : role === 'client' ? '/portal' : '/commissions';
 }
 
 export const roleLabels: Record<Role, string> = {

@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
 import { REPORT_API_ERRORS } from '../core/api-error';
-import { StudioSettings, StudioSettingsPatch, studioSettingsSchema } from './studio-settings';
+import { CalendarFeed, StudioSettings, StudioSettingsPatch, calendarFeedSchema, studioSettingsSchema } from './studio-settings';
 
 /** Errors of saving are shown by the page beside the form. */
 const quiet = { context: new HttpContext().set(REPORT_API_ERRORS, false) };
@@ -19,5 +19,14 @@ export class SettingsApi {
 
   update(patch: StudioSettingsPatch): Observable<StudioSettings> {
     return this.http.patch<unknown>('/api/settings', patch, quiet).pipe(map((body) => studioSettingsSchema.parse(body)));
+  }
+
+  /** A new secret address for the calendar feed (shown once); the one before stops working. */
+  makeCalendarFeed(): Observable<CalendarFeed> {
+    return this.http.post<unknown>('/api/settings/calendar-feed', {}).pipe(map((body) => calendarFeedSchema.parse(body)));
+  }
+
+  stopCalendarFeed(): Observable<void> {
+    return this.http.delete<void>('/api/settings/calendar-feed');
   }
 }

@@ -28,6 +28,11 @@ const stored = {
   validityDays: 30,
   paymentTerms: 'A deposit books your commission.',
   blockMinutes: { square: 6, hst: 12 },
+  remindQuoteExpiry: true,
+  remindBalanceDue: true,
+  remindGarmentsLate: true,
+  garmentsLateDays: 14,
+  calendarFeedMadeAt: null as string | null,
   updatedAt: '2026-12-01T10:00:00Z',
 };
 
@@ -128,5 +133,37 @@ describe('SettingsPage', () => {
     );
     await fixture.whenStable();
     expect(await errors('Hourly rate (£)')).toEqual(['The hourly rate cannot be negative.']);
+  });
+
+  it('saves the reminder switches and the days before a garment reminder, and refuses a bad number of days', async () => {
+    await (await loader.getHarness(MatSlideToggleHarness.with({ label: /garments not yet arrived/ }))).uncheck();
+    await (await input('Garments reminder after (days)')).setValue('0');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save settings' }))).click();
+    await fixture.whenStable();
+    httpMock.expectNone({ method: 'PATCH' });
+    expect(await errors('Garments reminder after (days)')).toEqual(['A whole number of days from 1 to 365']);
+
+    await (await input('Garments reminder after (days)')).setValue('21');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save settings' }))).click();
+    const request = httpMock.expectOne({ method: 'PATCH', url: '/api/settings' });
+    expect(request.request.body).toEqual(jasmine.objectContaining({ remindQuoteExpiry: true, remindBalanceDue: true, remindGarmentsLate: false, garmentsLateDays: 21 }));
+    request.flush({ ...stored, remindGarmentsLate: false, garmentsLateDays: 21 });
+    await fixture.whenStable();
+    expect(await (await loader.getHarness(MatSlideToggleHarness.with({ label: /garments not yet arrived/ }))).isChecked()).toBeFalse();
+  });
+
+  it('shows a new calendar feed address once, and says the old one stops working when making another', async () => {
+    expect(page.textContent).toContain('There is no feed address yet.');
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Make a feed address' }))).click();
+    httpMock.expectOne({ method: 'POST', url: '/api/settings/calendar-feed' }).flush({ url: 'http://studio.test/api/calendar/abc.ics', madeAt: '2026-12-04T20:00:00Z' });
+    await fixture.whenStable();
+    expect(await (await input('Feed address')).getValue()).toBe('http://studio.test/api/calendar/abc.ics');
+    expect(await loader.getHarness(MatButtonHarness.with({ text: 'Make a new address (the old one stops working)' }))).toBeTruthy();
+
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Turn the feed off' }))).click();
+    httpMock.expectOne({ method: 'DELETE', url: '/api/settings/calendar-feed' }).flush(null, { status: 204, statusText: 'No Content' });
+    await fixture.whenStable();
+    expect(page.textContent).toContain('There is no feed address yet.');
+    expect(page.textContent).not.toContain('/api/calendar/abc.ics');
   });
 });

@@ -14,6 +14,7 @@ import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { LoadStatus } from '../ui/load-status';
 import { applyServerFieldErrors } from '../ui/server-field-errors';
+import { CalendarFeedSettings } from './calendar-feed-settings';
 import { SettingsApi } from './settings-api';
 import { BLOCK_KINDS, BLOCK_KIND_LABELS, BlockKind, StudioSettings, StudioSettingsPatch, VAT_RATE_LABELS } from './studio-settings';
 
@@ -50,6 +51,7 @@ function minutesControl(): FormControl<number | null> {
     MatRadioModule,
     MatButtonModule,
     LoadStatus,
+    CalendarFeedSettings,
   ],
   templateUrl: './settings-page.html',
   styleUrl: './settings-page.scss',
@@ -67,6 +69,8 @@ export class SettingsPage {
   protected readonly state = signal<'loading' | 'ready' | 'failed'>('loading');
   protected readonly saving = signal(false);
   protected readonly formError = signal<string | null>(null);
+  /** When the calendar feed's address was made, for its own section. */
+  protected readonly feedMadeAt = signal<string | null>(null);
 
   protected readonly form = new FormGroup({
     studioName: new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.maxLength(SETTINGS_TEXT_LIMITS.studioName)] }),
@@ -81,6 +85,10 @@ export class SettingsPage {
     depositPercent: new FormControl<number | null>(30, [Validators.required, Validators.min(0), Validators.max(100)]),
     validityDays: new FormControl<number | null>(30, [Validators.required, Validators.min(1), Validators.max(365), wholeNumber]),
     paymentTerms: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(SETTINGS_TEXT_LIMITS.paymentTerms)] }),
+    remindQuoteExpiry: new FormControl(true, { nonNullable: true }),
+    remindBalanceDue: new FormControl(true, { nonNullable: true }),
+    remindGarmentsLate: new FormControl(true, { nonNullable: true }),
+    garmentsLateDays: new FormControl<number | null>(14, [Validators.required, Validators.min(1), Validators.max(365), wholeNumber]),
     blockMinutes: new FormGroup(
       Object.fromEntries(BLOCK_KINDS.map((kind) => [kind, minutesControl()])) as Record<BlockKind, FormControl<number | null>>,
     ),
@@ -97,6 +105,7 @@ export class SettingsPage {
     this.api.get().subscribe({
       next: (settings) => {
         this.fill(settings);
+        this.feedMadeAt.set(settings.calendarFeedMadeAt);
         this.state.set('ready');
       },
       error: () => this.state.set('failed'),
@@ -125,6 +134,10 @@ export class SettingsPage {
       validityDays: v.validityDays!,
       paymentTerms: v.paymentTerms.trim(),
       blockMinutes: Object.fromEntries(BLOCK_KINDS.map((kind) => [kind, v.blockMinutes[kind] ?? 0])),
+      remindQuoteExpiry: v.remindQuoteExpiry,
+      remindBalanceDue: v.remindBalanceDue,
+      remindGarmentsLate: v.remindGarmentsLate,
+      garmentsLateDays: v.garmentsLateDays!,
     };
     this.saving.set(true);
     this.api.update(patch).subscribe({
@@ -158,6 +171,10 @@ export class SettingsPage {
       depositPercent: Number(s.depositPercent),
       validityDays: s.validityDays,
       paymentTerms: s.paymentTerms,
+      remindQuoteExpiry: s.remindQuoteExpiry,
+      remindBalanceDue: s.remindBalanceDue,
+      remindGarmentsLate: s.remindGarmentsLate,
+      garmentsLateDays: s.garmentsLateDays,
       blockMinutes: Object.fromEntries(BLOCK_KINDS.map((kind) => [kind, s.blockMinutes[kind] ?? 0])) as Record<BlockKind, number>,
     });
   }

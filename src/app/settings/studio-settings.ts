@@ -30,8 +30,17 @@ export const studioSettingsSchema = z.object({
   validityDays: z.number(),
   paymentTerms: z.string(),
   blockMinutes: z.record(z.string(), z.number()),
+  remindQuoteExpiry: z.boolean(),
+  remindBalanceDue: z.boolean(),
+  remindGarmentsLate: z.boolean(),
+  garmentsLateDays: z.number(),
+  /** When the calendar feed's address was made; null when there is no feed. */
+  calendarFeedMadeAt: z.nullable(z.string()),
 });
 export type StudioSettings = z.infer<typeof studioSettingsSchema>;
 
 /** What the settings page sends: any part of the settings, the deposit as a number. */
-export type StudioSettingsPatch = Partial<Omit<StudioSettings, 'depositPercent'> & { depositPercent: number }>;
+export type StudioSettingsPatch = Partial<Omit<StudioSettings, 'depositPercent' | 'calendarFeedMadeAt'> & { depositPercent: number }>;
+
+export const calendarFeedSchema = z.object({ url: z.string(), madeAt: z.string() });
+export type CalendarFeed = z.infer<typeof calendarFeedSchema>;

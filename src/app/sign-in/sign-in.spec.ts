@@ -97,7 +97,7 @@ describe('SignIn', () => {
     await fixture.whenStable();
 
     expect(TestBed.inject(Auth).user()).toEqual(testUsers.owner);
-    expect(navigateByUrl).toHaveBeenCalledWith('/commissions');
+    expect(navigateByUrl).toHaveBeenCalledWith('/overview');
   });
 
   it('sends a client to their own commissions', async () => {
@@ -127,7 +127,7 @@ describe('SignIn', () => {
     httpMock.expectOne('/api/auth/sign-in').flush({ user: testUsers.owner });
     await fixture.whenStable();
 
-    expect(navigateByUrl).toHaveBeenCalledWith('/commissions');
+    expect(navigateByUrl).toHaveBeenCalledWith('/overview');
   });
 
   it('says plainly when the e-mail or password is wrong, and lets the person try again', async () => {
