@@ -76,6 +76,7 @@ export const ROUTE_POLICY = {
 
   'GET /api/settings': OWNER,
   'PATCH /api/settings': OWNER,
+  'GET /api/settings/locale': SIGNED_IN,
 
   // Quotes: clients see their own once sent (drafts never).
   'GET /api/commissions/:id/quotes': CLIENT_OR_OWNER,

@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { Model } from 'objection';
-import type { VatMode, VatRate } from '@keepstitch/shared';
+import type { StudioLocale, VatMode, VatRate } from '@keepstitch/shared';
 
 export class StudioSettingsModel extends Model {
   static override tableName = 'studioSettings';
@@ -18,6 +18,8 @@ export class StudioSettingsModel extends Model {
   validityDays!: number;
   paymentTerms!: string;
   blockMinutes!: Record<string, number>;
+  /** The order dates are typed in on the forms (and later how numbers are written). */
+  locale!: StudioLocale;
   updatedAt!: Date;
 
   static override get jsonAttributes() {

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { SETTINGS_TEXT_LIMITS as L, VAT_RATES } from '@keepstitch/shared';
+import { SETTINGS_TEXT_LIMITS as L, STUDIO_LOCALES, VAT_RATES } from '@keepstitch/shared';
 import { securedRouter } from '../core/secured-router';
 import { optionalText, parseInput } from '../core/validate';
 import { StudioSettingsModel } from '../models/settings-model';
@@ -19,6 +19,7 @@ export const settingsSchema = z
     validityDays: z.number({ message: 'Validity must be a number of days.' }).int().min(1, 'A quote is valid for at least a day.').max(365, 'At most 365 days.'),
     paymentTerms: z.string().trim().max(L.paymentTerms, `Payment terms can be at most ${L.paymentTerms} characters.`),
     blockMinutes: z.record(z.string().max(40), z.number().min(0).max(10_000)),
+    locale: z.enum(STUDIO_LOCALES, { message: `Pick the studio locale from the list: ${STUDIO_LOCALES.join(', ')}.` }),
   })
   .partial()
   .strict();
@@ -27,6 +28,10 @@ export function settingsRouter() {
   const r = securedRouter('/api/settings');
   r.get('/', async (_req, res) => {
     res.json(await StudioSettingsModel.current());
+  });
+  // Every signed-in page that shows a date field types it in the studio's order.
+  r.get('/locale', async (_req, res) => {
+    res.json({ locale: (await StudioSettingsModel.current()).locale });
   });
   r.patch('/', async (req, res) => {
     const input = parseInput(settingsSchema, req.body, 'settings');

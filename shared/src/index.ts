@@ -2,7 +2,7 @@
 export * from './workflow/index';
 
 // Dates as shown, and the studio locale that orders them on the forms.
-export * from './show-date';
+export * from './calendar-date';
 export * from './studio-locale';
 
 // Sign-in rules shared by the forms and the server.

@@ -7,7 +7,7 @@ import type { DesignDerivation } from '../design/derive-design';
 import type { DesignPlanSummary, PanelFeature } from '../design/plan-design';
 import { Length } from '../measure';
 import { formatCutSize, formatFinishedSize } from '../format-length';
-import { showDate } from '../show-date';
+import { showDate } from '../calendar-date';
 import type { UnitSystem } from '../format-length';
 import type { KeyFabric } from './printout-content';
 

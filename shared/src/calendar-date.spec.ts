@@ -1,4 +1,4 @@
-import { showDate } from './show-date';
+import { showDate } from './calendar-date';
 
 // The long form the screens and printouts share: day, short month name, year ("3 Dec 2026").
 describe('showDate', () => {

@@ -1,6 +1,10 @@
-// The one long form of a date without a time, the same on every screen and
-// printout: "3 Dec 2026". Worked from the YYYY-MM-DD text itself, so no time
-// zone can move it to another day.
+// A date without a time (a deadline, a day worked), held as YYYY-MM-DD text
+// end to end: the years it may fall in, and its one long form on every screen
+// and printout, "3 Dec 2026", worked from the text itself so no time zone can
+// move it to another day.
+
+/** The years a date without a time may fall in (PostgreSQL has no year 0, and a deadline is not ten centuries off). */
+export const DATE_YEARS = { min: 1900, max: 2999 } as const;
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'] as const;
 
