@@ -65,6 +65,7 @@ const studioSettings = {
   validityDays: 30,
   paymentTerms: '',
   blockMinutes: {},
+  locale: 'en-GB',
 };
 
 describe('CommissionPage', () => {
