@@ -144,4 +144,41 @@ describe('commissions and garment intake, end to end', () => {
     expect(problems).toEqual([]);
     await page.context().close();
   });
+
+  it("takes dates typed in the studio's order in a browser of another locale and zone, and shows them in the long form", async () => {
+    // An American browser far east of Greenwich: neither its locale nor its zone changes the studio's dates.
+    const { page, problems } = await openPage(browser, { locale: 'en-US', timezoneId: 'Pacific/Kiritimati' });
+    await signIn(page, DEMO_ACCOUNTS.owner.email, DEMO_ACCOUNTS.owner.password);
+    await page.goto('/commissions/new');
+    await page.getByLabel('Client', { exact: true }).click();
+    await page.getByRole('option').first().click();
+    await page.getByLabel('Title', { exact: true }).fill('Autumn table runner');
+    const deadline = page.getByLabel('Deadline', { exact: true });
+    await deadline.fill('31/02/2027');
+    await deadline.blur();
+    await page.getByText('Type the date as DD/MM/YYYY, with a four-digit year, or pick it from the calendar').waitFor();
+    expect(await deadline.inputValue()).toBe('31/02/2027');
+    await deadline.fill('15/01/2027');
+    const [created] = await Promise.all([
+      page.waitForRequest((r) => new URL(r.url()).pathname === '/api/commissions' && r.method() === 'POST'),
+      page.getByRole('button', { name: 'Open commission' }).click(),
+    ]);
+    expect(created.postDataJSON()).toEqual(expect.objectContaining({ title: 'Autumn table runner', deadline: '2027-01-15' }));
+    await page.waitForURL(/\/commissions\/\d+$/);
+    await page.getByText('15 Jan 2027').first().waitFor();
+    await dismissNotices(page);
+
+    await page.getByRole('spinbutton', { name: 'Hours', exact: true }).fill('1.5');
+    const day = page.getByRole('textbox', { name: 'Date', exact: true });
+    await day.fill('02/12/2026');
+    const [logged] = await Promise.all([
+      page.waitForRequest((r) => r.url().endsWith('/hours') && r.method() === 'POST'),
+      page.getByRole('button', { name: 'Log hours' }).click(),
+    ]);
+    expect(logged.postDataJSON()).toEqual(expect.objectContaining({ hours: 1.5, workedOn: '2026-12-02' }));
+    await page.getByTestId('hours-entry').filter({ hasText: '2 Dec 2026' }).waitFor();
+    await screenshot(page, 'commission-dates');
+    expect(problems).toEqual([]);
+    await page.context().close();
+  });
 });

@@ -12,8 +12,8 @@ export function launchBrowser(): Promise<Browser> {
 }
 
 /** A new page in a fresh context, failing the test on any console error or request to another host. */
-export async function openPage(browser: Browser): Promise<{ page: Page; problems: string[] }> {
-  const context = await browser.newContext({ baseURL: BASE_URL, viewport: { width: 1280, height: 800 } });
+export async function openPage(browser: Browser, options: { locale?: string; timezoneId?: string } = {}): Promise<{ page: Page; problems: string[] }> {
+  const context = await browser.newContext({ baseURL: BASE_URL, viewport: { width: 1280, height: 800 }, ...options });
   const page = await context.newPage();
   const problems: string[] = [];
   page.on('console', (m) => {

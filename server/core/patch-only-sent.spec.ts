@@ -1,6 +1,6 @@
 import * as fc from 'fast-check';
 import type { z } from 'zod';
-import { AGE_GROUP, COLOUR_RUN, COMMISSION_KIND, CONSTRUCTION, FEATURE, FIBRE, GRAIN, PREWASH, PRINT, VAT_RATES } from '@keepstitch/shared';
+import { AGE_GROUP, COLOUR_RUN, COMMISSION_KIND, CONSTRUCTION, FEATURE, FIBRE, GRAIN, PREWASH, PRINT, STUDIO_LOCALES, VAT_RATES } from '@keepstitch/shared';
 import { ROUTE_POLICY } from './route-policy';
 import { updateClientSchema } from '../clients/clients-schemas';
 import { updateCommissionSchema } from '../commissions/commissions-schemas';
@@ -171,6 +171,7 @@ const FIXTURES: Record<string, PatchFixture> = {
       remindBalanceDue: { arb: fc.boolean(), same: true },
       remindGarmentsLate: { arb: fc.boolean(), same: true },
       garmentsLateDays: { arb: fc.integer({ min: 1, max: 365 }), same: true },
+      locale: oneOf(STUDIO_LOCALES),
     },
   },
 };

@@ -83,6 +83,7 @@ export const ROUTE_POLICY = {
   'GET /api/overview': STUDIO,
   // The calendar feed of deadlines: calendar apps cannot sign in, so the secret in its address is the key.
   'GET /api/calendar/:secret': EVERYONE,
+  'GET /api/settings/locale': SIGNED_IN,
 
   // Quotes: clients see their own once sent (drafts never).
   'GET /api/commissions/:id/quotes': CLIENT_OR_OWNER,

@@ -1,5 +1,6 @@
 import type { RequestHandler } from 'express';
 import { z } from 'zod';
+import { DATE_YEARS } from '@keepstitch/shared';
 import { AppError } from './app-error';
 
 /** Turns zod issues into one message per field, in words a person can act on. */
@@ -26,8 +27,8 @@ export const MAX_INT = 2_147_483_647;
 export const recordId = (message: string) =>
   z.number({ message }).int(message).positive(message).max(MAX_INT, message);
 
-/** The years a date without a time may fall in (PostgreSQL has no year 0, and a deadline is not ten centuries off). */
-export const DATE_YEARS = { min: 1900, max: 2999 } as const;
+/** The years a date without a time may fall in, the same in the app's date fields. */
+export { DATE_YEARS };
 
 /** A date without a time, `YYYY-MM-DD`, that exists and falls in DATE_YEARS. */
 export const isoDate = z

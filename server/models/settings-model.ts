@@ -1,6 +1,6 @@
 import type { Knex } from 'knex';
 import { Model } from 'objection';
-import type { VatMode, VatRate } from '@keepstitch/shared';
+import type { StudioLocale, VatMode, VatRate } from '@keepstitch/shared';
 
 export class StudioSettingsModel extends Model {
   static override tableName = 'studioSettings';
@@ -26,6 +26,8 @@ export class StudioSettingsModel extends Model {
   /** SHA-256 (hex) of the calendar feed's secret; null when there is no feed. Never sent. */
   calendarFeedHash!: string | null;
   calendarFeedMadeAt!: Date | null;
+  /** The order dates are typed in on the forms (and later how numbers are written). */
+  locale!: StudioLocale;
   updatedAt!: Date;
 
   static override get jsonAttributes() {

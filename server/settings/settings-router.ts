@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { SETTINGS_TEXT_LIMITS as L, VAT_RATES } from '@keepstitch/shared';
+import { SETTINGS_TEXT_LIMITS as L, STUDIO_LOCALES, VAT_RATES } from '@keepstitch/shared';
 import type { AppConfig } from '../core/config';
 import { securedRouter } from '../core/secured-router';
 import { optionalText, parseInput } from '../core/validate';
@@ -25,6 +25,7 @@ export const settingsSchema = z
     remindBalanceDue: z.boolean({ message: 'Say whether to remind clients of a balance due before delivery.' }),
     remindGarmentsLate: z.boolean({ message: 'Say whether to remind clients of garments not yet arrived.' }),
     garmentsLateDays: z.number({ message: 'Days before a garment reminder must be a whole number of days.' }).int('Days before a garment reminder must be a whole number of days.').min(1, 'Remind after at least 1 day.').max(365, 'Remind after at most 365 days.'),
+    locale: z.enum(STUDIO_LOCALES, { message: `Pick the studio locale from the list: ${STUDIO_LOCALES.join(', ')}.` }),
   })
   .partial()
   .strict();
@@ -33,6 +34,10 @@ export function settingsRouter(config: Pick<AppConfig, 'appUrl'>) {
   const r = securedRouter('/api/settings');
   r.get('/', async (_req, res) => {
     res.json(await StudioSettingsModel.current());
+  });
+  // Every signed-in page that shows a date field types it in the studio's order.
+  r.get('/locale', async (_req, res) => {
+    res.json({ locale: (await StudioSettingsModel.current()).locale });
   });
   r.patch('/', async (req, res) => {
     const input = parseInput(settingsSchema, req.body, 'settings');

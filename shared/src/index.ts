@@ -1,6 +1,10 @@
 // Public API of the domain maths package. Each concept lives in its own file.
 export * from './workflow/index';
 
+// Dates as shown, and the studio locale that orders them on the forms.
+export * from './calendar-date';
+export * from './studio-locale';
+
 // Sign-in rules shared by the forms and the server.
 export * from './password-rule';
 

@@ -17,6 +17,7 @@ import { routes } from './app.routes';
 import { apiErrorInterceptor } from './core/api-error-interceptor';
 import { AppErrorHandler } from './core/app-error-handler';
 import { Auth } from './core/auth';
+import { loadLocaleOnSignIn } from './core/current-locale';
 import { PageTitle } from './core/page-title';
 
 export const appConfig: ApplicationConfig = {
@@ -28,7 +29,11 @@ export const appConfig: ApplicationConfig = {
       withInterceptors([apiErrorInterceptor]),
       withXsrfConfiguration({ cookieName: 'XSRF-TOKEN', headerName: 'X-XSRF-TOKEN' }),
     ),
-    provideAppInitializer(() => inject(Auth).load()),
+    provideAppInitializer(() => {
+      // The studio's locale is read as soon as someone is signed in; the first paint does not wait for it.
+      loadLocaleOnSignIn();
+      return inject(Auth).load();
+    }),
     { provide: ErrorHandler, useClass: AppErrorHandler },
     { provide: TitleStrategy, useClass: PageTitle },
   ],

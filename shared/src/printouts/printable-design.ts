@@ -7,6 +7,7 @@ import type { DesignDerivation } from '../design/derive-design';
 import type { DesignPlanSummary, PanelFeature } from '../design/plan-design';
 import { Length } from '../measure';
 import { formatCutSize, formatFinishedSize } from '../format-length';
+import { showDate } from '../calendar-date';
 import type { UnitSystem } from '../format-length';
 import type { KeyFabric } from './printout-content';
 
@@ -40,9 +41,9 @@ export interface PrintOptions {
 export const PAPERS = { a4: 'A4', letter: 'US Letter' } as const;
 export type Paper = keyof typeof PAPERS;
 
-/** "Work-shirt memory quilt, design version 3, printed 2026-12-04": the first line of a design printout. */
+/** "Work-shirt memory quilt, design version 3, printed 4 Dec 2026": the first line of a design printout, its date in the screens' long form. */
 export function versionLine(d: PrintableDesign, options: PrintOptions, extra = ''): string {
-  return `${d.commission.title}, design version ${d.version?.version ?? 0}${extra}, printed ${options.printedOn}`;
+  return `${d.commission.title}, design version ${d.version?.version ?? 0}${extra}, printed ${showDate(options.printedOn)}`;
 }
 
 /** Lengths in a design's units: cut sizes rounded up, positions and finished sizes to the nearest mark. */

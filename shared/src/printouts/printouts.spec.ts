@@ -74,7 +74,7 @@ describe('printouts', () => {
   it('builds the cut list: the top with its key, a section for each source with a diagram for each panel, kept feature named', () => {
     const c = build('cut-list');
     expect(c.title).toBe('Cut list');
-    expect(c.meta[0]).toBe('Work-shirt memory quilt, design version 3, printed 2026-12-04');
+    expect(c.meta[0]).toBe('Work-shirt memory quilt, design version 3, printed 4 Dec 2026');
     const headings = c.sections.map((s) => s.heading);
     expect(headings[0]).toBe('The top');
     expect(headings).toContain('From the Green flannel shirt (green)');
@@ -115,7 +115,7 @@ describe('printouts', () => {
   it('builds the templates: check squares, then one sheet for each curved piece drawn full size', () => {
     const c = build('templates', 'letter');
     expect(c.layout).toBe('sheets');
-    expect(c.meta).toEqual(['Work-shirt memory quilt, design version 3, US Letter, printed 2026-12-04. Full size.']);
+    expect(c.meta).toEqual(['Work-shirt memory quilt, design version 3, US Letter, printed 4 Dec 2026. Full size.']);
     expect(kinds(contentFigures(c))).toEqual(['check-squares', 'template', 'template']);
     expect(c.sections.slice(1).map((s) => s.heading)).toEqual(['Block A blade (20 of 360 degrees)', 'Block A centre circle']);
     // The scale note speaks of the browser: the page has it, the PDF does not.

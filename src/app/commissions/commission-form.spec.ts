@@ -72,7 +72,7 @@ describe('CommissionForm', () => {
     await type('Title', 'Grandad’s shirts quilt');
     await type('Width', '60 1/2');
     await type('Length', '80');
-    await type('Deadline', '2027-03-01');
+    await type('Deadline', '01/03/2027');
     await type('Budget', '450.50');
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Open commission' }))).click();
 
@@ -175,7 +175,7 @@ describe('CommissionForm editing', () => {
     expect(await (await input('Width')).getValue()).toBe('60 1/2');
     expect(await (await input('Length')).getValue()).toBe('80');
     expect(await (await select('Unit')).getValueText()).toBe('in');
-    expect(await (await input('Deadline')).getValue()).toBe('2027-03-01');
+    expect(await (await input('Deadline')).getValue()).toBe('01/03/2027');
     expect(await (await input('Budget')).getValue()).toBe('450.50');
     expect(await (await input('Notes')).getValue()).toBe('Keep the breast pockets whole.');
   });
@@ -213,6 +213,31 @@ describe('CommissionForm editing', () => {
     await (await select('Unit')).clickOptions({ text: 'cm' });
     await save();
     expect(httpMock.expectOne('/api/commissions/3').request.body).toEqual({ width: '62', length: '80', unit: 'cm' });
+  });
+
+  it('sends a deadline typed in the studio order as YYYY-MM-DD, and a cleared one as none', async () => {
+    await open(stored);
+    await (await input('Deadline')).setValue('15/02/2027');
+    await save();
+    const moved = httpMock.expectOne('/api/commissions/3');
+    expect(moved.request.body).toEqual({ deadline: '2027-02-15' });
+    moved.flush({ error: { code: 'validation', message: 'Try again.' } }, { status: 500, statusText: 'Server Error' });
+    await fixture.whenStable();
+
+    await (await input('Deadline')).setValue('');
+    await save();
+    expect(httpMock.expectOne('/api/commissions/3').request.body).toEqual({ deadline: null });
+  });
+
+  it('keeps a deadline that is not a date as typed, says how to type it and sends nothing', async () => {
+    await open(stored);
+    await (await input('Deadline')).setValue('30/02/2027');
+    await save();
+    httpMock.expectNone('/api/commissions/3');
+    const deadline = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Deadline' }));
+    expect(await deadline.getTextErrors()).toEqual(['Type the date as DD/MM/YYYY, with a four-digit year, or pick it from the calendar']);
+    expect(await (await input('Deadline')).getValue()).toBe('30/02/2027');
+    expect(navigate).not.toHaveBeenCalled();
   });
 
   it('sends nothing when nothing changed', async () => {

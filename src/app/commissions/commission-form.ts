@@ -17,6 +17,7 @@ import { ClientsApi } from '../clients/clients-api';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
+import { DATE_FIELD, DateFieldWords, provideDateField } from '../ui/date-field';
 import { lengthText, readingText, typedLength, unitForMillimetres } from '../ui/length-text';
 import { Loader } from '../ui/loader';
 import { applyServerFieldErrors } from '../ui/server-field-errors';
@@ -47,7 +48,9 @@ export function toPence(pounds: string): number {
     MatCardModule,
     MatIconModule,
     MatProgressBarModule,
+    DATE_FIELD,
   ],
+  providers: [provideDateField()],
   templateUrl: './commission-form.html',
   styleUrl: './commission-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -57,6 +60,7 @@ export class CommissionForm {
   private readonly clientsApi = inject(ClientsApi);
   private readonly router = inject(Router);
   private readonly notices = inject(Notices);
+  protected readonly dates = inject(DateFieldWords);
 
   /** From the route when editing, `/commissions/:id/edit`; absent for a new commission. */
   readonly id = input<string>();
@@ -94,7 +98,7 @@ export class CommissionForm {
     width: new FormControl('', { nonNullable: true, validators: [lengthText(this.unitOf)] }),
     length: new FormControl('', { nonNullable: true, validators: [lengthText(this.unitOf)] }),
     unit: new FormControl<'in' | 'cm'>('in', { nonNullable: true }),
-    deadline: new FormControl('', { nonNullable: true }),
+    deadline: new FormControl<string | null>(''),
     budget: new FormControl('', { nonNullable: true, validators: [Validators.pattern(POUNDS)] }),
     notes: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(COMMISSION_TEXT_LIMITS.notes)] }),
   });
@@ -239,7 +243,7 @@ export class CommissionForm {
 /** The form's values as they would be sent: trimmed, empty text as null, pounds as pence. */
 function sentValues(v: {
   title: string; kind: CommissionKind; recipient: string; ageGroup: AgeGroup; occasion: string; sizePreset: string;
-  width: string; length: string; unit: 'in' | 'cm'; deadline: string; budget: string; notes: string;
+  width: string; length: string; unit: 'in' | 'cm'; deadline: string | null; budget: string; notes: string;
 }) {
   return {
     title: v.title.trim(),

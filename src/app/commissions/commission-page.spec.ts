@@ -66,6 +66,7 @@ const studioSettings = {
   validityDays: 30,
   paymentTerms: '',
   blockMinutes: {},
+  locale: 'en-GB',
 };
 
 describe('CommissionPage', () => {
@@ -171,7 +172,12 @@ describe('CommissionPage', () => {
     expect(await (await field('Hours')).getTextErrors()).toEqual(['Quarter hours from 0.25 to 24']);
 
     await hours.setValue('1.75');
-    await (await (await field('Date')).getControl(MatInputHarness))!.setValue('2026-11-30');
+    const day = (await (await field('Date')).getControl(MatInputHarness))!;
+    await day.setValue('31/11/2026');
+    await log.click();
+    httpMock.expectNone('/api/commissions/3/hours');
+    expect(await (await field('Date')).getTextErrors()).toEqual(['Type the date as DD/MM/YYYY, with a four-digit year, or pick it from the calendar']);
+    await day.setValue('30/11/2026');
     await log.click();
     const request = httpMock.expectOne('/api/commissions/3/hours');
     expect(request.request.body).toEqual({ stage: 'booked', hours: 1.75, workedOn: '2026-11-30' });

@@ -28,6 +28,7 @@ import { QuoteSection } from '../quotes/quote-section';
 import { CautionCards } from '../ui/caution-cards';
 import { showMillimetres } from '../ui/length-text';
 import { LoadStatus } from '../ui/load-status';
+import { DATE_FIELD, DateFieldWords, provideDateField } from '../ui/date-field';
 import { Loader } from '../ui/loader';
 import { Photo } from '../ui/photo';
 import { PhotoGallery } from '../ui/photo-gallery';
@@ -58,7 +59,9 @@ import { GarmentIntake } from './garment-intake';
     QuoteSection,
     LoadStatus,
     DeliveryChecklist,
+    DATE_FIELD,
   ],
+  providers: [provideDateField()],
   templateUrl: './commission-page.html',
   styleUrl: './commission-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -67,6 +70,7 @@ export class CommissionPage {
   private readonly api = inject(CommissionsApi);
   private readonly notices = inject(Notices);
   private readonly auth = inject(Auth);
+  protected readonly dates = inject(DateFieldWords);
 
   /** From the route, `/commissions/:id`. */
   readonly id = input.required<string>();
@@ -108,7 +112,7 @@ export class CommissionPage {
   protected readonly hoursForm = new FormGroup({
     stage: new FormControl<Stage>('enquiry', { nonNullable: true }),
     hours: new FormControl<number | null>(null, [Validators.required, Validators.min(0.25), Validators.max(24), quarterHours]),
-    workedOn: new FormControl(todayIso(), { nonNullable: true, validators: [Validators.required] }),
+    workedOn: new FormControl<string | null>(todayIso(), [Validators.required]),
     note: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(COMMISSION_TEXT_LIMITS.hoursNote)] }),
   });
   protected readonly loggingHours = signal(false);
@@ -186,7 +190,7 @@ export class CommissionPage {
     const v = this.hoursForm.getRawValue();
     this.loggingHours.set(true);
     this.api
-      .logHours(c.id, { stage: v.stage, hours: v.hours!, workedOn: v.workedOn, ...(v.note.trim() ? { note: v.note.trim() } : {}) })
+      .logHours(c.id, { stage: v.stage, hours: v.hours!, workedOn: v.workedOn!, ...(v.note.trim() ? { note: v.note.trim() } : {}) })
       .subscribe({
         next: () => {
           this.loggingHours.set(false);

@@ -24,6 +24,7 @@ const settings = {
   validityDays: 30,
   paymentTerms: '',
   blockMinutes: {},
+  locale: 'en-GB',
   updatedAt: '2026-12-01T10:00:00Z',
 };
 

@@ -9,6 +9,7 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { MatSlideToggleHarness } from '@angular/material/slide-toggle/testing';
 
+import { CurrentLocale } from '../core/current-locale';
 import { Notices } from '../core/notices';
 import { SettingsPage } from './settings-page';
 import { BLOCK_KINDS } from './studio-settings';
@@ -33,6 +34,7 @@ const stored = {
   remindGarmentsLate: true,
   garmentsLateDays: 14,
   calendarFeedMadeAt: null as string | null,
+  locale: 'en-GB',
   updatedAt: '2026-12-01T10:00:00Z',
 };
 
@@ -123,6 +125,39 @@ describe('SettingsPage', () => {
     request.flush({ ...stored, hourlyRatePence: 3050, depositPercent: '25.00', vatRegistered: true, vatRate: '5', vatMode: 'invoice' });
     await fixture.whenStable();
     expect(await (await input('Hourly rate (£)')).getValue()).toBe('30.50');
+  });
+
+  it('saves the locale picked and has the date fields follow it at once', async () => {
+    const locale = await (await field('Locale')).getControl(MatSelectHarness);
+    expect(await locale!.getValueText()).toBe('English (UK): 31/12/2026');
+    await locale!.open();
+    expect((await Promise.all((await locale!.getOptions()).map((o) => o.getText())))).toEqual([
+      'English (UK): 31/12/2026',
+      'English (US): 12/31/2026',
+      'English (Ireland): 31/12/2026',
+      'English (Canada): 2026-12-31',
+      'Japanese (Japan): 2026/12/31',
+    ]);
+    await locale!.clickOptions({ text: 'English (US): 12/31/2026' });
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save settings' }))).click();
+
+    const request = httpMock.expectOne({ method: 'PATCH', url: '/api/settings' });
+    expect(request.request.body).toEqual(jasmine.objectContaining({ locale: 'en-US' }));
+    expect(TestBed.inject(CurrentLocale).locale()).toBe('en-GB');
+    request.flush({ ...stored, locale: 'en-US' });
+    await fixture.whenStable();
+    expect(TestBed.inject(CurrentLocale).locale()).toBe('en-US');
+  });
+
+  it("puts the server's message about the locale under it", async () => {
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save settings' }))).click();
+    httpMock.expectOne({ method: 'PATCH' }).flush(
+      { error: { code: 'validation', message: 'Check the settings.', fields: { locale: 'Pick the studio locale from the list: en-GB, en-US, en-IE, en-CA, ja-JP.' } } },
+      { status: 400, statusText: 'Bad Request' },
+    );
+    await fixture.whenStable();
+    expect(await errors('Locale')).toEqual(['Pick the studio locale from the list: en-GB, en-US, en-IE, en-CA, ja-JP.']);
+    expect(TestBed.inject(CurrentLocale).locale()).toBe('en-GB');
   });
 
   it("puts the server's field message under the field it belongs to", async () => {

@@ -7,9 +7,10 @@ import { MatInputModule } from '@angular/material/input';
 import { MatRadioModule } from '@angular/material/radio';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
-import { SETTINGS_TEXT_LIMITS, formatPounds, parsePounds } from '@keepstitch/shared';
+import { DEFAULT_STUDIO_LOCALE, SETTINGS_TEXT_LIMITS, STUDIO_LOCALES, STUDIO_LOCALE_LABELS, type StudioLocale, formatPounds, parsePounds } from '@keepstitch/shared';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
+import { CurrentLocale } from '../core/current-locale';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { LoadStatus } from '../ui/load-status';
@@ -60,11 +61,14 @@ function minutesControl(): FormControl<number | null> {
 export class SettingsPage {
   private readonly api = inject(SettingsApi);
   private readonly notices = inject(Notices);
+  private readonly currentLocale = inject(CurrentLocale);
 
   protected readonly blockKinds = BLOCK_KINDS;
   protected readonly blockKindLabels = BLOCK_KIND_LABELS;
   protected readonly vatRates: readonly VatRate[] = ['20', '5', '0'];
   protected readonly vatRateLabels = VAT_RATE_LABELS;
+  protected readonly locales = STUDIO_LOCALES;
+  protected readonly localeLabels = STUDIO_LOCALE_LABELS;
 
   protected readonly state = signal<'loading' | 'ready' | 'failed'>('loading');
   protected readonly saving = signal(false);
@@ -77,6 +81,7 @@ export class SettingsPage {
     makerName: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(SETTINGS_TEXT_LIMITS.makerName)] }),
     address: new FormControl('', { nonNullable: true, validators: [Validators.maxLength(SETTINGS_TEXT_LIMITS.address)] }),
     email: new FormControl('', { nonNullable: true, validators: [Validators.email, Validators.maxLength(SETTINGS_TEXT_LIMITS.email)] }),
+    locale: new FormControl<StudioLocale>(DEFAULT_STUDIO_LOCALE, { nonNullable: true }),
     hourlyRate: new FormControl('', { nonNullable: true, validators: [Validators.required, poundsAmount] }),
     vatRegistered: new FormControl(false, { nonNullable: true }),
     vatRate: new FormControl<VatRate>('20', { nonNullable: true }),
@@ -125,6 +130,7 @@ export class SettingsPage {
       makerName: v.makerName.trim(),
       address: v.address.trim(),
       email: v.email.trim() || null,
+      locale: v.locale,
       hourlyRatePence: parsePounds(v.hourlyRate)!,
       vatRegistered: v.vatRegistered,
       vatRate: v.vatRate,
@@ -144,6 +150,7 @@ export class SettingsPage {
       next: (saved) => {
         this.saving.set(false);
         this.fill(saved);
+        this.currentLocale.use(saved.locale);
         this.notices.info('Settings saved.');
       },
       error: (error: unknown) => {
@@ -163,6 +170,7 @@ export class SettingsPage {
       makerName: s.makerName,
       address: s.address,
       email: s.email ?? '',
+      locale: s.locale,
       hourlyRate: formatPounds(s.hourlyRatePence).replace('\u00a3', ''),
       vatRegistered: s.vatRegistered,
       vatRate: s.vatRate,

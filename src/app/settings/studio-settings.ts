@@ -1,4 +1,4 @@
-import { BLOCK_KIND_MODULES, type BlockKind } from '@keepstitch/shared';
+import { BLOCK_KIND_MODULES, STUDIO_LOCALES, type BlockKind } from '@keepstitch/shared';
 import * as z from 'zod/mini';
 
 /** The block kinds whose sewing time the studio estimates, in the registry's order, with the settings page's name for each. */
@@ -36,6 +36,7 @@ export const studioSettingsSchema = z.object({
   garmentsLateDays: z.number(),
   /** When the calendar feed's address was made; null when there is no feed. */
   calendarFeedMadeAt: z.nullable(z.string()),
+  locale: z.enum(STUDIO_LOCALES),
 });
 export type StudioSettings = z.infer<typeof studioSettingsSchema>;
 

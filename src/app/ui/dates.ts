@@ -1,12 +1,7 @@
 /** Dates and times as the app shows them, from the ISO strings the API sends. */
 
-/** "2026-12-24" shown as "24 Dec 2026" without going through local time zones. */
-export function showDate(isoDate: string | null | undefined): string {
-  if (!isoDate) return '';
-  const [y, m, d] = isoDate.slice(0, 10).split('-').map(Number);
-  const months = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-  return `${d} ${months[m - 1]} ${y}`;
-}
+/** "2026-12-24" shown as "24 Dec 2026": the one long form the printouts use too, from the domain package. */
+export { showDate } from '@keepstitch/shared';
 
 /** Today's date in the browser's own calendar, as YYYY-MM-DD. */
 export function todayIso(): string {
