@@ -21,7 +21,7 @@ export const hashToken = (token: string) => createHash('sha256').update(token).d
 export async function issuePasswordLink(trx: Knex.Transaction, userId: number, purpose: PasswordLinkPurpose, now = new Date()): Promise<string> {
   const token = randomBytes(32).toString('base64url');
   await PasswordLinkModel.query(trx).patch({ usedAt: now }).where({ userId, purpose }).whereNull('usedAt');
-  await PasswordLinkModel.query(trx).insert({ userId, purpose, tokenHash: hashToken(token), expiresAt: new Date(now.getTime() + LINK_LIFETIME_MS[purpose]) });
+  await PasswordLinkModel.query(trx).insert({ userId, purpose, tokenHash: hashToken(token), createdAt: now, expiresAt: new Date(now.getTime() + LINK_LIFETIME_MS[purpose]) });
   return token;
 }
 
