@@ -12,6 +12,18 @@ export const pages: Routes = [
     loadComponent: () => import('./sign-in/sign-in').then((m) => m.SignIn),
   },
   {
+    path: 'forgot-password',
+    title: 'Forgot your password?',
+    canActivate: [signedOutGuard],
+    loadComponent: () => import('./sign-in/forgot-password').then((m) => m.ForgotPassword),
+  },
+  {
+    // Opened from a one-time link in an e-mail, signed in or not.
+    path: 'set-password',
+    title: 'Choose your password',
+    loadComponent: () => import('./sign-in/set-password').then((m) => m.SetPassword),
+  },
+  {
     path: 'clients',
     canActivate: [roleGuard('owner', 'workroom')],
     loadChildren: () => import('./clients/clients.routes').then((m) => m.clientsRoutes),
