@@ -5,6 +5,9 @@ import { hashToken } from '../users/password-links';
 import { RESET_REQUESTED } from './auth-router';
 import { RESET_REQUEST_MIN_MS } from './invitations';
 
+// Each case hashes several passwords with bcrypt (an invitation's unknown one, the chosen one, sign-ins).
+jest.setTimeout(15_000);
+
 /** The one-time link in the newest mail to this address, and the mail itself. */
 async function linkIn(t: TestApp, to: string, kind?: string) {
   const q = t.knex('outbox_mails').where('to_address', to).orderBy('id', 'desc');

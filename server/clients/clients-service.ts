@@ -35,22 +35,27 @@ async function invitationStateOf(client: ClientModel): Promise<InvitationState> 
   return client.invitationSentAt && users.length ? 'sent' : 'not_sent';
 }
 
-export async function getClient(user: Express.User, id: number) {
-  const client = await visibleClients(user).findById(id);
-  if (!client) throw AppError.notFound(NOT_FOUND);
+/** One client as this user may see it, with its invitation's state for the owner. */
+async function singleView(client: ClientModel, user: Express.User) {
   const view: Record<string, unknown> = clientView(client, user);
   if (mayUse('client', user.role, 'see', 'invitationState')) view['invitationState'] = await invitationStateOf(client);
   return view;
 }
 
+export async function getClient(user: Express.User, id: number) {
+  const client = await visibleClients(user).findById(id);
+  if (!client) throw AppError.notFound(NOT_FOUND);
+  return singleView(client, user);
+}
+
 export async function createClient(user: Express.User, input: CreateClientInput) {
-  return clientView(await ClientModel.query().insertAndFetch({ ...input, portfolioConsent: input.portfolioConsent ?? false }), user);
+  return singleView(await ClientModel.query().insertAndFetch({ ...input, portfolioConsent: input.portfolioConsent ?? false }), user);
 }
 
 export async function updateClient(user: Express.User, id: number, input: UpdateClientInput) {
   const client = await ClientModel.query().patchAndFetchById(id, input);
   if (!client) throw AppError.notFound(NOT_FOUND);
-  return clientView(client, user);
+  return singleView(client, user);
 }
 
 /** Deletes a client and their portal sign-in; records of work attached to them keep it from going. */
