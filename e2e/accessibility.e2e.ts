@@ -59,6 +59,16 @@ describe('accessibility, end to end', () => {
     expect(problems).toEqual([]);
   });
 
+  it('finds nothing on the pages for a forgotten password and for choosing one from a link', async () => {
+    const { page, problems } = await openPage(browser);
+    const found = await check(page, ['/forgot-password', '/set-password?token=not-a-real-token']);
+    await page.getByRole('button', { name: 'Save password and sign in' }).click();
+    await page.getByText('Enter a new password').waitFor();
+    found.push(...(await problemsOn(page)));
+    expect(found).toEqual([]);
+    expect(problems).toEqual([]);
+  });
+
   it('finds nothing on the owner’s commission pages', async () => {
     const { page, problems } = await signedIn(DEMO_ACCOUNTS.owner);
     const { commission, garment } = await workShirt(page);

@@ -14,6 +14,7 @@ import { assertPolicyCovered } from './core/secured-router';
 import { configurePassport } from './auth/passport-setup';
 import { createCsrf } from './auth/csrf';
 import { authRouter } from './auth/auth-router';
+import { invitationsRouter } from './auth/invitations-router';
 import { SessionStore } from './auth/session-store';
 import { SignInLimits, signedCookieSecret } from './auth/sign-in-limits';
 import { healthRouter } from './health/health-router';
@@ -123,9 +124,12 @@ export function createApp({ config, knex, sessionPool, log, kickMail = () => und
       }),
       sessionCookieName: SESSION_COOKIE,
       passport,
+      appUrl: config.appUrl,
+      kickMail,
     }),
   );
   app.use(clientsRouter());
+  app.use(invitationsRouter(config.appUrl, kickMail));
   app.use(usersRouter());
   app.use(commissionsRouter());
   app.use(workroomRouter(config, kickMail));

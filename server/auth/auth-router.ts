@@ -1,8 +1,11 @@
+import { setTimeout as sleep } from 'node:timers/promises';
 import type { NextFunction, Request, Response } from 'express';
 import { AppError } from '../core/app-error';
 import { securedRouter, signedInUser } from '../core/secured-router';
 import { parseInput } from '../core/validate';
-import { changePasswordSchema, signInSchema } from './auth-schemas';
+import { changePasswordSchema, forgotPasswordSchema, setPasswordSchema, signInSchema } from './auth-schemas';
+import { RESET_REQUEST_MIN_MS, requestPasswordReset } from './invitations';
+import { setPasswordWithLink } from '../users/password-links';
 import { changeOwnPassword } from '../users/users-service';
 import type { createCsrf } from './csrf';
 import type { configurePassport } from './passport-setup';
@@ -15,9 +18,16 @@ interface AuthRouterOptions {
   sessionCookieName: string;
   /** The app's passport instance (server/auth/passport-setup.ts). */
   passport: ReturnType<typeof configurePassport>;
+  /** Where the links in mails point (APP_URL). */
+  appUrl: string;
+  /** Starts delivering the outbox now. */
+  kickMail: () => void;
 }
 
-export function authRouter({ csrf, limits, sessionCookieName, passport }: AuthRouterOptions) {
+/** The answer to "forgot password", whether or not the address has a sign-in. */
+export const RESET_REQUESTED = 'If that e-mail address has a sign-in, a link to choose a new password is on its way. It works once, for an hour.';
+
+export function authRouter({ csrf, limits, sessionCookieName, passport, appUrl, kickMail }: AuthRouterOptions) {
   const r = securedRouter('/api/auth');
 
   r.get('/me', (req, res) => {
@@ -51,6 +61,28 @@ export function authRouter({ csrf, limits, sessionCookieName, passport }: AuthRo
       (err) => err instanceof AppError && err.fields?.['currentPassword'] !== undefined,
     );
     // Every session has ended, this one too: start a new one so whoever changed it stays signed in.
+    req.login(user, (loginErr) => {
+      if (loginErr) return next(loginErr);
+      csrf.issueToken(req, res, true);
+      res.json({ user });
+    });
+  });
+
+  // The same answer, after about the same time, whether or not the address has a sign-in.
+  r.post('/forgot-password', async (req, res) => {
+    const started = Date.now();
+    const { email } = parseInput(forgotPasswordSchema, req.body, 'request');
+    await limits.resetRequest(req, email, () => requestPasswordReset(email, appUrl));
+    kickMail();
+    const wait = RESET_REQUEST_MIN_MS - (Date.now() - started);
+    if (wait > 0) await sleep(wait);
+    res.status(202).json({ message: RESET_REQUESTED });
+  });
+
+  // A one-time link from an invitation or a reset: the password is set, other sessions end, and this one begins.
+  r.post('/set-password', async (req, res, next) => {
+    const { token, password } = parseInput(setPasswordSchema, req.body, 'password');
+    const user = (await limits.useLink(req, () => setPasswordWithLink(token, password))).toPublic();
     req.login(user, (loginErr) => {
       if (loginErr) return next(loginErr);
       csrf.issueToken(req, res, true);

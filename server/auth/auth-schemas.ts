@@ -15,3 +15,16 @@ export const changePasswordSchema = z
   })
   .strict()
   .refine((b) => b.newPassword !== b.currentPassword, { message: 'Choose a new password that differs from the current one.', path: ['newPassword'] });
+
+export const forgotPasswordSchema = z
+  .object({
+    email: z.string({ message: 'Enter your e-mail address.' }).trim().min(1, 'Enter your e-mail address.').max(254, 'An e-mail address can be at most 254 characters.'),
+  })
+  .strict();
+
+export const setPasswordSchema = z
+  .object({
+    token: z.string({ message: 'This link is not complete: open it again from the e-mail.' }).min(1, 'This link is not complete: open it again from the e-mail.').max(200, 'This link is not right: open it again from the e-mail.'),
+    password: passwordSchema,
+  })
+  .strict();

@@ -57,6 +57,8 @@ export class SignInLimits {
   private readonly accounts: RateLimiterPostgres;
   private readonly addresses: RateLimiterPostgres;
   private readonly browsers: RateLimiterPostgres;
+  private readonly linkAddresses: RateLimiterPostgres;
+  private readonly linkAccounts: RateLimiterPostgres;
 
   constructor(private readonly options: SignInLimitOptions) {
     const limiter = (keyPrefix: string, points: number, clearExpiredByTimeout: boolean) =>
@@ -74,6 +76,8 @@ export class SignInLimits {
     this.accounts = limiter('account', options.accountLimit, true);
     this.addresses = limiter('address', options.addressLimit * ADDRESS_REFUSE_FACTOR, false);
     this.browsers = limiter('browser', options.accountLimit, false);
+    this.linkAddresses = limiter('link-address', options.addressLimit, false);
+    this.linkAccounts = limiter('link-account', options.accountLimit, false);
   }
 
   /**
@@ -127,6 +131,36 @@ export class SignInLimits {
       return done;
     } catch (err) {
       if (!wrong(err)) await this.accounts.reward(key);
+      throw err;
+    }
+  }
+
+  /**
+   * Runs a "forgot password" request within its limits: `addressLimit`
+   * requests from one address and `accountLimit` for one e-mail per window.
+   * The e-mail's counter is kept whether or not it has a sign-in, so a refusal
+   * says nothing about the address.
+   */
+  async resetRequest<T>(req: Request, email: string, run: () => Promise<T>): Promise<T> {
+    const address = req.ip ?? 'unknown';
+    await this.take(this.linkAddresses, address, 'Too many requests for a new password from here.');
+    await this.take(this.linkAccounts, `reset:${this.accountName(email)}`, 'Too many requests for a new password for this e-mail address.');
+    return run();
+  }
+
+  /**
+   * Runs the use of a password link within its address's limit: only links
+   * that fail (unknown, used or old) count, so guessing at tokens is refused.
+   */
+  async useLink<T>(req: Request, run: () => Promise<T>): Promise<T> {
+    const address = req.ip ?? 'unknown';
+    await this.take(this.linkAddresses, address, 'Too many tries with password links from here.');
+    try {
+      const done = await run();
+      await this.linkAddresses.reward(address);
+      return done;
+    } catch (err) {
+      if (!(err instanceof AppError && err.code === 'bad_link')) await this.linkAddresses.reward(address);
       throw err;
     }
   }

@@ -1,5 +1,5 @@
 import { AppError } from '../core/app-error';
-import { fieldsFor, present, sortFor, whereMatches } from '../core/field-policy';
+import { fieldsFor, mayUse, present, sortFor, whereMatches } from '../core/field-policy';
 import { pageOf } from '../core/paging';
 import { UserModel } from '../models/user-model';
 import { ClientModel } from '../models/client-model';
@@ -9,7 +9,7 @@ const NOT_FOUND = 'That client';
 
 /** Starts a query over the clients this user may see, with the columns their role may see. */
 function visibleClients(user: Express.User) {
-  const query = ClientModel.query().select(fieldsFor('client', user.role, 'see').map((f) => `clients.${f}`));
+  const query = ClientModel.query().select(fieldsFor('client', user.role, 'see').filter((f) => f !== 'invitationState').map((f) => `clients.${f}`));
   if (user.role === 'client') query.where('id', user.clientId ?? -1);
   return query;
 }
@@ -26,20 +26,36 @@ export async function listClients(user: Express.User, q: ListClientsQuery) {
   return { items: results.map((c) => clientView(c, user)), total };
 }
 
+/** Where the client's invitation to their page stands: never sent, sent and not yet used, or they can sign in. */
+export type InvitationState = 'not_sent' | 'sent' | 'accepted';
+
+async function invitationStateOf(client: ClientModel): Promise<InvitationState> {
+  const users = await UserModel.query().select('awaitingPassword').where('clientId', client.id);
+  if (users.some((u) => !u.awaitingPassword)) return 'accepted';
+  return client.invitationSentAt && users.length ? 'sent' : 'not_sent';
+}
+
+/** One client as this user may see it, with its invitation's state for the owner. */
+async function singleView(client: ClientModel, user: Express.User) {
+  const view: Record<string, unknown> = clientView(client, user);
+  if (mayUse('client', user.role, 'see', 'invitationState')) view['invitationState'] = await invitationStateOf(client);
+  return view;
+}
+
 export async function getClient(user: Express.User, id: number) {
   const client = await visibleClients(user).findById(id);
   if (!client) throw AppError.notFound(NOT_FOUND);
-  return clientView(client, user);
+  return singleView(client, user);
 }
 
 export async function createClient(user: Express.User, input: CreateClientInput) {
-  return clientView(await ClientModel.query().insertAndFetch({ ...input, portfolioConsent: input.portfolioConsent ?? false }), user);
+  return singleView(await ClientModel.query().insertAndFetch({ ...input, portfolioConsent: input.portfolioConsent ?? false }), user);
 }
 
 export async function updateClient(user: Express.User, id: number, input: UpdateClientInput) {
   const client = await ClientModel.query().patchAndFetchById(id, input);
   if (!client) throw AppError.notFound(NOT_FOUND);
-  return clientView(client, user);
+  return singleView(client, user);
 }
 
 /** Deletes a client and their portal sign-in; records of work attached to them keep it from going. */

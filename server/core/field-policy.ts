@@ -49,6 +49,10 @@ export const FIELD_POLICY = {
       /** The studio's own notes about the client. */
       notes: { see: OWNER },
       portfolioConsent: { see: OWNER_CLIENT },
+      /** The invitation to the client's page: the owner's business, never the workroom's. */
+      invitationSentAt: { see: OWNER },
+      // Worked out by the service: not_sent, sent or accepted.
+      invitationState: { see: OWNER },
       createdAt: { see: OWNER_CLIENT, sort: OWNER_CLIENT },
       updatedAt: { see: OWNER_CLIENT },
     },
@@ -180,6 +184,7 @@ export const FIELD_POLICY = {
       clientId: { see: ALL },
       passwordHash: { see: NOBODY },
       passwordChangedAt: { see: NOBODY },
+      awaitingPassword: { see: NOBODY },
       createdAt: { see: NOBODY },
       updatedAt: { see: NOBODY },
     },

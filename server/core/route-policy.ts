@@ -24,12 +24,16 @@ export const ROUTE_POLICY = {
   'POST /api/auth/sign-in': EVERYONE,
   'POST /api/auth/sign-out': EVERYONE,
   'POST /api/auth/password': SIGNED_IN,
+  // One-time links to choose a password (invitations and "forgot password").
+  'POST /api/auth/forgot-password': EVERYONE,
+  'POST /api/auth/set-password': EVERYONE,
 
   'GET /api/clients': SIGNED_IN,
   'POST /api/clients': OWNER,
   'GET /api/clients/:id': SIGNED_IN,
   'PATCH /api/clients/:id': OWNER,
   'DELETE /api/clients/:id': OWNER,
+  'POST /api/clients/:id/invitation': OWNER,
 
   'GET /api/users': OWNER,
   'POST /api/users': OWNER,

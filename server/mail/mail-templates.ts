@@ -15,17 +15,55 @@ export interface Mail {
   html: string;
 }
 
-export function quoteMail(p: { clientName: string; studioName: string; title: string; version: number; totalPence: number; depositPence: number; validUntil: string; link: string }): Mail {
+/**
+ * The quote. A client with no sign-in yet gets `invitationLink` too: the
+ * one-time link to choose a password, which then opens their page.
+ */
+export function quoteMail(p: { clientName: string; studioName: string; title: string; version: number; totalPence: number; depositPence: number; validUntil: string; link: string; invitationLink?: string | null }): Mail {
   const lines = [
     `Dear ${p.clientName},`,
     `Your quote for "${p.title}" (version ${p.version}) is attached as a PDF. The total is ${formatPounds(p.totalPence)}, with a deposit of ${formatPounds(p.depositPence)} to book your place.`,
-    `The quote is valid until ${p.validUntil}. You can read it, accept it or decline it, and pay the deposit, when signed in to your page:`,
   ];
+  const subject = `Your quote from ${p.studioName}: ${p.title}`;
+  if (p.invitationLink) {
+    lines.push(
+      `The quote is valid until ${p.validUntil}. You can read it, accept it or decline it, and pay the deposit, on your own page. You do not have a sign-in yet: choose a password with this link (it works once, for ${INVITATION_DAYS} days), then open the quote:`,
+    );
+    return {
+      subject,
+      text: `${lines.join('\n\n')}\n${p.invitationLink}\n\nYour quote: ${p.link}\n\nWith thanks,\n${p.studioName}\n`,
+      html: html(lines, { href: p.invitationLink, label: 'Choose your password' }),
+    };
+  }
+  lines.push(`The quote is valid until ${p.validUntil}. You can read it, accept it or decline it, and pay the deposit, when signed in to your page:`);
   return {
-    subject: `Your quote from ${p.studioName}: ${p.title}`,
+    subject,
     text: `${lines.join('\n\n')}\n${p.link}\n\nWith thanks,\n${p.studioName}\n`,
     html: html([...lines], { href: p.link, label: 'Open your quote' }) + '',
   };
+}
+
+/** Days an invitation link works (the server's LINK_LIFETIME_MS says the same). */
+export const INVITATION_DAYS = 7;
+
+/** To a client: an invitation to their page, with the one-time link to choose a password. */
+export function invitationMail(p: { clientName: string; studioName: string; link: string }): Mail {
+  const lines = [
+    `Dear ${p.clientName},`,
+    `${p.studioName} has made you a page where you can follow your commissions, read and accept quotes and pay.`,
+    `Choose a password with this link to sign in. It works once, for ${INVITATION_DAYS} days; if it has run out, ask ${p.studioName} to send it again.`,
+  ];
+  return { subject: `Your page at ${p.studioName}: choose a password`, text: `${lines.join('\n\n')}\n${p.link}\n\n${p.studioName}\n`, html: html(lines, { href: p.link, label: 'Choose your password' }) };
+}
+
+/** To anyone who asked on the sign-in page: the one-time link to choose a new password. */
+export function passwordResetMail(p: { name: string; studioName: string; link: string }): Mail {
+  const lines = [
+    `Dear ${p.name},`,
+    'Someone, probably you, asked to choose a new password for your sign-in. Use this link within an hour; it works once.',
+    'If you did not ask, ignore this e-mail: your password stays as it is.',
+  ];
+  return { subject: `Choose a new password for ${p.studioName}`, text: `${lines.join('\n\n')}\n${p.link}\n\n${p.studioName}\n`, html: html(lines, { href: p.link, label: 'Choose a new password' }) };
 }
 
 export function receiptMail(p: { clientName: string; studioName: string; title: string; kind: 'deposit' | 'balance'; amountPence: number; paidAt: Date; link: string }): Mail {

@@ -10,6 +10,8 @@ export class ClientModel extends Model {
   address!: string | null;
   notes!: string | null;
   portfolioConsent!: boolean;
+  /** When the portal invitation was last sent (null: never). */
+  invitationSentAt!: Date | null;
   createdAt!: Date;
   updatedAt!: Date;
 

@@ -12,6 +12,8 @@ export class UserModel extends Model {
   clientId!: number | null;
   passwordHash!: string;
   passwordChangedAt!: Date;
+  /** Made by an invitation and its link not used yet: no password of its own. */
+  awaitingPassword!: boolean;
   createdAt!: Date;
   updatedAt!: Date;
 

@@ -11,6 +11,7 @@ import { CommissionModel, StageMoveModel } from '../models/commission-model';
 import { findVisibleCommission } from '../commissions/commission-access';
 import { enqueueMail } from '../mail/outbox-service';
 import { quoteMail } from '../mail/mail-templates';
+import { clientHasSignIn, inviteWithin } from '../auth/invitations';
 import { StudioSettingsModel } from '../models/settings-model';
 import { QuoteLineModel, QuoteModel } from '../models/quote-model';
 import { latestVersion } from '../designs/designs-service';
@@ -193,6 +194,12 @@ export async function sendQuote(user: Express.User, id: number, config: AppConfi
     const data = await pdfData(sent);
     const pdf = await quotePdf(data);
     const link = `${config.appUrl}/portal/${commission.id}?quote=${id}`;
+    // A client who cannot sign in yet gets an invitation with the quote (unless their e-mail is someone else's sign-in).
+    const invitationLink = (await clientHasSignIn(trx, client.id)) ? null : await inviteWithin(trx, client, config.appUrl).catch((err: unknown) => {
+      // Its e-mail belongs to another sign-in (checked before anything is written): the quote goes without the invitation.
+      if (err instanceof AppError && err.code === 'conflict') return null;
+      throw err;
+    });
     const mail = quoteMail({
       clientName: client.name,
       studioName: settings.studioName,
@@ -202,6 +209,7 @@ export async function sendQuote(user: Express.User, id: number, config: AppConfi
       depositPence: totals.depositPence,
       validUntil: new Date(`${validUntil}T12:00:00Z`).toLocaleDateString('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' }),
       link,
+      invitationLink,
     });
     await enqueueMail(trx, { kind: 'quote', to: client.email, ...mail, commissionId: commission.id, attachments: [{ filename: `quote-${commission.id}-v${q.version}.pdf`, contentType: 'application/pdf', content: pdf }] });
     return quoteView(sent, user.role);

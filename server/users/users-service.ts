@@ -32,7 +32,7 @@ export async function createUser(input: CreateUserInput) {
 export async function resetPassword(id: number, password: string): Promise<void> {
   const passwordHash = await hashPassword(password);
   await UserModel.transaction(async (trx) => {
-    const count = await UserModel.query(trx).patch({ passwordHash, passwordChangedAt: new Date() }).findById(id);
+    const count = await UserModel.query(trx).patch({ passwordHash, passwordChangedAt: new Date(), awaitingPassword: false }).findById(id);
     if (!count) throw AppError.notFound('That user');
     await trx.raw(`DELETE FROM session WHERE (sess -> 'passport' -> 'user' ->> 'id')::int = ?`, [id]);
   });

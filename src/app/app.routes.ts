@@ -18,6 +18,18 @@ export const pages: Routes = [
     loadComponent: () => import('./overview/overview-page').then((m) => m.OverviewPage),
   },
   {
+    path: 'forgot-password',
+    title: 'Forgot your password?',
+    canActivate: [signedOutGuard],
+    loadComponent: () => import('./sign-in/forgot-password').then((m) => m.ForgotPassword),
+  },
+  {
+    // Opened from a one-time link in an e-mail, signed in or not.
+    path: 'set-password',
+    title: 'Choose your password',
+    loadComponent: () => import('./sign-in/set-password').then((m) => m.SetPassword),
+  },
+  {
     path: 'clients',
     canActivate: [roleGuard('owner', 'workroom')],
     loadChildren: () => import('./clients/clients.routes').then((m) => m.clientsRoutes),

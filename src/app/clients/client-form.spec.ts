@@ -207,4 +207,55 @@ describe('ClientForm', () => {
     await fixture.whenStable();
     expect(navigateByUrl).toHaveBeenCalledWith('/clients');
   });
+
+  const text = (testId: string) => (fixture.nativeElement.querySelector(`[data-testid=${testId}]`)?.textContent ?? '').replace(/\s+/g, ' ').trim();
+
+  it('invites a stored client to their page, then shows the invitation as sent and offers to send it again', async () => {
+    await setUp('7');
+    httpMock.expectOne('/api/clients/7').flush({ ...stored, invitationState: 'not_sent', invitationSentAt: null });
+    await fixture.whenStable();
+    expect(text('invitation-state')).toMatch(/^Not invited yet/);
+
+    await (await button(/Invite to their page$/)).click();
+    const request = httpMock.expectOne({ method: 'POST', url: '/api/clients/7/invitation' });
+    request.flush({ ...stored, invitationState: 'sent', invitationSentAt: '2026-12-04T20:00:00Z' });
+    await fixture.whenStable();
+
+    expect(text('invitation-state')).toBe('Invitation sent on 4 Dec 2026, not used yet. The link works for 7 days.');
+    expect(await (await button(/Send the invitation again$/)).isDisabled()).toBeFalse();
+  });
+
+  it('cannot invite a client without a saved e-mail address, and says what to do', async () => {
+    await setUp('7');
+    httpMock.expectOne('/api/clients/7').flush({ ...stored, email: null, invitationState: 'not_sent', invitationSentAt: null });
+    await fixture.whenStable();
+    expect(await (await button(/Invite to their page$/)).isDisabled()).toBeTrue();
+    expect(fixture.nativeElement.textContent).toContain('Add an e-mail address and save before inviting them.');
+  });
+
+  it("shows the server's reason when an invitation is refused, and no button once the client can sign in", async () => {
+    await setUp('7');
+    httpMock.expectOne('/api/clients/7').flush({ ...stored, invitationState: 'sent', invitationSentAt: '2026-12-01T09:00:00Z' });
+    await fixture.whenStable();
+    await (await button(/Send the invitation again$/)).click();
+    httpMock
+      .expectOne('/api/clients/7/invitation')
+      .flush({ error: { code: 'conflict', message: 'marigold@example.test is already the sign-in of someone else.' } }, { status: 409, statusText: 'Conflict' });
+    await fixture.whenStable();
+    expect(text('invite-error')).toBe('marigold@example.test is already the sign-in of someone else.');
+
+    TestBed.resetTestingModule();
+    await setUp('7');
+    httpMock.expectOne('/api/clients/7').flush({ ...stored, invitationState: 'accepted', invitationSentAt: '2026-12-01T09:00:00Z' });
+    await fixture.whenStable();
+    expect(text('invitation-state')).toBe('Can sign in to their page.');
+    expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /invitation|Invite/ }))).toHaveSize(0);
+  });
+
+  it('shows nothing about invitations to someone the server sends no invitation state (the workroom)', async () => {
+    await setUp('7');
+    httpMock.expectOne('/api/clients/7').flush(stored);
+    await fixture.whenStable();
+    expect(fixture.nativeElement.querySelector('[data-testid=invitation-state]')).toBeNull();
+  });
 });

@@ -24,6 +24,7 @@ import { filter, switchMap, tap } from 'rxjs';
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
+import { showDate } from '../ui/dates';
 import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { Client, ClientDraft } from './client';
 import { ClientsApi } from './clients-api';
@@ -100,6 +101,15 @@ export class ClientForm implements OnInit {
   protected readonly saving = signal(false);
   protected readonly deleting = signal(false);
   protected readonly formError = signal<string | null>(null);
+  protected readonly inviting = signal(false);
+  protected readonly inviteError = signal<string | null>(null);
+  /** The invitation to the client's page, as the owner sees it (absent for anyone else). */
+  protected readonly invitation = computed(() => {
+    const client = this.record();
+    if (!client?.invitationState) return null;
+    const sentOn = client.invitationSentAt ? showDate(client.invitationSentAt.slice(0, 10)) : null;
+    return { state: client.invitationState, sentOn, hasEmail: client.email !== null };
+  });
 
   constructor() {
     keepUnsavedWork(() => this.form.dirty);
@@ -198,7 +208,28 @@ export class ClientForm implements OnInit {
       });
   }
 
-  protected cancel(): void {
+  /** Sends the invitation to the saved e-mail address (again), then shows its new state. */
+  protected inviteClient(): void {
+    const client = this.record();
+    if (!client || this.inviting()) {
+      return;
+    }
+    this.inviting.set(true);
+    this.inviteError.set(null);
+    this.api.invite(client.id).subscribe({
+      next: (updated) => {
+        this.inviting.set(false);
+        this.record.set(updated);
+        this.notices.info(`Invitation sent to ${updated.email ?? client.email ?? client.name}`);
+      },
+      error: (error: unknown) => {
+        this.inviting.set(false);
+        this.inviteError.set(apiErrorOf(error)?.message ?? messageFor(error));
+      },
+    });
+  }
+
+    protected cancel(): void {
     void this.router.navigateByUrl('/clients');
   }
 

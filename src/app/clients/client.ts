@@ -11,8 +11,13 @@ export const clientSchema = z.object({
   portfolioConsent: z.boolean(),
   createdAt: z.string(),
   updatedAt: z.string(),
+  /** When the invitation to the client's page was last sent (null: never). */
+  invitationSentAt: z.optional(z.nullable(z.string())),
+  /** Sent with a single record only: never sent, sent and not used yet, or the client can sign in. */
+  invitationState: z.optional(z.enum(['not_sent', 'sent', 'accepted'])),
 });
 export type Client = z.infer<typeof clientSchema>;
+export type InvitationState = NonNullable<Client['invitationState']>;
 
 /**
  * A row of the client list. The workroom receives only id and name;

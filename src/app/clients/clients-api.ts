@@ -1,4 +1,4 @@
-import { HttpClient, HttpParams } from '@angular/common/http';
+import { HttpClient, HttpContext, HttpParams } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 import * as z from 'zod/mini';
@@ -11,6 +11,7 @@ import {
   clientPageSchema,
   clientSchema,
 } from './client';
+import { REPORT_API_ERRORS } from '../core/api-error';
 
 const ownPageSchema = z.object({ items: z.array(clientSchema) });
 
@@ -54,7 +55,18 @@ export class ClientsApi {
       .pipe(map((body) => clientSchema.parse(body)));
   }
 
-  remove(id: number): Observable<void> {
+  /**
+   * Invites the client to their page (again): a new one-time link goes to
+   * their saved e-mail address and an earlier one stops working. Errors are
+   * left to the form, which shows what to do.
+   */
+  invite(id: number): Observable<Client> {
+    return this.http
+      .post<unknown>(`${this.base}/${id}/invitation`, null, { context: new HttpContext().set(REPORT_API_ERRORS, false) })
+      .pipe(map((body) => clientSchema.parse(body)));
+  }
+
+    remove(id: number): Observable<void> {
     return this.http.delete<void>(`${this.base}/${id}`).pipe(map(() => undefined));
   }
 }
