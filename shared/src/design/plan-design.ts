@@ -98,6 +98,12 @@ export interface DesignPlanSummary {
   garments: GarmentUse[];
   shortfall: ShortLine[];
   minimumsShort: { garmentId: number; description: string; required: number; achieved: number; detail: string }[];
+  /**
+   * Garments used in the piece (with panels, not marked not used) that give no
+   * piece at all: the loud warning of a memory piece missing a garment. Absent
+   * on plans stored before this was listed.
+   */
+  garmentsGivingNone?: { garmentId: number; description: string; message: string }[];
   shopping: ShoppingLine[];
   /** Each kept feature the plan holds whole, and the copy of the block piece cut around it. Absent on plans stored before this was listed. */
   keptFeatures?: KeptFeaturePiece[];
@@ -234,12 +240,22 @@ export function planDesign(body: DesignBody, derivation: DesignDerivation, sourc
     detail: m.detail,
   }));
 
+  const unused = new Set(body.rules.unusedGarmentIds ?? []);
+  const garmentsGivingNone = sources.garments
+    .filter((g) => g.panels.length > 0 && !unused.has(g.id) && (garments.find((u) => u.garmentId === g.id)?.piecesCut ?? 0) === 0)
+    .map((g) => ({
+      garmentId: g.id,
+      description: g.description,
+      message: `${g.description} gives no piece to this quilt. Give it a block or a group of garments in the table, choose a smaller block so its panels hold a piece, or mark it not used.`,
+    }));
+
   const { shopping, binding, backing, wadding } = planFinishing(body, derivation, sources.stock, plan);
   return {
     plan,
     garments,
     shortfall,
     minimumsShort,
+    garmentsGivingNone,
     shopping,
     keptFeatures,
     binding,
