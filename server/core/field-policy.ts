@@ -87,6 +87,8 @@ export const FIELD_POLICY = {
       progressPhotos: { see: ALL },
       stageHistory: { see: ALL },
       hours: { see: STUDIO },
+      /** Quoted against logged hours and the labour margin: money, so the owner only. */
+      hoursCompared: { see: OWNER },
       nextStages: { see: STUDIO },
       /** Every other stage, allowed or refused with the reason. */
       stageOptions: { see: STUDIO },

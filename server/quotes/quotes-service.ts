@@ -1,4 +1,4 @@
-import { cautionsFor, quoteTotals, suggestQuoteLines, type QuoteTotals } from '@keepstitch/shared';
+import { cautionsFor, learnedRatios, mainBlockKind, quoteTotals, suggestQuote, type QuoteTotals } from '@keepstitch/shared';
 import type { Knex } from 'knex';
 import { AppError } from '../core/app-error';
 import { nextVersion } from '../core/paging';
@@ -17,6 +17,7 @@ import { QuoteLineModel, QuoteModel } from '../models/quote-model';
 import { latestVersion } from '../designs/designs-service';
 import { StockFabricModel } from '../models/stock-fabric-model';
 import { quotePdf } from './quote-pdf';
+import { finishedCommissions } from './labour-history';
 import type { QuoteInput } from './quotes-schemas';
 
 const NOT_FOUND = 'That quote';
@@ -239,21 +240,27 @@ export async function declineQuote(user: Express.User, id: number, note: string 
   });
 }
 
+/** The stages a quote's labour lines price. */
+const LABOUR_STAGES = ['preparation', 'cutting', 'piecing', 'quilting', 'binding'];
+
 /**
- * Lines for a new quote priced from the commission's current design: studio
- * fabric to buy, stabiliser for knits, and labour by stage from the studio's
- * minutes per block kind and the size. Null when there is no design yet.
+ * Lines for a new quote priced from the commission's current design: every
+ * studio fabric the plan uses at its stock cost, and labour by stage from the
+ * studio's minutes per block kind and the size; notes for what is left out
+ * unpriced; and, per stage, how far logged hours ran from quoted ones on the
+ * last finished commissions, for the maker to accept or not. No lines when
+ * there is no design yet.
  */
 export async function suggestLines(user: Express.User, commissionId: number) {
   await findVisibleCommission(user, commissionId);
-  const design = await latestVersion(commissionId);
-  if (!design) return { designVersion: null, lines: [] };
+  const [design, history] = await Promise.all([latestVersion(commissionId), finishedCommissions(commissionId)]);
+  if (!design) return { designVersion: null, lines: [], notes: [], learned: learnedRatios(history, null, LABOUR_STAGES) };
   const [settings, stock, garments] = await Promise.all([
     StudioSettingsModel.current(),
     StockFabricModel.query().select('id', 'name', 'costPence', 'costUnit'),
     CommissionModel.relatedQuery('garments').for(commissionId).select('garments.id', 'garments.construction'),
   ]);
-  const lines = suggestQuoteLines({
+  const { lines, notes } = suggestQuote({
     body: design.body,
     derived: design.derived,
     plan: design.plan,
@@ -263,5 +270,5 @@ export async function suggestLines(user: Express.User, commissionId: number) {
     knitGarments: garments.filter((g) => g.construction === 'knit').length,
     garments: garments.length,
   });
-  return { designVersion: design.version, lines };
+  return { designVersion: design.version, lines, notes, learned: learnedRatios(history, mainBlockKind(design.body, design.derived), LABOUR_STAGES) };
 }

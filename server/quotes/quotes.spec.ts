@@ -126,7 +126,7 @@ describe('quote lines from the design', () => {
     const commission = await addCommission(t.knex, c.clientId!);
     const res = await owner.get(`/api/commissions/${commission}/quote-suggestion`);
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ designVersion: null, lines: [] });
+    expect(res.body).toEqual({ designVersion: null, lines: [], notes: [], learned: [] });
   });
 
   it('prices labour by stage at the hourly rate from a saved design, as lines the quote accepts', async () => {
@@ -178,5 +178,66 @@ describe('quote lines from the design', () => {
     const piecing = res.body.lines.find((l: { stage: string }) => l.stage === 'piecing');
     // Hand-worked: 20 blocks x 30 min = 600 min = 10 h (the 15-minute default would give 5 h).
     expect(piecing).toMatchObject({ kind: 'labour', quantity: '10.00' });
+  });
+
+  const inch = (n: number) => String(n * 25.4);
+  const squares = (finishing: Record<string, unknown>) => ({
+    units: 'imperial',
+    target: { preset: null, dropMm: null, widthMm: inch(40), lengthMm: inch(50) },
+    layout: { setting: 'straight', rows: 5, columns: 4, blockMm: inch(10), sashing: null, borders: ['76.2'] },
+    blocks: [{ id: 'A', name: 'Square', kind: 'square' }],
+    pattern: ['A'],
+    assignments: [] as unknown[],
+    finishing: { bindingStockId: null, bindingStripMm: inch(2.5), backingStockId: null, waddingStockId: null, prewash: false, shrinkPercent: '0', ...finishing },
+    rules: { minimumPerGarment: 0 },
+  });
+
+  it('prices every studio fabric the plan uses from stock at its cost in shop steps, on hand or not, and notes what it leaves unpriced', async () => {
+    const c = await addUser(t.knex, 'client');
+    const commission = await addCommission(t.knex, c.clientId!);
+    const stock = (name: string, widthIn: number, costPence: number | null, costUnit: string) =>
+      t.knex('stockFabrics').insert({ name, fibre: 'cotton', widthMm: inch(widthIn), lengthMm: '20000', costPence, costUnit }).returning('id').then((r) => r[0].id as number);
+    const backing = await stock('Oat wide back', 108, 1800, 'metre');
+    const binding = await stock('Rust solid', 44, 1200, 'yard');
+    const border = await stock('Sage print', 44, null, 'metre');
+    const body = squares({ backingStockId: backing, bindingStockId: binding });
+    body.assignments = [{ target: { kind: 'piece', key: 'border:1' }, fabric: { kind: 'stock', stockId: border } }];
+    expect((await owner.post(`/api/commissions/${commission}/design`, { body })).status).toBe(201);
+    const res = await owner.get(`/api/commissions/${commission}/quote-suggestion`);
+    const design = await t.knex('designVersions').where({ commissionId: commission }).first();
+    const need = (id: number) => design.plan.shopping.find((s: { stockId: number }) => s.stockId === id).needMm as string;
+    // 20 m of each is on hand: nothing is to buy, yet the piece uses them and the client pays for that.
+    expect(design.plan.shopping.every((s: { buyMm: string }) => s.buyMm === '0')).toBe(true);
+    const back = res.body.lines.find((l: { description: string }) => l.description.startsWith('Oat wide back'));
+    // Derived: the length used up to whole 10 cm steps, in metres, at £18.00 a metre.
+    expect(back).toMatchObject({ kind: 'material', unit: 'm', unitPricePence: 1800, quantity: String(Math.ceil(Number(need(backing)) / 100) / 10) });
+    const bind = res.body.lines.find((l: { description: string }) => l.description.startsWith('Rust solid'));
+    // Derived: up to whole quarter yards (228.6 mm, 1 yd = 914.4 mm exactly), at £12.00 a yard.
+    expect(bind).toMatchObject({ unit: 'yd', unitPricePence: 1200, quantity: String(Math.ceil(Number(need(binding)) / 228.6) / 4) });
+    expect(res.body.lines.filter((l: { unitPricePence: number }) => l.unitPricePence === 0)).toEqual([]);
+    expect(res.body.notes).toEqual(expect.arrayContaining([expect.stringMatching(/^Sage print is not priced/), expect.stringMatching(/^The wadding \(/), expect.stringMatching(/^Not priced: thread, a sewn-in label\./)]));
+    expect((await owner.post(`/api/commissions/${commission}/quotes`, { lines: res.body.lines })).status).toBe(201);
+  });
+
+  it('learns the labour estimate from finished commissions and says on how many it rests', async () => {
+    const c = await addUser(t.knex, 'client');
+    const ratios = [1.1, 1.2, 1.3];
+    for (const [i, ratio] of ratios.entries()) {
+      const done = await addCommission(t.knex, c.clientId!, { stage: 'delivered' });
+      await t.knex('stageMoves').insert({ commissionId: done, fromStage: 'ready', toStage: 'delivered', movedAt: new Date(Date.UTC(2026, 10, i + 1)) });
+      const quote = await owner.post(`/api/commissions/${done}/quotes`, { lines: [{ kind: 'labour', description: 'Piecing', quantity: '10', unit: 'hours', unitPricePence: 3000, stage: 'piecing' }] });
+      await t.knex('quotes').where('id', quote.body.id).update({ status: 'accepted' });
+      await t.knex('hoursLogged').insert([
+        { commissionId: done, stage: 'piecing', hours: String(ratio * 10 - 4), workedOn: '2026-11-01' },
+        { commissionId: done, stage: 'piecing', hours: '4', workedOn: '2026-11-02' },
+      ]);
+    }
+    const commission = await addCommission(t.knex, c.clientId!);
+    const saved = await owner.post(`/api/commissions/${commission}/design`, { body: squares({}) });
+    expect(saved.status).toBe(201);
+    const res = await owner.get(`/api/commissions/${commission}/quote-suggestion`);
+    // Hand-worked: logged 11, 12, 13 h against 10 h quoted: ratios 1.1, 1.2, 1.3, median 1.2. Other stages have no history.
+    // These three have no design, so no block kind to match: any kind is used.
+    expect(res.body.learned).toEqual([{ stage: 'piecing', ratio: '1.20', commissions: 3, blockKind: null, basis: 'from 3 finished commissions: logged 1.20\u00d7 quoted for piecing' }]);
   });
 });

@@ -1,10 +1,12 @@
-import { cautionsFor, featuresToRemove, nextStages, stageOptions } from '@keepstitch/shared';
+import { cautionsFor, compareHours, featuresToRemove, nextStages, stageOptions } from '@keepstitch/shared';
 import { AppError } from '../core/app-error';
 import { present } from '../core/field-policy';
 import { readTogether } from '../core/read-together';
 import { ClientModel } from '../models/client-model';
 import { CommissionModel, HoursModel } from '../models/commission-model';
 import { GarmentModel } from '../models/garment-model';
+import { QuoteLineModel, QuoteModel } from '../models/quote-model';
+import { StudioSettingsModel } from '../models/settings-model';
 import { commissionView } from '../commissions/commissions-service';
 import { commissionCustodyEvents, statesFrom } from '../garments/custody';
 import { garmentView } from '../garments/garment-view';
@@ -33,8 +35,10 @@ function groupBy<T>(rows: T[], key: (row: T) => number | null): Map<number, T[]>
 
 export async function getCommission(user: Express.User, id: number) {
   const staff = user.role !== 'client';
+  const owner = user.role === 'owner';
+  const ownerOnly = <Q extends { whereRaw(sql: string): Q }>(q: Q) => (owner ? q : q.whereRaw('false'));
   // Everything the page shows, read in one round trip; the later reads are discarded when the commission is not visible.
-  const [found, garments, events, panels, photos, moves, quotes, paid, hourRows] = await readTogether([
+  const [found, garments, events, panels, photos, moves, quotes, paid, hourRows, compared, comparedLines, settings] = await readTogether([
     CommissionModel.query()
       .modify('visibleTo', user)
       .join('clients as client', 'client.id', 'commissions.clientId')
@@ -49,6 +53,10 @@ export async function getCommission(user: Express.User, id: number) {
     acceptedQuote(id),
     paidPayments(id),
     hoursQuery(id).modify((q) => (staff ? q : q.whereRaw('false'))),
+    // Quoted against logged, for the owner only: the quote the hours are held against, its labour lines and the rate.
+    comparedQuote(id).modify(ownerOnly),
+    QuoteLineModel.query().where('kind', 'labour').whereIn('quoteId', comparedQuote(id).select('id')).modify(ownerOnly),
+    StudioSettingsModel.query().where('id', 1).modify(ownerOnly),
   ]);
   const c = found[0];
   if (!c) throw AppError.notFound(NOT_FOUND);
@@ -79,10 +87,23 @@ export async function getCommission(user: Express.User, id: number) {
     progressPhotos: photos.filter((p) => p.kind === 'progress').map((p) => p.toPublic()),
     stageHistory: moves.map((m) => ({ id: m.id, fromStage: m.fromStage, toStage: m.toStage, note: staff ? m.note : undefined, movedAt: m.movedAt })),
     hours,
+    hoursCompared: owner ? hoursCompared(compared[0], comparedLines, hourRows, settings[0]) : undefined,
     nextStages: staff ? nextStages(c.stage, facts) : undefined,
     stageOptions: staff ? stageOptions(c.stage, facts) : undefined,
     facts,
   });
+}
+
+/** The quote hours are held against: the accepted one, else the latest sent. */
+function comparedQuote(commissionId: number) {
+  return QuoteModel.query().where('commissionId', commissionId).whereIn('status', ['accepted', 'sent']).orderByRaw("status = 'accepted' desc").orderBy('version', 'desc').limit(1);
+}
+
+/** Quoted against logged hours per stage, with the margin at the studio's rate; null before a quote is sent. */
+function hoursCompared(quote: QuoteModel | undefined, lines: QuoteLineModel[], logged: HoursModel[], settings: StudioSettingsModel | undefined) {
+  if (!quote || !settings) return null;
+  const labour = lines.map((l) => ({ stage: l.stage, quantity: l.quantity, unitPricePence: l.unitPricePence }));
+  return { quoteId: quote.id, quoteVersion: quote.version, quoteStatus: quote.status, ...compareHours(labour, logged.map((h) => ({ stage: h.stage, hours: h.hours })), settings.hourlyRatePence) };
 }
 
 /** The hours logged on a commission, with who logged them, in the order worked. */

@@ -49,6 +49,8 @@ export * from './money/quote-totals';
 // A commission's design: derivation, drawing and its cut plan.
 export * from './design/index';
 export * from './money/quote-suggestion';
+export * from './money/material-pricing';
+export * from './money/labour-learning';
 
 // The printouts: one content model each, drawn by the print page and the PDF.
 export * from './printouts/index';

@@ -74,7 +74,13 @@ export interface DesignBody {
     shrinkPercent: string;
   };
   rules: {
-    /** Pieces each garment must give at least (0: no rule). */
+    /**
+     * Pieces each garment must give at least. Every garment with panels gives
+     * at least one (a memory piece holds something of each garment) unless the
+     * maker marks it not used, so 0 and 1 plan alike.
+     */
     minimumPerGarment: number;
+    /** Garments the maker marks not used: nothing is asked of them, and their giving no piece is no warning. Absent: none. */
+    unusedGarmentIds?: number[];
   };
 }

@@ -129,12 +129,22 @@ export function planDesign(body: DesignBody, derivation: DesignDerivation, sourc
     detail: m.detail,
   }));
 
+  const unused = new Set(body.rules.unusedGarmentIds ?? []);
+  const garmentsGivingNone = sources.garments
+    .filter((g) => g.panels.length > 0 && !unused.has(g.id) && (garments.find((u) => u.garmentId === g.id)?.piecesCut ?? 0) === 0)
+    .map((g) => ({
+      garmentId: g.id,
+      description: g.description,
+      message: `${g.description} gives no piece to this quilt. Give it a block or a group of garments in the table, choose a smaller block so its panels hold a piece, or mark it not used.`,
+    }));
+
   const { shopping, binding, backing, wadding } = planFinishing(body, derivation, sources.stock, plan);
   return {
     plan,
     garments,
     shortfall,
     minimumsShort,
+    garmentsGivingNone,
     shopping,
     keptFeatures,
     binding,

@@ -13,6 +13,7 @@ import { lengthBeforeShrinking } from '../shrinkage';
 import { EIGHTH_YARD, roundUpToIncrement, TEN_CENTIMETRES } from '../shop-increment';
 import { DEFAULT_USABLE_WIDTH } from '../fabric-width';
 import type { DesignBody } from './design-body';
+import { plural } from './kinds/block-kind';
 import type { DesignDerivation } from './derive-design';
 import type { DesignPlanSummary, ShoppingLine, SourceStock } from './plan-types';
 
@@ -46,10 +47,10 @@ function shoppingList(body: DesignBody, plan: CutPlan, sizes: Finishing, stockBy
   };
   for (const s of plan.studioFabrics) {
     const id = Number(s.fabricId.replace('stock-', ''));
-    if (s.lengthUsed > 0) addNeed(id, Length.millimetres(new Decimal(s.lengthUsed)), `${s.piecesCut} pieces`);
+    if (s.lengthUsed > 0) addNeed(id, Length.millimetres(new Decimal(s.lengthUsed)), plural(s.piecesCut, 'piece'));
   }
   const { bindingStock, bind, backingStock, backChoice, waddingStock, wad } = sizes;
-  if (bindingStock) addNeed(bindingStock.id, bind.fabricLength, `binding: ${bind.strips} strips`);
+  if (bindingStock) addNeed(bindingStock.id, bind.fabricLength, `binding: ${plural(bind.strips, 'strip')}`);
   if (backingStock) addNeed(backingStock.id, backChoice.fabricLength, `backing: ${backChoice.panels} ${backChoice.panels === 1 ? 'panel' : 'panels'}`);
   if (waddingStock && wad.fromRoll) addNeed(waddingStock.id, wad.fromRoll.length, 'wadding');
   return [...needs].map(([stockId, { need, uses }]) => {

@@ -157,6 +157,9 @@ function featureInput(panel: SourceGarment['panels'][number], index: number): Ke
   };
 }
 
+/** Each garment used gives at least this many pieces, whatever the rule says: a memory piece holds something of every garment. */
+export const AT_LEAST_PER_GARMENT = 1;
+
 export function planInput(body: DesignBody, derivation: DesignDerivation, sources: DesignSources): { input: CutPlanInput; pins: FeaturePin[]; unheld: UnheldFeature[] } {
   const { pins, unheld } = keptFeaturePins(body, derivation, sources);
   const panels = sources.garments.flatMap((g) =>
@@ -185,8 +188,9 @@ export function planInput(body: DesignBody, derivation: DesignDerivation, source
     label: p.label,
   }));
   pieces.push(...pins.map((pin) => pin.piece));
-  const withPanels = sources.garments.filter((g) => g.panels.length > 0);
-  const minimum = body.rules.minimumPerGarment;
+  const unused = new Set(body.rules.unusedGarmentIds ?? []);
+  const withPanels = sources.garments.filter((g) => g.panels.length > 0 && !unused.has(g.id));
+  const minimum = Math.max(body.rules.minimumPerGarment, AT_LEAST_PER_GARMENT);
   return {
     input: {
       unit: 'mm',

@@ -87,6 +87,12 @@ export interface DesignPlanSummary {
   garments: GarmentUse[];
   shortfall: ShortLine[];
   minimumsShort: { garmentId: number; description: string; required: number; achieved: number; detail: string }[];
+  /**
+   * Garments used in the piece (with panels, not marked not used) that give no
+   * piece at all: the loud warning of a memory piece missing a garment. Absent
+   * on plans stored before this was listed.
+   */
+  garmentsGivingNone?: { garmentId: number; description: string; message: string }[];
   shopping: ShoppingLine[];
   /** Each kept feature the plan holds whole, and the copy of the block piece cut around it. Absent on plans stored before this was listed. */
   keptFeatures?: KeptFeaturePiece[];

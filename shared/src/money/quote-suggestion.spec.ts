@@ -2,7 +2,7 @@ import Decimal from 'decimal.js';
 import { deriveDesign } from '../design/derive-design';
 import { planDesign, type DesignPlanSummary } from '../design/plan-design';
 import type { DesignBody } from '../design/design-body';
-import { DEFAULT_BLOCK_MINUTES, quarterHours, suggestQuoteLines } from './quote-suggestion';
+import { DEFAULT_BLOCK_MINUTES, quarterHours, suggestQuote } from './quote-suggestion';
 
 const inch = (n: number) => new Decimal(n).times('25.4').toString();
 
@@ -28,19 +28,12 @@ describe('quote lines suggested from a design', () => {
     { id: 2, name: 'Navy cotton', colour: 'navy', fibre: 'cotton' as const, widthMm: inch(44), lengthMm: '0', costUnit: 'yard' as const },
   ];
   const plan: DesignPlanSummary = planDesign(body, derived, { garments: [], stock });
-  const lines = suggestQuoteLines({
-    body,
-    derived,
-    plan,
-    stock: [
-      { id: 1, name: 'Wide backing', costPence: 1450, costUnit: 'metre' },
-      { id: 2, name: 'Navy cotton', costPence: 1100, costUnit: 'yard' },
-    ],
-    hourlyRatePence: 3000,
-    blockMinutes: { plate: 90, square: 6 },
-    knitGarments: 1,
-    garments: 4,
-  });
+  const priced = [
+    { id: 1, name: 'Wide backing', costPence: 1450, costUnit: 'metre' as const },
+    { id: 2, name: 'Navy cotton', costPence: 1100, costUnit: 'yard' as const },
+  ];
+  const input = { body, derived, plan, stock: priced, hourlyRatePence: 3000, blockMinutes: { plate: 90, square: 6 }, knitGarments: 1, garments: 4 };
+  const { lines, notes } = suggestQuote(input);
   const labour = Object.fromEntries(lines.filter((l) => l.kind === 'labour').map((l) => [l.stage, l.quantity]));
 
   it('estimates piecing from the minutes per block kind (hand-worked)', () => {
@@ -57,24 +50,49 @@ describe('quote lines suggested from a design', () => {
     expect(labour['preparation']).toBe('3.00');
   });
 
-  it('prices studio fabric to buy by its own unit, at its own price', () => {
+  it('prices every studio fabric the plan uses by its own unit, at its own cost, in shop steps', () => {
     const backing = lines.find((l) => l.description.startsWith('Wide backing'))!;
     const shop = plan.shopping.find((s) => s.stockId === 1)!;
     expect(backing).toMatchObject({ kind: 'material', unit: 'm', unitPricePence: 1450 });
-    // Derived: millimetres to buy / 1000, rounded up to 4 decimals.
-    expect(backing.quantity).toBe(new Decimal(shop.buyMm).dividedBy(1000).toDecimalPlaces(4, Decimal.ROUND_UP).toString());
+    expect(backing.description).toContain('backing: 1 panel');
+    expect(backing.description).toContain('cut in 10 cm steps');
+    // Derived: the length used, up to whole 10 cm steps, in metres.
+    expect(backing.quantity).toBe(new Decimal(shop.needMm).dividedBy(100).ceil().dividedBy(10).toString());
     const navy = lines.find((l) => l.description.startsWith('Navy cotton'))!;
     const navyShop = plan.shopping.find((s) => s.stockId === 2)!;
-    // 1 yd = 914.4 mm exactly (NIST SP 811 appendix B).
+    // 1 yd = 914.4 mm exactly (NIST SP 811 appendix B); a quarter yard is 228.6 mm.
     expect(navy).toMatchObject({ unit: 'yd', unitPricePence: 1100 });
-    expect(new Decimal(navy.quantity).times('914.4').gte(navyShop.buyMm)).toBe(true);
+    expect(navy.quantity).toBe(new Decimal(navyShop.needMm).dividedBy('228.6').ceil().dividedBy(4).toString());
   });
 
-  it('asks for stabiliser for knit garments, wadding, thread and a label, priced by the maker', () => {
-    expect(lines.find((l) => l.description.startsWith('Fusible stabiliser'))).toMatchObject({ quantity: '1', unitPricePence: 0 });
+  it('prices fabric already on hand too: the client pays for what the piece uses, not only for what is bought', () => {
+    const stocked = [
+      { id: 1, name: 'Wide backing', colour: null, fibre: 'cotton' as const, widthMm: inch(108), lengthMm: '50000', costUnit: 'metre' as const },
+      { id: 2, name: 'Navy cotton', colour: 'navy', fibre: 'cotton' as const, widthMm: inch(44), lengthMm: '50000', costUnit: 'yard' as const },
+    ];
+    const onHand = planDesign(body, derived, { garments: [], stock: stocked });
+    expect(onHand.shopping.every((s) => s.buyMm === '0')).toBe(true);
+    const fabric = suggestQuote({ ...input, plan: onHand }).lines.filter((l) => l.kind === 'material');
+    expect(fabric.map((l) => l.description.split(' (')[0])).toEqual(['Navy cotton', 'Wide backing']);
+    expect(fabric.every((l) => l.unitPricePence > 0 && Number(l.quantity) > 0)).toBe(true);
+  });
+
+  it('leaves out, with a note, what has no cost kept anywhere rather than pricing it at zero', () => {
+    expect(lines.filter((l) => l.unitPricePence === 0)).toEqual([]);
+    expect(lines.some((l) => l.kind !== 'labour' && /thread|label|stabiliser|wadding/i.test(l.description))).toBe(false);
     // Wadding 4 in larger than the 48 x 60 in top on every side (common practice): 56 x 68 in = 142.24 x 172.72 cm, up to whole cm.
-    expect(lines.find((l) => l.description.startsWith('Wadding'))).toMatchObject({ description: 'Wadding, 143 x 173 cm', unitPricePence: 0 });
-    expect(lines.map((l) => l.description)).toEqual(expect.arrayContaining(['Thread for piecing and quilting', 'Sewn-in label']));
+    expect(notes).toContain("The wadding (143 x 173 cm) is not from Studio fabric: choose it in the design's finishing to price it, or add a line.");
+    expect(notes).toContain('Not priced: thread, a sewn-in label, fusible stabiliser for 1 knit garment. The studio keeps no cost for them; add a line if you charge for them.');
+    const noCost = suggestQuote({ ...input, stock: [priced[0]!, { ...priced[1]!, costPence: null }] });
+    expect(noCost.lines.some((l) => l.description.startsWith('Navy cotton'))).toBe(false);
+    expect(noCost.notes.some((n) => n.startsWith('Navy cotton is not priced: Studio fabric holds no cost for it.'))).toBe(true);
+  });
+
+  it('says one garment, one piece, one block in the singular', () => {
+    const one: DesignBody = { ...body, layout: { ...body.layout, rows: 1, columns: 1 }, blocks: [{ id: 'B', name: 'Square', kind: 'square' }], pattern: ['B'] };
+    const d = deriveDesign(one);
+    const words = suggestQuote({ ...input, body: one, derived: d, plan: planDesign(one, d, { garments: [], stock: [] }), garments: 1, knitGarments: 0 }).lines.map((l) => l.description);
+    expect(words).toEqual(expect.arrayContaining([expect.stringMatching(/^Preparing 1 garment:/), 'Cutting 1 piece', 'Piecing 1 block and the top']));
   });
 
   it('rounds hours up to the quarter, never below a quarter', () => {
@@ -85,7 +103,7 @@ describe('quote lines suggested from a design', () => {
     const rails: DesignBody = { ...body, blocks: [{ id: 'A', name: 'Rails', kind: 'rectangles', units: 3 }, { id: 'B', name: 'Geese', kind: 'flying-geese', units: 2 }] };
     const derivedRails = deriveDesign(rails);
     const piecing = (blockMinutes: Record<string, number>) =>
-      suggestQuoteLines({ body: rails, derived: derivedRails, plan: planDesign(rails, derivedRails, { garments: [], stock: [] }), stock: [], hourlyRatePence: 3000, blockMinutes, knitGarments: 0, garments: 0 }).find((l) => l.stage === 'piecing')!.quantity;
+      suggestQuote({ body: rails, derived: derivedRails, plan: planDesign(rails, derivedRails, { garments: [], stock: [] }), stock: [], hourlyRatePence: 3000, blockMinutes, knitGarments: 0, garments: 0 }).lines.find((l) => l.stage === 'piecing')!.quantity;
     // Hand-worked: 10 rail blocks x 12 min + 10 geese blocks x 30 min = 420 min = 7 h.
     expect(piecing({ rectangles: 12, 'flying-geese': 30 })).toBe('7.00');
     // Common practice defaults (rough): 10 x 8 min + 10 x 15 min = 230 min = 3.83 h -> 4.00 h.

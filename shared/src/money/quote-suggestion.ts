@@ -3,12 +3,18 @@ import type { DesignBody, BlockKind } from '../design/design-body';
 import { BLOCK_KIND_MODULES } from '../design/kinds';
 import type { DesignDerivation } from '../design/derive-design';
 import type { DesignPlanSummary } from '../design/plan-design';
+import { plural } from '../design/kinds/block-kind';
+import { Length } from '../measure';
+import { lengthBeforeShrinking } from '../shrinkage';
+import { priceLength } from './material-pricing';
 
 /**
- * Lines for a first quote, drawn from a commission's design: the studio fabric
- * still to buy (from the shopping list, at the studio's price per metre or
- * yard), wadding when it is not from stock, thread, a label, fusible
- * stabiliser for knit garments (these at a price the maker fills in), and labour by stage estimated
+ * Lines for a first quote, drawn from a commission's design: every studio
+ * fabric the plan uses (pieces, borders, backing, binding, wadding from a
+ * roll), whether on hand or to buy, at its stock cost per metre or yard in the
+ * shop's steps (material-pricing.ts); what has no cost kept anywhere (thread,
+ * a label, stabiliser, a fabric without a cost) is left out with a note
+ * rather than shown as free; and labour by stage estimated
  * from the studio's minutes per block kind and from the size of the piece.
  * Every line is a suggestion the maker edits before sending.
  */
@@ -53,42 +59,50 @@ export function quarterHours(hours: Decimal.Value): string {
   return Decimal.max(q, 0.25).toFixed(2);
 }
 
-const MM_PER: Record<'metre' | 'yard', Decimal> = { metre: new Decimal(1000), yard: new Decimal('914.4') };
+/** A suggested quote: its lines, and what was left out and why (a cost the studio keeps nowhere is not shown as free). */
+export interface QuoteSuggestion {
+  lines: SuggestedLine[];
+  notes: string[];
+}
 
-export function suggestQuoteLines(input: SuggestionInput): SuggestedLine[] {
+const cm = (mm: Decimal.Value) => new Decimal(mm).dividedBy(10).toDecimalPlaces(0, Decimal.ROUND_UP).toString();
+
+/** Each studio fabric the plan uses (pieces, borders, backing, binding, wadding), at its stock cost in shop steps. */
+function materialLines(input: SuggestionInput, notes: string[]): SuggestedLine[] {
   const lines: SuggestedLine[] = [];
-
+  const f = input.body.finishing;
   for (const s of input.plan.shopping) {
-    const buy = new Decimal(s.buyMm);
-    if (buy.lte(0)) continue;
+    let used = Length.millimetres(s.needMm);
+    if (!used.isPositive()) continue;
+    // Studio fabric pre-washed for this piece shrinks: the length cut from the bolt is the one grown for it.
+    if (f.prewash && Number(f.shrinkPercent) > 0) used = lengthBeforeShrinking(used, f.shrinkPercent);
     const stock = input.stock.find((x) => x.id === s.stockId);
-    const unit = stock?.costUnit ?? 'metre';
-    const quantity = buy.dividedBy(MM_PER[unit]).toDecimalPlaces(4, Decimal.ROUND_UP);
+    const priced = priceLength(used, { costPence: stock?.costPence ?? null, costUnit: stock?.costUnit ?? 'metre' });
+    if (!priced) continue;
+    if (priced.unitPricePence === null) {
+      notes.push(`${s.name} is not priced: Studio fabric holds no cost for it. Add its cost there, or add a line for ${priced.quantity} ${priced.unit}.`);
+      continue;
+    }
     lines.push({
       kind: 'material',
-      description: `${s.name} (${s.uses.join(', ') || 'studio fabric'})`,
-      quantity: quantity.toString(),
-      unit: unit === 'metre' ? 'm' : 'yd',
-      unitPricePence: stock?.costPence ?? 0,
+      description: `${s.name} (${s.uses.join(', ') || 'studio fabric'}), cut in ${priced.increment} steps`,
+      quantity: priced.quantity,
+      unit: priced.unit,
+      unitPricePence: priced.unitPricePence,
     });
   }
+  const plan = input.plan;
+  if (plan.backing.stockId === null) notes.push(`No backing fabric is chosen (${cm(plan.backing.widthMm)} x ${cm(plan.backing.lengthMm)} cm is needed): choose one from Studio fabric in the design's finishing to price it, or add a line.`);
+  if (plan.binding.stockId === null) notes.push(`No binding fabric is chosen (${plural(plan.binding.strips, 'strip')} ${plan.binding.strips === 1 ? 'is' : 'are'} needed): choose one from Studio fabric in the design's finishing to price it, or add a line.`);
+  if (plan.wadding.stockId === null) notes.push(`The wadding (${cm(plan.wadding.widthMm)} x ${cm(plan.wadding.lengthMm)} cm) is not from Studio fabric: choose it in the design's finishing to price it, or add a line.`);
+  const unpriced = ['thread', 'a sewn-in label', ...(input.knitGarments > 0 ? [`fusible stabiliser for ${plural(input.knitGarments, 'knit garment')}`] : [])];
+  notes.push(`Not priced: ${unpriced.join(', ')}. The studio keeps no cost for ${unpriced.length === 1 ? 'it' : 'them'}; add a line if you charge for ${unpriced.length === 1 ? 'it' : 'them'}.`);
+  return lines;
+}
 
-  if (input.plan.wadding.stockId === null) {
-    const cm = (mm: string) => new Decimal(mm).dividedBy(10).toDecimalPlaces(0, Decimal.ROUND_UP).toString();
-    lines.push({ kind: 'material', description: `Wadding, ${cm(input.plan.wadding.widthMm)} x ${cm(input.plan.wadding.lengthMm)} cm`, quantity: '1', unit: 'piece', unitPricePence: 0 });
-  }
-  lines.push({ kind: 'material', description: 'Thread for piecing and quilting', quantity: '1', unit: 'lot', unitPricePence: 0 });
-  lines.push({ kind: 'extra', description: 'Sewn-in label', quantity: '1', unit: 'item', unitPricePence: 0 });
-
-  if (input.knitGarments > 0) {
-    lines.push({
-      kind: 'material',
-      description: `Fusible stabiliser for ${input.knitGarments} knit garment${input.knitGarments === 1 ? '' : 's'}`,
-      quantity: String(input.knitGarments),
-      unit: 'garments',
-      unitPricePence: 0,
-    });
-  }
+export function suggestQuote(input: SuggestionInput): QuoteSuggestion {
+  const notes: string[] = [];
+  const lines = materialLines(input, notes);
 
   const rate = input.hourlyRatePence;
   const minutesFor = (kind: BlockKind) => input.blockMinutes[kind] ?? DEFAULT_BLOCK_MINUTES[kind] ?? 10;
@@ -103,9 +117,9 @@ export function suggestQuoteLines(input: SuggestionInput): SuggestedLine[] {
   const perimeterM = new Decimal(input.derived.finished.widthMm).plus(input.derived.finished.lengthMm).times(2).dividedBy(1000);
 
   const labour: Array<[SuggestedLine['stage'], string, Decimal]> = [
-    ['preparation', `Preparing ${input.garments} garment${input.garments === 1 ? '' : 's'}: unpicking, washing, pressing${input.knitGarments ? ', stabilising' : ''}`, new Decimal(ESTIMATES.preparationHoursPerGarment).times(input.garments)],
-    ['cutting', `Cutting ${pieces} pieces`, new Decimal(ESTIMATES.cuttingMinutesPerPiece).times(pieces).dividedBy(60)],
-    ['piecing', `Piecing ${input.derived.totals.blocks} blocks and the top`, pieceMinutes.dividedBy(60)],
+    ['preparation', `Preparing ${plural(input.garments, 'garment')}: unpicking, washing, pressing${input.knitGarments ? ', stabilising' : ''}`, new Decimal(ESTIMATES.preparationHoursPerGarment).times(input.garments)],
+    ['cutting', `Cutting ${plural(pieces, 'piece')}`, new Decimal(ESTIMATES.cuttingMinutesPerPiece).times(pieces).dividedBy(60)],
+    ['piecing', `Piecing ${plural(input.derived.totals.blocks, 'block')} and the top`, pieceMinutes.dividedBy(60)],
     ['quilting', `Quilting (${areaSqM.toDecimalPlaces(2).toString()} m\u00b2)`, areaSqM.times(ESTIMATES.quiltingHoursPerSqM)],
     ['binding', `Binding and label (${perimeterM.toDecimalPlaces(1).toString()} m of edge)`, perimeterM.times(ESTIMATES.bindingHoursPerM)],
   ];
@@ -113,5 +127,5 @@ export function suggestQuoteLines(input: SuggestionInput): SuggestedLine[] {
     if (hours.lte(0)) continue;
     lines.push({ kind: 'labour', description, quantity: quarterHours(hours), unit: 'hours', unitPricePence: rate, stage });
   }
-  return lines;
+  return { lines, notes };
 }

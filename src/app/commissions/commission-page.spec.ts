@@ -47,6 +47,20 @@ const detail: CommissionDetail = {
     byStage: { enquiry: '0.50', booked: '1.50' },
     total: '2.00',
   },
+  // As the server gives it to the owner: the trial's 18.25 h quoted at £30 against 21.5 h logged.
+  hoursCompared: {
+    quoteId: 12,
+    quoteVersion: 2,
+    quoteStatus: 'accepted',
+    hourlyRatePence: 3000,
+    stages: [
+      { stage: 'preparation', quotedHours: '3.00', loggedHours: '2.50', differenceHours: '-0.50', quotedPence: 9000, loggedCostPence: 7500, marginPence: 1500 },
+      { stage: 'piecing', quotedHours: '10.00', loggedHours: '13.50', differenceHours: '3.50', quotedPence: 30000, loggedCostPence: 40500, marginPence: -10500 },
+      { stage: 'quilting', quotedHours: '4.00', loggedHours: '4.50', differenceHours: '0.50', quotedPence: 12000, loggedCostPence: 13500, marginPence: -1500 },
+      { stage: 'binding', quotedHours: '1.25', loggedHours: '1.00', differenceHours: '-0.25', quotedPence: 3750, loggedCostPence: 3000, marginPence: 750 },
+    ],
+    total: { quotedHours: '18.25', loggedHours: '21.50', differenceHours: '3.25', quotedPence: 54750, loggedCostPence: 64500, marginPence: -9750 },
+  },
   nextStages: ['enquiry', 'quoted', 'garments_in', 'cancelled'],
   stageOptions: stageOptions('booked', { garmentCount: 1, garmentsReceived: 1 }),
   facts: { garmentCount: 1, garmentsReceived: 1 },
@@ -202,6 +216,19 @@ describe('CommissionPage', () => {
     const edit = await loader.getHarness(MatButtonHarness.with({ selector: '[href="/commissions/3/edit"]' }));
     expect(await edit.getText()).toMatch(/Edit$/);
   });
+
+  it('shows the owner quoted against logged hours per stage, the difference and the margin', () => {
+    const cells = (row: Element) => Array.from(row.querySelectorAll('td, th')).map((c) => c.textContent?.trim());
+    const rows = Array.from(page.querySelectorAll<HTMLElement>('[data-testid="hours-compared"]')).map(cells);
+    expect(rows).toEqual([
+      ['Preparation (wash, press, stabilise)', '3.00', '2.50', '-0.50', '£15.00'],
+      ['Piecing', '10.00', '13.50', '+3.50', '-£105.00'],
+      ['Quilting', '4.00', '4.50', '+0.50', '-£15.00'],
+      ['Binding and label', '1.25', '1.00', '-0.25', '£7.50'],
+    ]);
+    expect(cells(page.querySelector('[data-testid="hours-compared-total"]')!)).toEqual(['Total', '18.25', '21.50', '+3.25', '-£97.50']);
+    expect(page.querySelector('#hours-compared-basis')?.textContent).toContain('Against quote version 2 (accepted). The margin is the labour quoted less the hours logged at £30.00 an hour.');
+  });
 });
 
 describe('CommissionPage for the workroom', () => {
@@ -220,10 +247,12 @@ describe('CommissionPage for the workroom', () => {
     fixture.componentRef.setInput('id', '3');
     const httpMock = TestBed.inject(HttpTestingController);
     await fixture.whenStable();
-    httpMock.expectOne('/api/commissions/3').flush(detail);
+    // The server sends the workroom no hours compared with the quote.
+    httpMock.expectOne('/api/commissions/3').flush({ ...detail, hoursCompared: undefined });
     await fixture.whenStable();
     const page = fixture.nativeElement as HTMLElement;
     expect(page.querySelector('[data-testid="current-stage"]')).not.toBeNull();
+    expect(page.querySelector('#hours-compared-heading')).toBeNull();
     expect(page.querySelector('a[href="/commissions/3/edit"]')).toBeNull();
     httpMock.verify();
   });

@@ -17,6 +17,7 @@ import {
   GARMENT_STATUS_LABELS,
   STAGE_LABELS,
   Stage,
+  formatPounds,
   moveNeedsNote,
 } from '@keepstitch/shared';
 
@@ -132,6 +133,17 @@ export class CommissionPage {
   });
 
   /** Each logged entry, the latest work first. */
+  /** A stage's name; a stage this page does not know is shown as it is. */
+  protected stageName(stage: string): string {
+    return (STAGE_LABELS as Record<string, string>)[stage] ?? stage;
+  }
+  protected pounds(pence: number): string {
+    return formatPounds(pence);
+  }
+  /** Hours over the quote with a plus sign, so more time than quoted reads at a glance. */
+  protected signed(hours: string): string {
+    return hours.startsWith('-') || hours === '0.00' ? hours : `+${hours}`;
+  }
   protected readonly hoursEntries = computed(() =>
     [...(this.commission()?.hours?.entries ?? [])].sort((a, b) =>
       a.workedOn === b.workedOn ? b.id - a.id : a.workedOn < b.workedOn ? 1 : -1,

@@ -146,6 +146,16 @@ const hoursEntrySchema = z.object({
 });
 export type HoursEntry = z.infer<typeof hoursEntrySchema>;
 
+const stageComparison = z.object({
+  stage: z.nullable(z.string()),
+  quotedHours: z.string(),
+  loggedHours: z.string(),
+  differenceHours: z.string(),
+  quotedPence: z.number(),
+  loggedCostPence: z.number(),
+  marginPence: z.number(),
+});
+
 export const commissionDetailSchema = z.extend(commissionSchema, {
   cautions: z.array(z.object({ code: z.string(), title: z.string(), text: z.string(), source: z.string() })),
   garments: z.array(garmentSchema),
@@ -156,6 +166,8 @@ export const commissionDetailSchema = z.extend(commissionSchema, {
   hours: z.optional(
     z.object({ entries: z.array(hoursEntrySchema), byStage: z.record(z.string(), z.string()), total: z.string() }),
   ),
+  /** The owner's only: quoted against logged hours per stage, and the labour margin. */
+  hoursCompared: z.optional(z.nullable(z.object({ quoteId: z.number(), quoteVersion: z.number(), quoteStatus: z.string(), hourlyRatePence: z.number(), stages: z.array(stageComparison), total: z.omit(stageComparison, { stage: true }) }))),
   nextStages: z.optional(z.array(stage)),
   stageOptions: z.optional(z.array(stageOptionSchema)),
   facts: z.object({ garmentCount: z.number(), garmentsReceived: z.number(), openCustody: z.optional(z.array(z.string())) }),

@@ -37,6 +37,14 @@ const draft: Quote = {
   createdAt: '2026-12-01T10:00:00Z',
 };
 
+/** What the design's pricing says of commission 3: two notes, and piecing learned from seven finished commissions. */
+const suggestion = {
+  designVersion: 1,
+  lines: [],
+  notes: ['Not priced: thread, a sewn-in label. The studio keeps no cost for them; add a line if you charge for them.'],
+  learned: [{ stage: 'piecing', ratio: '1.18', commissions: 7, blockKind: null, basis: 'from 7 finished commissions: logged 1.18\u00d7 quoted for piecing' }],
+};
+
 describe('QuoteEditor', () => {
   let fixture: ComponentFixture<QuoteEditor>;
   let loader: HarnessLoader;
@@ -54,6 +62,8 @@ describe('QuoteEditor', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     httpMock = TestBed.inject(HttpTestingController);
     page = fixture.nativeElement as HTMLElement;
+    await fixture.whenStable();
+    httpMock.expectOne('/api/commissions/3/quote-suggestion').flush(suggestion);
     await fixture.whenStable();
   });
 
@@ -153,5 +163,24 @@ describe('QuoteEditor', () => {
     );
     await fixture.whenStable();
     expect(page.querySelector('[role="alert"]')?.textContent).toContain('Add an e-mail address for Callum Dewberry');
+  });
+
+  it('shows the learned labour estimate with its basis on the piecing line, and takes it with a click', async () => {
+    const learned = () => Array.from(page.querySelectorAll('[data-testid="learned"]')).map((el) => el.textContent?.replace(/\s+/g, ' ').trim());
+    // Hand-worked: 6.5 h x 1.18 = 7.67 h, up to the quarter: 7.75 h. The material line has no stage: nothing learned.
+    expect(learned()).toEqual(['lightbulbSuggested 7.75 h, from 7 finished commissions: logged 1.18\u00d7 quoted for piecing. Use 7.75 h for line 1']);
+    expect(shown('suggestion-notes')).toContain('Not priced: thread, a sewn-in label.');
+
+    await (await button('Use 7.75 h for line 1')).click();
+    await fixture.whenStable();
+    expect(await (await input('Quantity of line 1')).getValue()).toBe('7.75');
+    // 7.75 h x £28.00 = £217.00.
+    expect(page.querySelector('[data-testid="line-amount"]')?.textContent).toContain('£217.00');
+    expect(learned()[0]).toContain('Learned estimate in use: 7.75 h');
+
+    await (await button('Save quote')).click();
+    const request = httpMock.expectOne({ method: 'PUT', url: '/api/quotes/41' });
+    expect(request.request.body.lines[0]).toEqual({ kind: 'labour', description: 'Piecing two cushion covers', quantity: '7.75', unit: 'hours', unitPricePence: 2800, stage: 'piecing' });
+    request.flush({ ...draft });
   });
 });

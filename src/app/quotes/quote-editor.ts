@@ -8,14 +8,14 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { QUOTE_TEXT_LIMITS, formatPounds, parsePounds, quoteTotals } from '@keepstitch/shared';
+import { QUOTE_TEXT_LIMITS, formatPounds, learnedHours, parsePounds, quoteTotals } from '@keepstitch/shared';
 import Decimal from 'decimal.js';
 import { Observable, filter, of, switchMap } from 'rxjs';
 
 import { apiErrorOf, messageFor } from '../core/api-error';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { ConfirmDialog, ConfirmDialogData } from '../core/confirm-dialog';
-import { LINE_KINDS, LINE_KIND_LABELS, LineKind, Quote, QuoteDraft, QuoteLine, vatLabel } from './quote';
+import { LINE_KINDS, LINE_KIND_LABELS, LineKind, Quote, QuoteDraft, QuoteLine, QuoteSuggestion, vatLabel } from './quote';
 import { QuoteTotalsList, TotalsView } from './quote-totals-list';
 import { QuotesApi } from './quotes-api';
 
@@ -120,6 +120,24 @@ export class QuoteEditor {
       return null;
     }
   });
+  /** The design's suggestion for this commission: its notes, and the labour ratios learned from finished commissions. */
+  protected readonly suggestion = signal<QuoteSuggestion | null>(null);
+  private suggestionFor: number | null = null;
+  /** Each line's quantity as the draft was opened, which a learned ratio is applied to (so applying it twice does not grow it twice). */
+  private readonly openedQuantity = new WeakMap<LineForm, string>();
+  /** For each labour line of a stage the studio has learned about: the hours the ratio gives, its basis, and whether they are in use. */
+  protected readonly learned = computed(() => {
+    this.edits();
+    const learned = this.suggestion()?.learned ?? [];
+    return this.lines.controls.map((line) => {
+      const { kind, stage, quantity } = line.getRawValue();
+      const ratio = kind === 'labour' && stage ? learned.find((l) => l.stage === stage) : undefined;
+      const base = (this.openedQuantity.get(line) ?? quantity).trim();
+      if (!ratio || !QUANTITY.test(base) || Number(base) <= 0) return null;
+      const hours = learnedHours(base, ratio.ratio);
+      return { hours, basis: ratio.basis, used: quantity.trim() === hours };
+    });
+  });
   protected readonly totalsProblem = computed(() => {
     this.edits();
     if (this.totals()) return null;
@@ -131,8 +149,29 @@ export class QuoteEditor {
     this.form.valueChanges.pipe(takeUntilDestroyed(this.destroyRef)).subscribe(() => this.edits.update((n) => n + 1));
     effect(() => {
       const quote = this.quote();
-      untracked(() => this.fill(quote));
+      untracked(() => {
+        this.fill(quote);
+        this.loadSuggestion(quote.commissionId);
+      });
     });
+  }
+
+  /** Takes the learned estimate for a line: its quantity becomes the hours the ratio gives. */
+  protected useLearned(index: number): void {
+    const learned = this.learned()[index];
+    if (!learned) return;
+    this.lines.at(index).controls.quantity.setValue(learned.hours);
+    this.form.markAsDirty();
+  }
+
+  /** Once per commission; without it the editor works as before (the suggestion only advises). */
+  private loadSuggestion(commissionId: number): void {
+    if (this.suggestionFor === commissionId) return;
+    this.suggestionFor = commissionId;
+    this.api
+      .suggestion(commissionId)
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({ next: (s) => this.suggestion.set(s), error: () => this.suggestion.set(null) });
   }
 
   protected pounds(pence: number): string {
@@ -264,7 +303,11 @@ export class QuoteEditor {
   private fill(quote: Quote): void {
     this.lines.clear({ emitEvent: false });
     this.form.reset({ intro: quote.intro ?? '', depositPercent: quote.depositPercent });
-    for (const line of quote.lines) this.lines.push(this.lineForm(line, false));
+    for (const line of quote.lines) {
+      const form = this.lineForm(line, false);
+      this.openedQuantity.set(form, line.quantity);
+      this.lines.push(form);
+    }
     this.error.set(null);
   }
 

@@ -133,6 +133,10 @@ export const suggestionSchema = z.object({
       stage: z.optional(z.string()),
     }),
   ),
+  /** What the suggestion left out unpriced, and why. */
+  notes: z._default(z.array(z.string()), []),
+  /** Per stage, how far logged hours ran from quoted ones on finished commissions. */
+  learned: z._default(z.array(z.object({ stage: z.string(), ratio: z.string(), commissions: z.number(), blockKind: z.nullable(z.string()), basis: z.string() })), []),
 });
 export type QuoteSuggestion = z.infer<typeof suggestionSchema>;
 
