@@ -95,6 +95,10 @@ export const ROUTE_POLICY = {
   'POST /api/commissions/:id/refund-deposit': OWNER,
   'POST /api/commissions/:id/payments/:paymentId/accept': OWNER,
   'POST /api/commissions/:id/payments/:paymentId/refund': OWNER,
+  'POST /api/commissions/:id/payments/manual': OWNER,
+  'POST /api/commissions/:id/payments/:paymentId/undo': OWNER,
+  'GET /api/commissions/:id/payments/:paymentId/receipt': CLIENT_OR_OWNER,
+  'GET /api/commissions/:id/invoice': CLIENT_OR_OWNER,
   'POST /api/payments/webhook': EVERYONE,
 
   'GET /api/mail/outbox': OWNER,
