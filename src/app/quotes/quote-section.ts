@@ -11,10 +11,11 @@ import { Notices } from '../core/notices';
 import { SettingsApi } from '../settings/settings-api';
 import { LoadStatus } from '../ui/load-status';
 import { ConfirmDialog, ConfirmDialogData } from '../core/confirm-dialog';
-import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payment, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft, REFUND_REASON_LABELS } from './quote';
+import { PAYMENT_KIND_LABELS, PAYMENT_METHOD_LABELS, PAYMENT_STATUS_LABELS, Payment, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft, REFUND_REASON_LABELS } from './quote';
 import { QuoteEditor } from './quote-editor';
 import { QuoteSummary } from './quote-summary';
 import { QuotesApi } from './quotes-api';
+import { RecordPaymentForm } from './record-payment-form';
 
 /**
  * The owner's quotes and payments for one commission: every version, the
@@ -26,7 +27,7 @@ import { QuotesApi } from './quotes-api';
  */
 @Component({
   selector: 'ks-quote-section',
-  imports: [MatButtonModule, MatIconModule, QuoteEditor, QuoteSummary, LoadStatus],
+  imports: [MatButtonModule, MatIconModule, QuoteEditor, QuoteSummary, LoadStatus, RecordPaymentForm],
   templateUrl: './quote-section.html',
   styleUrl: './quote-section.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -58,6 +59,14 @@ export class QuoteSection {
   protected readonly refunding = signal(false);
   /** The payment being accepted or refunded just now. */
   protected readonly answering = signal<number | null>(null);
+  /** The form for cash or a bank transfer is open. */
+  protected readonly recording = signal(false);
+  protected readonly methodLabels = PAYMENT_METHOD_LABELS;
+  /** Something is still owed on the accepted quote, so a payment may be recorded. */
+  protected readonly canRecord = computed(() => {
+    const due = this.payments()?.due;
+    return !!due && (!due.depositPaid || (!due.balancePaid && due.balancePence > 0));
+  });
   protected readonly actionError = signal<string | null>(null);
 
   protected readonly selected = computed<Quote | null>(() => {
@@ -191,6 +200,21 @@ export class QuoteSection {
           this.actionError.set(messageFor(error));
         },
       });
+  }
+
+  /** A payment recorded by hand is in: the list and what is due are read again. */
+  protected paymentRecorded(p: Payment): void {
+    this.recording.set(false);
+    this.notices.info(`${this.paymentKindLabels[p.kind] ?? p.kind} of ${this.pounds(this.received(p))} recorded; the client has been sent a receipt.`);
+    this.api.payments(this.commissionId()).subscribe({ next: (payments) => this.payments.set(payments), error: () => this.state.set('failed') });
+  }
+
+  protected receiptUrl(p: Payment): string {
+    return this.api.receiptUrl(this.commissionId(), p.id);
+  }
+
+  protected invoiceUrl(): string {
+    return this.api.invoiceUrl(this.commissionId());
   }
 
   /** What a payment counts for: what arrived, once it did. */
