@@ -155,7 +155,7 @@ export const FIELD_POLICY = {
     table: 'payments',
     fields: {
       id: { see: OWNER_CLIENT },
-      commissionId: { see: NOBODY },
+      commissionId: { see: OWNER_CLIENT },
       quoteId: { see: OWNER_CLIENT },
       kind: { see: OWNER_CLIENT },
       amountPence: { see: OWNER_CLIENT },

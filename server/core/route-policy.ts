@@ -28,6 +28,8 @@ export const ROUTE_POLICY = {
   'GET /api/clients': SIGNED_IN,
   'POST /api/clients': OWNER,
   'GET /api/clients/:id': SIGNED_IN,
+  // A client's commissions, quotes and payments: money, so the owner's.
+  'GET /api/clients/:id/record': OWNER,
   'PATCH /api/clients/:id': OWNER,
   'DELETE /api/clients/:id': OWNER,
 
