@@ -26,6 +26,7 @@ import { Notices } from '../core/notices';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { Client, ClientDraft } from './client';
+import { ClientHistory } from './client-history';
 import { ClientsApi } from './clients-api';
 import { DeleteClientDialog, DeleteClientDialogData } from './delete-client-dialog';
 
@@ -49,6 +50,7 @@ function optionalText(value: string): string | null {
     MatButtonModule,
     MatIconModule,
     MatProgressBarModule,
+    ClientHistory,
   ],
   templateUrl: './client-form.html',
   styleUrl: './client-form.scss',
