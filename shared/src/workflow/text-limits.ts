@@ -38,3 +38,6 @@ export const DESIGN_TEXT_LIMITS = { blockName: 100, versionNote: 1000, responseN
 
 /** A payment recorded by hand (cash or bank transfer): its reference, and the note given when it is undone. */
 export const PAYMENT_TEXT_LIMITS = { reference: 100, undoNote: 1000 } as const;
+
+/** A photo's caption: the note a client or the studio sends with it. */
+export const PHOTO_TEXT_LIMITS = { caption: 500 } as const;
