@@ -101,6 +101,13 @@ export class QuotesApi {
       .pipe(map((body) => paymentSchema.parse(body)));
   }
 
+  /** The owner takes back a payment recorded by hand, saying why. */
+  undoPayment(commissionId: number, paymentId: number, note: string): Observable<Payment> {
+    return this.http
+      .post<unknown>(`/api/commissions/${commissionId}/payments/${paymentId}/undo`, { note }, quiet)
+      .pipe(map((body) => paymentSchema.parse(body)));
+  }
+
   /** A payment's receipt, and the commission's balance invoice, as PDFs opened by link. */
   receiptUrl(commissionId: number, paymentId: number): string {
     return `/api/commissions/${commissionId}/payments/${paymentId}/receipt`;
