@@ -3,6 +3,8 @@ import { addCommission } from '../testing/fixtures';
 import { sendQuote } from '../testing/money-fixtures';
 
 describe("a client's record: their commissions, quotes and payments", () => {
+  // The first case sends two quotes and records a payment: slow on a busy machine.
+  jest.setTimeout(20_000);
   let t: TestApp;
   let owner: ApiAgent;
   let workroom: ApiAgent;

@@ -7,6 +7,8 @@ import { sendQuote } from '../testing/money-fixtures';
 const words = (pdf: Buffer) => readPdf(pdf).text.replace(/\s+/g, ' ');
 
 describe('money outside the card: payments the owner records, receipts and the balance invoice', () => {
+  // Each case sends and accepts a quote, and several read a PDF back in a reader process of its own: slow on a busy machine.
+  jest.setTimeout(20_000);
   let t: TestApp;
   let owner: ApiAgent;
   let workroom: ApiAgent;
