@@ -98,6 +98,8 @@ export async function seed(knex: Knex): Promise<void> {
       checkoutSessionId: 'cs_demo_deposit_quilt',
       paymentIntentId: 'pi_demo_deposit_quilt',
       paidAt: new Date(Date.now() - 23 * 86_400_000),
+      // A payment that counts has a numbered receipt.
+      receiptNumber: knex.raw(`nextval('payment_receipt_numbers')`),
     });
   }
 

@@ -20,6 +20,11 @@ export function clientsRouter() {
     res.json(await clients.getClient(signedInUser(req), parseId(req.params['id'], 'That client')));
   });
 
+  // The client's page: their commissions, quotes and payments.
+  r.get('/:id/record', async (req, res) => {
+    res.json(await clients.clientRecord(signedInUser(req), parseId(req.params['id'], 'That client')));
+  });
+
   r.patch('/:id', async (req, res) => {
     const id = parseId(req.params['id'], 'That client');
     const input = parseInput(updateClientSchema, req.body, 'client');

@@ -3,6 +3,10 @@ import { fieldsFor, mayUse, present, sortFor, whereMatches } from '../core/field
 import { pageOf } from '../core/paging';
 import { UserModel } from '../models/user-model';
 import { ClientModel } from '../models/client-model';
+import { CommissionModel } from '../models/commission-model';
+import { PaymentModel } from '../models/payment-model';
+import { QuoteModel } from '../models/quote-model';
+import { readTogether } from '../core/read-together';
 import type { CreateClientInput, ListClientsQuery, UpdateClientInput } from './clients-schemas';
 
 const NOT_FOUND = 'That client';
@@ -69,4 +73,39 @@ export async function deleteClient(id: number): Promise<void> {
     const deleted = await ClientModel.query(trx).deleteById(id);
     if (!deleted) throw AppError.notFound(NOT_FOUND);
   });
+}
+
+/**
+ * A client's record for the owner: the client, their commissions (newest
+ * first), every quote sent on them and every payment that moved money, read
+ * in one round trip. Drafts and checkouts never paid are left out: they are
+ * not yet part of the client's history.
+ */
+export async function clientRecord(user: Express.User, id: number) {
+  const [clients, commissions, quotes, payments] = await readTogether([
+    visibleClients(user).where('id', id),
+    CommissionModel.query().select('id', 'title', 'kind', 'stage', 'deadline', 'createdAt').where('clientId', id).orderBy('createdAt', 'desc').orderBy('id', 'desc'),
+    QuoteModel.query()
+      .select('quotes.id', 'quotes.commissionId', 'quotes.version', 'quotes.status', 'quotes.totalPence', 'quotes.depositPence', 'quotes.sentAt', 'quotes.acceptedAt')
+      .join('commissions', 'commissions.id', 'quotes.commissionId')
+      .where('commissions.clientId', id)
+      .whereNot('quotes.status', 'draft')
+      .orderBy('quotes.sentAt', 'desc')
+      .orderBy('quotes.id', 'desc'),
+    PaymentModel.query()
+      .select('payments.id', 'payments.commissionId', 'payments.kind', 'payments.amountPence', 'payments.receivedPence', 'payments.status', 'payments.method', 'payments.reference', 'payments.paidAt', 'payments.receiptNumber')
+      .join('commissions', 'commissions.id', 'payments.commissionId')
+      .where('commissions.clientId', id)
+      .whereNotIn('payments.status', ['pending', 'expired'])
+      .orderBy('payments.paidAt', 'desc')
+      .orderBy('payments.id', 'desc'),
+  ]);
+  const client = clients[0];
+  if (!client) throw AppError.notFound(NOT_FOUND);
+  return {
+    client: clientView(client, user),
+    commissions: commissions.map((c) => present('commission', user.role, c.toJSON())),
+    quotes: quotes.map((q) => present('quote', user.role, q.toJSON())),
+    payments: payments.map((p) => present('payment', user.role, p.toJSON())),
+  };
 }

@@ -53,6 +53,7 @@ const READS_BODY = new Set([
   'PUT /api/quotes/:id',
   'POST /api/quotes/:id/accept',
   'POST /api/quotes/:id/decline',
+  'POST /api/commissions/:id/payments/manual',
 ]);
 
 const FIELDS = ['name', 'email', 'phone', 'title', 'kind', 'ageGroup', 'width', 'height', 'length', 'unit', 'deadline', 'budgetPence', 'to', 'note', 'stage', 'hours', 'workedOn', 'description', 'fibre', 'features', 'place', 'returnMethod', 'correctsEventId', 'grain', 'lines', 'quantity', 'unitPricePence', 'depositPercent', 'vatRate', 'password', 'role', 'clientId', 'body', 'response', 'hourlyRatePence', 'blockMinutes', 'costPence'];
@@ -138,6 +139,8 @@ const VALID: Record<string, { body: (ids: Ids) => Json; refused?: true }> = {
   'PUT /api/quotes/:id': { body: () => quoteBody() },
   'POST /api/quotes/:id/accept': { body: () => ({ name: 'Fuzz Client' }) },
   'POST /api/quotes/:id/decline': { body: () => ({ note: 'Too dear for now.' }) },
+  // A balance before the deposit is paid: refused (409) after its shape is checked, so no payment is recorded.
+  'POST /api/commissions/:id/payments/manual': { body: () => ({ kind: 'balance', amountPence: 12645, method: 'cash', receivedOn: '2026-11-20', reference: 'Cash at the fitting' }), refused: true },
 };
 
 function quoteBody(): Json {

@@ -105,7 +105,10 @@ describe('field x role matrix', () => {
     await owner.post(`/api/commissions/${commission}/design/share`);
     await agents.client.post(`/api/commissions/${commission}/design/response`, { response: 'approved' });
     const quote = await sendQuote(owner, commission);
-    ids = { clients: a.clientId!, commissions: commission, garments: garment.id, photos: photo.id, quotes: quote.id, stock: stock.id };
+    await agents.client.post(`/api/quotes/${quote.id}/accept`, { name: 'Ada Client' });
+    const payment = await owner.post(`/api/commissions/${commission}/payments/manual`, { kind: 'deposit', amountPence: quote.totals.depositPence, method: 'bank_transfer', receivedOn: '2026-11-30', reference: 'ADA DEPOSIT' });
+    if (payment.status !== 201) throw new Error(`payment not recorded: ${JSON.stringify(payment.body)}`);
+    ids = { clients: a.clientId!, commissions: commission, garments: garment.id, photos: photo.id, quotes: quote.id, stock: stock.id, paymentId: payment.body.id };
 
     // Every text column some principal may not see gets its marker (a coded or constrained one is skipped).
     for (const model of MODELS) {
@@ -147,7 +150,7 @@ describe('field x role matrix', () => {
   function url(route: string): string {
     const pattern = route.split(' ')[1]!;
     const area = pattern.split('/')[2]!;
-    return pattern.replace(':id', String(ids[area] ?? 0)).replace(':version', '1').replace(':n', '0');
+    return pattern.replace(':id', String(ids[area] ?? 0)).replace(':paymentId', String(ids['paymentId'])).replace(':version', '1').replace(':n', '0');
   }
 
   it.each(gets)('%s as %s sends no field that role may not see', async (route, role) => {

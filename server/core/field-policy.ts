@@ -158,6 +158,37 @@ export const FIELD_POLICY = {
       totals: { see: OWNER_CLIENT },
     },
   },
+  /** Money: the owner, and the client on its own commissions; never the workroom. */
+  payment: {
+    table: 'payments',
+    fields: {
+      id: { see: OWNER_CLIENT },
+      commissionId: { see: OWNER_CLIENT },
+      quoteId: { see: OWNER_CLIENT },
+      kind: { see: OWNER_CLIENT },
+      amountPence: { see: OWNER_CLIENT },
+      receivedPence: { see: OWNER_CLIENT },
+      status: { see: OWNER_CLIENT },
+      // The card provider's own ids.
+      checkoutSessionId: { see: NOBODY },
+      paymentIntentId: { see: NOBODY },
+      refundId: { see: NOBODY },
+      refundReason: { see: OWNER_CLIENT },
+      paidAt: { see: OWNER_CLIENT },
+      refundedAt: { see: OWNER_CLIENT },
+      createdAt: { see: OWNER_CLIENT },
+      method: { see: OWNER_CLIENT },
+      /** Printed on the receipt. */
+      reference: { see: OWNER_CLIENT },
+      receivedOn: { see: OWNER_CLIENT },
+      receiptNumber: { see: OWNER_CLIENT },
+      recordedBy: { see: NOBODY },
+      undoneAt: { see: OWNER_CLIENT },
+      undoneBy: { see: NOBODY },
+      /** The studio's own reason for taking a payment back. */
+      undoNote: { see: OWNER },
+    },
+  },
   quoteLine: {
     table: 'quote_lines',
     fields: {

@@ -31,6 +31,8 @@ export const ROUTE_POLICY = {
   'GET /api/clients': SIGNED_IN,
   'POST /api/clients': OWNER,
   'GET /api/clients/:id': SIGNED_IN,
+  // A client's commissions, quotes and payments: money, so the owner's.
+  'GET /api/clients/:id/record': OWNER,
   'PATCH /api/clients/:id': OWNER,
   'DELETE /api/clients/:id': OWNER,
   'POST /api/clients/:id/invitation': OWNER,
@@ -107,6 +109,10 @@ export const ROUTE_POLICY = {
   'POST /api/commissions/:id/refund-deposit': OWNER,
   'POST /api/commissions/:id/payments/:paymentId/accept': OWNER,
   'POST /api/commissions/:id/payments/:paymentId/refund': OWNER,
+  'POST /api/commissions/:id/payments/manual': OWNER,
+  'POST /api/commissions/:id/payments/:paymentId/undo': OWNER,
+  'GET /api/commissions/:id/payments/:paymentId/receipt': CLIENT_OR_OWNER,
+  'GET /api/commissions/:id/invoice': CLIENT_OR_OWNER,
   'POST /api/payments/webhook': EVERYONE,
 
   'GET /api/mail/outbox': OWNER,

@@ -3,7 +3,10 @@ import type { Knex } from 'knex';
 import type Stripe from 'stripe';
 import type { AppConfig } from '../core/config';
 import { securedRouter, signedInUser } from '../core/secured-router';
-import { parseId } from '../core/validate';
+import { parseId, parseInput } from '../core/validate';
+import { invoiceFor, receiptFor } from './payment-documents';
+import { recordManualPayment, undoManualPayment } from './manual-payments';
+import { manualPaymentSchema, undoPaymentSchema } from './payments-schemas';
 import * as payments from './payments-service';
 import { paymentState } from './payment-state';
 
@@ -48,6 +51,28 @@ export function paymentsRouter(provider: Stripe, config: AppConfig, kickMail: ()
   });
   commissions.post('/:id/payments/:paymentId/refund', async (req, res) => {
     res.json(await payments.refundPayment(provider, parseId(req.params['id'], 'That commission'), parseId(req.params['paymentId'], 'That payment')));
+  });
+  // Money outside the card checkout: the owner records it (it counts as a card payment does) and may undo it with a note.
+  commissions.post('/:id/payments/manual', async (req, res) => {
+    const id = parseId(req.params['id'], 'That commission');
+    const payment = await recordManualPayment(config, signedInUser(req), id, parseInput(manualPaymentSchema, req.body, 'payment'));
+    kickMail();
+    res.status(201).json(payment);
+  });
+  commissions.post('/:id/payments/:paymentId/undo', async (req, res) => {
+    const { note } = parseInput(undoPaymentSchema, req.body, 'undo');
+    res.json(await undoManualPayment(signedInUser(req), parseId(req.params['id'], 'That commission'), parseId(req.params['paymentId'], 'That payment'), note));
+  });
+  // The receipt of each payment, and the invoice for the balance, as PDFs.
+  commissions.get('/:id/payments/:paymentId/receipt', async (req, res) => {
+    const { pdf, fileName } = await receiptFor(signedInUser(req), parseId(req.params['id'], 'That commission'), parseId(req.params['paymentId'], 'That receipt'));
+    res.type('application/pdf').setHeader('Content-Disposition', `inline; filename="${fileName}"`);
+    res.send(pdf);
+  });
+  commissions.get('/:id/invoice', async (req, res) => {
+    const { pdf, fileName } = await invoiceFor(signedInUser(req), parseId(req.params['id'], 'That commission'));
+    res.type('application/pdf').setHeader('Content-Disposition', `inline; filename="${fileName}"`);
+    res.send(pdf);
   });
   return [quotes.router, commissions.router];
 }

@@ -13,11 +13,14 @@ import { UserModel } from '../models/user-model';
 import { formatPounds } from '@keepstitch/shared';
 import { heldPayment, paymentState } from './payment-state';
 import { PaymentModel, countedPence, type PaymentStatus, type RefundReason } from '../models/payment-model';
+import { present } from '../core/field-policy';
+import type { Role } from '../core/roles';
 
 type Kind = 'deposit' | 'balance';
 
-export function paymentView(p: PaymentModel) {
-  return {
+/** A payment as the role may see it (FIELD_POLICY.payment): the card provider's ids are never sent. */
+export function paymentView(p: PaymentModel, role: Role = 'owner') {
+  return present('payment', role, {
     id: p.id,
     kind: p.kind,
     amountPence: p.amountPence,
@@ -28,14 +31,20 @@ export function paymentView(p: PaymentModel) {
     refundedAt: p.refundedAt,
     createdAt: p.createdAt,
     quoteId: p.quoteId,
-  };
+    method: p.method,
+    reference: p.reference,
+    receivedOn: p.receivedOn,
+    receiptNumber: p.receiptNumber,
+    undoneAt: p.undoneAt,
+    undoNote: p.undoNote,
+  });
 }
 
 /** The payments where money moved: checkouts still open or given up are left out. */
 export async function listPayments(user: Express.User, commissionId: number) {
   await findVisibleCommission(user, commissionId);
-  const rows = await CommissionModel.relatedQuery('payments').for(commissionId).whereNotIn('status', ['pending', 'expired']);
-  return rows.map(paymentView);
+  const rows = await CommissionModel.relatedQuery('payments').for(commissionId).whereNotIn('status', ['pending', 'expired']).orderBy('id');
+  return rows.map((p) => paymentView(p, user.role));
 }
 
 const NOT_ANSWERING = 'The card payment service is not answering. Nothing was charged; please try again in a few minutes.';
@@ -235,8 +244,9 @@ async function recordEvent(trx: Knex.Transaction, config: AppConfig, event: Stri
   return { outcome: 'processed', payment: paid };
 }
 
-/** What a payment that counts does: a deposit books the commission; the client gets a receipt. */
-async function countPayment(trx: Knex.Transaction, config: AppConfig, payment: PaymentModel): Promise<void> {
+/** What a payment that counts does, however it came: it gets the next receipt number, a deposit books the commission, the client gets a receipt. */
+export async function countPayment(trx: Knex.Transaction, config: AppConfig, payment: PaymentModel): Promise<void> {
+  await trx.raw(`UPDATE payments SET receipt_number = nextval('payment_receipt_numbers') WHERE id = ? AND receipt_number IS NULL`, [payment.id]);
   const commission = (await CommissionModel.query(trx).findById(payment.commissionId))!;
   if (payment.kind === 'deposit' && ['enquiry', 'quoted'].includes(commission.stage)) {
     await CommissionModel.query(trx).patch({ stage: 'booked' }).findById(commission.id);
@@ -264,7 +274,7 @@ async function tellOwner(trx: Knex.Transaction, config: AppConfig, payment: Paym
 }
 
 /** The owner's payment of a commission, locked; 404 when it is not one of the commission's. */
-async function lockedPayment(trx: Knex.Transaction, commissionId: number, paymentId: number) {
+export async function lockedPayment(trx: Knex.Transaction, commissionId: number, paymentId: number) {
   const commission = await CommissionModel.query(trx).findById(commissionId).forUpdate();
   if (!commission) throw AppError.notFound('That commission');
   const payment = await PaymentModel.query(trx).findById(paymentId).where('commissionId', commissionId).forUpdate();
@@ -281,7 +291,7 @@ export async function acceptHeldPayment(config: AppConfig, commissionId: number,
     if (payment.status !== 'held') throw new AppError(409, 'not_held', `This payment is not waiting for your review: it is ${WAS[payment.status] ?? payment.status}. Refresh the page to see where it stands.`);
     const paid = await PaymentModel.query(trx).patchAndFetchById(payment.id, { status: 'paid' });
     await countPayment(trx, config, paid);
-    return paymentView(paid);
+    return paymentView((await PaymentModel.query(trx).findById(paid.id))!);
   });
 }
 
@@ -319,4 +329,9 @@ export async function refundDeposit(provider: Stripe, commissionId: number) {
   );
   const updated = await PaymentModel.query().patchAndFetchById(deposit.id, { status: 'refunded', refundId: refund.id, refundReason: 'cancelled', refundedAt: new Date() });
   return paymentView(updated);
+}
+
+/** A receipt's number as printed: R-0001. */
+export function receiptLabel(n: number | null): string {
+  return n === null ? 'not numbered' : `R-${String(n).padStart(4, '0')}`;
 }

@@ -7,6 +7,7 @@ import { ApiAgent, addUser, signedIn, startTestApp, type TestApp } from '../test
 import { addCommission } from '../testing/fixtures';
 import { sendQuote } from '../testing/money-fixtures';
 import { tableFingerprints } from '../testing/table-fingerprints';
+import { readPdf } from '../testing/pdf-reader';
 
 describe('payments through the provider SDK and its webhooks', () => {
   let fake: FakePayments;
@@ -88,10 +89,16 @@ describe('payments through the provider SDK and its webhooks', () => {
     expect(detail.body.stageHistory.at(-1)).toMatchObject({ toStage: 'booked', note: 'Deposit paid' });
     const payments = await client.get(`/api/commissions/${commission}/payments`);
     expect(payments.body.items).toEqual([expect.objectContaining({ kind: 'deposit', amountPence: 12645, status: 'paid' })]);
+    // A card payment is numbered and has its receipt like one recorded by hand.
+    const receipt = await client.get(`/api/commissions/${commission}/payments/${payments.body.items[0].id}/receipt`);
+    const receiptText = readPdf(receipt.body as Buffer).text.replace(/\s+/g, ' ');
+    expect(receiptText).toContain(`Receipt R-${String(payments.body.items[0].receiptNumber).padStart(4, '0')}`);
+    expect(receiptText).toContain('Paid by Card');
     expect(payments.body.due).toMatchObject({ depositPaid: true, balancePence: 29505, balancePaid: false });
     expect(await t.knex('outboxMails').where({ commissionId: commission, kind: 'receipt_deposit' })).toHaveLength(1);
     expect((await client.post(`/api/quotes/${quote.id}/deposit-checkout`)).status).toBe(409);
-  });
+    // Reading the receipt back starts a PDF reader of its own, which takes a few seconds on a busy machine.
+  }, 20_000);
 
   it('refuses a webhook with a bad signature with a 400 and changes nothing', async () => {
     const { sessionId } = await acceptedWithCheckout();

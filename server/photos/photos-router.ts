@@ -1,4 +1,5 @@
 import { randomUUID } from 'node:crypto';
+import { PHOTO_TEXT_LIMITS } from '@keepstitch/shared';
 import { mkdir } from 'node:fs/promises';
 import path from 'node:path';
 import multer from 'multer';
@@ -24,7 +25,7 @@ export function photosRouter(uploadDir: string) {
   const caption = (body: unknown): string | null => {
     const c = (body as { caption?: unknown } | undefined)?.caption;
     if (typeof c === 'string' && hasBadText(c)) throw new AppError(400, 'validation', 'The caption has a character to remove.', { caption: BAD_TEXT_MESSAGE });
-    return typeof c === 'string' && c.trim() ? c.trim().slice(0, 500) : null;
+    return typeof c === 'string' && c.trim() ? c.trim().slice(0, PHOTO_TEXT_LIMITS.caption) : null;
   };
   const files = (req: Express.Request) => (req.files as Express.Multer.File[] | undefined) ?? [];
   /** Runs a handler with the received files, removing them from INCOMING_DIR afterwards whatever happened. */

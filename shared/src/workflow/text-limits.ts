@@ -35,3 +35,9 @@ export const SETTINGS_TEXT_LIMITS = { studioName: 200, makerName: 200, address: 
 
 /** A design: a block kind's name, the note saved with a version, the client's answer to a shared drawing, a bed preset's name. */
 export const DESIGN_TEXT_LIMITS = { blockName: 100, versionNote: 1000, responseNote: 2000, preset: 60 } as const;
+
+/** A payment recorded by hand (cash or bank transfer): its reference, and the note given when it is undone. */
+export const PAYMENT_TEXT_LIMITS = { reference: 100, undoNote: 1000 } as const;
+
+/** A photo's caption: the note a client or the studio sends with it. */
+export const PHOTO_TEXT_LIMITS = { caption: 500 } as const;

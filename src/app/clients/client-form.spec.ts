@@ -161,6 +161,8 @@ describe('ClientForm', () => {
     await setUp('7');
     httpMock.expectOne('/api/clients/7').flush(stored);
     await fixture.whenStable();
+    // The client's commissions, quotes and payments load below the form.
+    httpMock.expectOne('/api/clients/7/record').flush({ commissions: [], quotes: [], payments: [] });
 
     expect(await (await input('name')).getValue()).toBe('Marigold Fenn');
     expect(await (await input('address')).getValue()).toBe('3 Loom Row\nTestford');
@@ -186,6 +188,8 @@ describe('ClientForm', () => {
     await setUp('7');
     httpMock.expectOne('/api/clients/7').flush(stored);
     await fixture.whenStable();
+    // The client's commissions, quotes and payments load below the form.
+    httpMock.expectOne('/api/clients/7/record').flush({ commissions: [], quotes: [], payments: [] });
     const root = TestbedHarnessEnvironment.documentRootLoader(fixture);
 
     await (await button(/Delete$/)).click();

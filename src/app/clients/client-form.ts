@@ -27,6 +27,7 @@ import { keepUnsavedWork } from '../core/unsaved-work';
 import { showDate } from '../ui/dates';
 import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { Client, ClientDraft } from './client';
+import { ClientHistory } from './client-history';
 import { ClientsApi } from './clients-api';
 import { DeleteClientDialog, DeleteClientDialogData } from './delete-client-dialog';
 
@@ -50,6 +51,7 @@ function optionalText(value: string): string | null {
     MatButtonModule,
     MatIconModule,
     MatProgressBarModule,
+    ClientHistory,
   ],
   templateUrl: './client-form.html',
   styleUrl: './client-form.scss',

@@ -58,3 +58,24 @@ export interface ClientQuery {
   dir: SortDirection;
   q: string;
 }
+
+/** A client's history for the owner: commissions, the quotes sent on them, the payments that moved money. */
+export const clientRecordSchema = z.object({
+  commissions: z.array(z.object({ id: z.number(), title: z.string(), stage: z.string(), deadline: z.nullable(z.string()), createdAt: z.string() })),
+  quotes: z.array(z.object({ id: z.number(), commissionId: z.number(), version: z.number(), status: z.string(), totalPence: z.nullable(z.number()), sentAt: z.nullable(z.string()), acceptedAt: z.nullable(z.string()) })),
+  payments: z.array(
+    z.object({
+      id: z.number(),
+      commissionId: z.number(),
+      kind: z.string(),
+      amountPence: z.number(),
+      receivedPence: z.nullable(z.number()),
+      status: z.string(),
+      method: z.string(),
+      reference: z.nullable(z.string()),
+      paidAt: z.nullable(z.string()),
+      receiptNumber: z.nullable(z.number()),
+    }),
+  ),
+});
+export type ClientRecord = z.infer<typeof clientRecordSchema>;

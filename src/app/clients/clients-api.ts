@@ -8,7 +8,9 @@ import {
   ClientDraft,
   ClientPage,
   ClientQuery,
+  ClientRecord,
   clientPageSchema,
+  clientRecordSchema,
   clientSchema,
 } from './client';
 import { REPORT_API_ERRORS } from '../core/api-error';
@@ -43,6 +45,11 @@ export class ClientsApi {
 
   get(id: number): Observable<Client> {
     return this.http.get<unknown>(`${this.base}/${id}`).pipe(map((body) => clientSchema.parse(body)));
+  }
+
+  /** The client's commissions, quotes and payments (the owner's). */
+  record(id: number): Observable<ClientRecord> {
+    return this.http.get<unknown>(`${this.base}/${id}/record`).pipe(map((body) => clientRecordSchema.parse(body)));
   }
 
   create(draft: ClientDraft): Observable<Client> {

@@ -261,3 +261,22 @@ describe('CommissionForm editing', () => {
     expect(navigate).not.toHaveBeenCalled();
   });
 });
+
+describe('CommissionForm: opened from a client’s page', () => {
+  it('chooses the client named in ?client= once the clients have loaded', async () => {
+    TestBed.configureTestingModule({
+      imports: [CommissionForm],
+      providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting(), signedInAs('owner'), { provide: Notices, useValue: jasmine.createSpyObj<Notices>('Notices', ['info', 'error']) }],
+    });
+    const fixture = TestBed.createComponent(CommissionForm);
+    fixture.componentRef.setInput('client', '9');
+    const httpMock = TestBed.inject(HttpTestingController);
+    await fixture.whenStable();
+    httpMock.expectOne((r) => r.url === '/api/clients').flush({ items: [{ id: 4, name: 'Imogen Tallis' }, { id: 9, name: 'Ida Hartley' }], total: 2 });
+    await fixture.whenStable();
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    const client = await (await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Client' }))).getControl(MatSelectHarness);
+    expect(await client!.getValueText()).toBe('Ida Hartley');
+    httpMock.verify();
+  });
+});

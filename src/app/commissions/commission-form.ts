@@ -64,6 +64,8 @@ export class CommissionForm {
 
   /** From the route when editing, `/commissions/:id/edit`; absent for a new commission. */
   readonly id = input<string>();
+  /** From the query string of a new commission (`?client=12`, as the client's page links it): that client is chosen. */
+  readonly client = input<string>();
 
   protected readonly kinds = COMMISSION_KIND.options;
   protected readonly ages = AGE_GROUP.options;
@@ -127,7 +129,11 @@ export class CommissionForm {
         map((page) => page.items),
         catchError(() => of(null)),
       )
-      .subscribe((items) => this.clients.set(items));
+      .subscribe((items) => {
+        this.clients.set(items);
+        const chosen = Number(this.client());
+        if (items?.some((c) => c.id === chosen) && this.form.controls.clientId.value === null) this.form.controls.clientId.setValue(chosen);
+      });
   }
 
   protected loadCommission(): void {

@@ -131,4 +131,33 @@ describe('PortalCommission', () => {
     await fixture.whenStable();
     expect(page.textContent).toContain('“Grey wool cardigan” is added.');
   });
+
+  it('adds photos with a note to a garment already logged, the note sent with each photo', async () => {
+    await (await loader.getHarness(MatButtonHarness.with({ text: /Add photos and a note to “Blue oxford work shirt”/ }))).click();
+    await fixture.whenStable();
+    const note = (await (await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'A note with these photos' }))).getControl(MatInputHarness))!;
+    await note.setValue('  The pocket with his pen mark: please keep it  ');
+    expect(page.querySelector<HTMLTextAreaElement>('[data-testid="add-photos"] textarea')!.maxLength).toBe(500);
+
+    const input = page.querySelector<HTMLInputElement>('[data-testid="add-photos"] input[type=file]')!;
+    const files = new DataTransfer();
+    files.items.add(new File([new Uint8Array(500)], 'pocket.jpg', { type: 'image/jpeg' }));
+    input.files = files.files;
+    input.dispatchEvent(new Event('change'));
+    await fixture.whenStable();
+
+    const upload = httpMock.expectOne('/api/garments/8/photos');
+    const body = upload.request.body as FormData;
+    expect(body.get('photos')).toEqual(jasmine.any(File));
+    expect(body.get('caption')).toBe('The pocket with his pen mark: please keep it');
+    upload.flush({ items: [{ id: 70, kind: 'garment', garmentId: 8, caption: 'The pocket with his pen mark: please keep it', originalName: 'pocket.jpg', width: 20, height: 20, url: '/api/photos/70/image', thumbUrl: '/api/photos/70/thumb', createdAt: '2026-12-04T10:00:00Z' }] }, { status: 201, statusText: 'Created' });
+    await fixture.whenStable();
+    expect(page.textContent).toContain('One photo added to “Blue oxford work shirt”. Thank you!');
+
+    // Done reads the commission again, so the new photo shows under the garment.
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Done' }))).click();
+    httpMock.expectOne('/api/commissions/5').flush(detail);
+    await fixture.whenStable();
+    expect(page.querySelector('[data-testid="add-photos"]')).toBeNull();
+  });
 });

@@ -1,12 +1,13 @@
 import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
-import { FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { FormControl, FormGroup, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { FIBRE, GARMENT_STATUS_LABELS, GARMENT_TEXT_LIMITS, STAGES, STAGE_LABELS } from '@keepstitch/shared';
+import { FIBRE, GARMENT_STATUS_LABELS, GARMENT_TEXT_LIMITS, PHOTO_TEXT_LIMITS, STAGES, STAGE_LABELS } from '@keepstitch/shared';
 
 import { CommissionDetail, GarmentDetail } from '../commissions/commission';
 import { showDate } from '../ui/dates';
@@ -85,8 +86,31 @@ export class PortalCommission {
   /** The server's limits: the fields stop taking text there. */
   protected readonly limits = GARMENT_TEXT_LIMITS;
 
+  /** The garment already logged that the client is adding photos and a note to. */
+  protected readonly photosFor = signal<number | null>(null);
+  /** The note sent with each photo added to that garment (its caption). */
+  protected readonly note = new FormControl('', { nonNullable: true, validators: [Validators.maxLength(PHOTO_TEXT_LIMITS.caption)] });
+  private readonly noteText = toSignal(this.note.valueChanges, { initialValue: '' });
+  protected readonly caption = computed(() => this.noteText().trim() || null);
+  protected readonly captionLimit = PHOTO_TEXT_LIMITS.caption;
+  /** Photos sent to that garment since the panel opened. */
+  protected readonly photosSent = signal(0);
+
   constructor() {
-    keepUnsavedWork(() => this.formOpen() && !this.added() && this.form.dirty);
+    keepUnsavedWork(() => (this.formOpen() && !this.added() && this.form.dirty) || (this.photosFor() !== null && this.note.dirty && this.photosSent() === 0));
+  }
+
+  protected openPhotos(garmentId: number): void {
+    this.note.reset('');
+    this.photosSent.set(0);
+    this.photosFor.set(garmentId);
+  }
+
+  /** Closes the panel; the garment's new photos show once the page has read them again. */
+  protected closePhotos(): void {
+    const sent = this.photosSent();
+    this.photosFor.set(null);
+    if (sent > 0) this.load();
   }
 
   protected load(): void {

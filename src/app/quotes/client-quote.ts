@@ -28,7 +28,7 @@ import { ExternalNavigation } from '../core/external-navigation';
 import { Notices } from '../core/notices';
 import { CautionCards, CautionView } from '../ui/caution-cards';
 import { LoadStatus } from '../ui/load-status';
-import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payments, Quote } from './quote';
+import { PAYMENT_KIND_LABELS, PAYMENT_METHOD_LABELS, PAYMENT_STATUS_LABELS, Payments, Quote } from './quote';
 import { QuoteSummary } from './quote-summary';
 import { QuotesApi } from './quotes-api';
 
@@ -108,6 +108,15 @@ export class ClientQuote {
   protected readonly due = computed(() => this.payments()?.due ?? null);
   /** A payment that reached the studio but not for the amount asked: the studio checks it, and nothing more is asked meanwhile. */
   protected readonly held = computed(() => (this.payments()?.items ?? []).find((p) => p.status === 'held') ?? null);
+  protected readonly methodLabels = PAYMENT_METHOD_LABELS;
+
+  protected receiptUrl(paymentId: number): string {
+    return this.api.receiptUrl(this.commissionId(), paymentId);
+  }
+
+  protected invoiceUrl(): string {
+    return this.api.invoiceUrl(this.commissionId());
+  }
   protected readonly canPayDeposit = computed(() => {
     const q = this.quote();
     const due = this.due();

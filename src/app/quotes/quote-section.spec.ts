@@ -186,4 +186,46 @@ describe('QuoteSection: payments that need the owner', () => {
       ['Deposit', '£126.45', 'Refunded (paid twice)'],
     ]);
   });
+
+  it('records a cash deposit from the form, then lists it with its method, reference and receipt', async () => {
+    await open([]);
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Record a cash or bank-transfer payment' }))).click();
+    const reference = (fixture.nativeElement as HTMLElement).querySelector<HTMLInputElement>('ks-record-payment-form input[formcontrolname="reference"]')!;
+    reference.value = 'Cash at the fitting';
+    reference.dispatchEvent(new Event('input'));
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Record payment' }))).click();
+    const req = httpMock.expectOne({ method: 'POST', url: '/api/commissions/7/payments/manual' });
+    expect(req.request.body).toEqual(jasmine.objectContaining({ kind: 'deposit', amountPence: 12645, method: 'cash', reference: 'Cash at the fitting' }));
+    const cash = { ...paid, id: 40, method: 'cash', reference: 'Cash at the fitting', receivedOn: '2026-12-04', receiptNumber: 12 };
+    req.flush(cash, { status: 201, statusText: 'Created' });
+    httpMock.expectOne('/api/commissions/7/payments').flush({ items: [cash], due: { ...due, depositPaid: true, balancePence: 29505 } });
+    await fixture.whenStable();
+    expect(notices.info).toHaveBeenCalledWith('Deposit of £126.45 recorded; the client has been sent a receipt.');
+    const cells = Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('[data-testid="payment-row"] td')).map((c) => c.textContent!.replace(/\s+/g, ' ').trim());
+    expect(cells[3]).toBe('Cash (Cash at the fitting)');
+    expect((fixture.nativeElement as HTMLElement).querySelector('[data-testid="payment-row"] a')!.getAttribute('href')).toBe('/api/commissions/7/payments/40/receipt');
+    expect(await (await loader.getHarness(MatButtonHarness.with({ text: 'Record a cash or bank-transfer payment' }))).isDisabled()).toBeFalse();
+  });
+
+  it('undoes a payment recorded by hand only with a note saying why', async () => {
+    const cash = { ...paid, id: 40, method: 'cash', reference: 'Cash at the fitting', receiptNumber: 12 };
+    await open([cash], { ...due, depositPaid: true, balancePence: 29505 });
+    const loader = TestbedHarnessEnvironment.loader(fixture);
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Undo…' }))).click();
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Undo payment' }))).click();
+    httpMock.expectNone('/api/commissions/7/payments/40/undo');
+    expect(text('undo-payment')[0]).toContain('Say why this payment is undone');
+    const note = (fixture.nativeElement as HTMLElement).querySelector<HTMLTextAreaElement>('[data-testid="undo-payment"] textarea')!;
+    note.value = 'Recorded on the wrong commission';
+    note.dispatchEvent(new Event('input'));
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Undo payment' }))).click();
+    const req = httpMock.expectOne({ method: 'POST', url: '/api/commissions/7/payments/40/undo' });
+    expect(req.request.body).toEqual({ note: 'Recorded on the wrong commission' });
+    req.flush({ ...cash, status: 'undone' });
+    httpMock.expectOne('/api/commissions/7/payments').flush({ items: [{ ...cash, status: 'undone' }], due });
+    await fixture.whenStable();
+    expect(rows()).toEqual([['Deposit', '£126.45', 'Undone by the studio']]);
+    expect(text('undo-payment')).toEqual([]);
+  });
 });

@@ -1,20 +1,25 @@
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, output, signal, untracked } from '@angular/core';
+import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
+import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
-import { Stage, formatPounds } from '@keepstitch/shared';
+import { MatInputModule } from '@angular/material/input';
+import { PAYMENT_TEXT_LIMITS, Stage, formatPounds } from '@keepstitch/shared';
 import { filter, forkJoin, switchMap } from 'rxjs';
 
 import { showDate, showDateTime } from '../ui/dates';
 import { messageFor } from '../core/api-error';
 import { Notices } from '../core/notices';
 import { SettingsApi } from '../settings/settings-api';
+import { FieldError } from '../ui/field-error';
 import { LoadStatus } from '../ui/load-status';
 import { ConfirmDialog, ConfirmDialogData } from '../core/confirm-dialog';
-import { PAYMENT_KIND_LABELS, PAYMENT_STATUS_LABELS, Payment, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft, REFUND_REASON_LABELS } from './quote';
+import { PAYMENT_KIND_LABELS, PAYMENT_METHOD_LABELS, PAYMENT_STATUS_LABELS, Payment, Payments, QUOTE_STATUS_LABELS, Quote, QuoteDraft, REFUND_REASON_LABELS } from './quote';
 import { QuoteEditor } from './quote-editor';
 import { QuoteSummary } from './quote-summary';
 import { QuotesApi } from './quotes-api';
+import { RecordPaymentForm } from './record-payment-form';
 
 /**
  * The owner's quotes and payments for one commission: every version, the
@@ -26,7 +31,7 @@ import { QuotesApi } from './quotes-api';
  */
 @Component({
   selector: 'ks-quote-section',
-  imports: [MatButtonModule, MatIconModule, QuoteEditor, QuoteSummary, LoadStatus],
+  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, QuoteEditor, QuoteSummary, LoadStatus, RecordPaymentForm, FieldError],
   templateUrl: './quote-section.html',
   styleUrl: './quote-section.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -58,6 +63,19 @@ export class QuoteSection {
   protected readonly refunding = signal(false);
   /** The payment being accepted or refunded just now. */
   protected readonly answering = signal<number | null>(null);
+  /** The form for cash or a bank transfer is open. */
+  protected readonly recording = signal(false);
+  protected readonly methodLabels = PAYMENT_METHOD_LABELS;
+  /** The payment recorded by hand that the owner is undoing, and why. */
+  protected readonly undoing = signal<Payment | null>(null);
+  protected readonly undoNote = new FormControl('', { nonNullable: true, validators: [Validators.required, Validators.pattern(/\S/), Validators.maxLength(PAYMENT_TEXT_LIMITS.undoNote)] });
+  protected readonly undoLimit = PAYMENT_TEXT_LIMITS.undoNote;
+  protected readonly undoError = signal<string | null>(null);
+  /** Something is still owed on the accepted quote, so a payment may be recorded. */
+  protected readonly canRecord = computed(() => {
+    const due = this.payments()?.due;
+    return !!due && (!due.depositPaid || (!due.balancePaid && due.balancePence > 0));
+  });
   protected readonly actionError = signal<string | null>(null);
 
   protected readonly selected = computed<Quote | null>(() => {
@@ -191,6 +209,45 @@ export class QuoteSection {
           this.actionError.set(messageFor(error));
         },
       });
+  }
+
+  /** A payment recorded by hand is in: the list and what is due are read again. */
+  protected paymentRecorded(p: Payment): void {
+    this.recording.set(false);
+    this.notices.info(`${this.paymentKindLabels[p.kind] ?? p.kind} of ${this.pounds(this.received(p))} recorded; the client has been sent a receipt.`);
+    this.api.payments(this.commissionId()).subscribe({ next: (payments) => this.payments.set(payments), error: () => this.state.set('failed') });
+  }
+
+  protected startUndo(p: Payment): void {
+    this.undoNote.reset('');
+    this.undoError.set(null);
+    this.undoing.set(p);
+  }
+
+  protected undoPayment(): void {
+    const p = this.undoing();
+    if (!p) return;
+    if (this.undoNote.invalid) {
+      this.undoNote.markAsTouched();
+      return;
+    }
+    this.undoError.set(null);
+    this.api.undoPayment(this.commissionId(), p.id, this.undoNote.value.trim()).subscribe({
+      next: () => {
+        this.undoing.set(null);
+        this.notices.info(`${this.paymentKindLabels[p.kind] ?? p.kind} of ${this.pounds(this.received(p))} undone; it no longer counts.`);
+        this.api.payments(this.commissionId()).subscribe({ next: (payments) => this.payments.set(payments), error: () => this.state.set('failed') });
+      },
+      error: (error: unknown) => this.undoError.set(messageFor(error)),
+    });
+  }
+
+  protected receiptUrl(p: Payment): string {
+    return this.api.receiptUrl(this.commissionId(), p.id);
+  }
+
+  protected invoiceUrl(): string {
+    return this.api.invoiceUrl(this.commissionId());
   }
 
   /** What a payment counts for: what arrived, once it did. */

@@ -82,6 +82,7 @@ export const PAYMENT_STATUS_LABELS: Readonly<Record<string, string | undefined>>
   held: 'Held for checking',
   overpaid: 'Paid twice: to be refunded',
   refunded: 'Refunded',
+  undone: 'Undone by the studio',
 };
 
 /** Why a refunded payment went back, when it was not a cancellation. */
@@ -101,8 +102,27 @@ export const paymentSchema = z.object({
   refundReason: text,
   paidAt: text,
   refundedAt: text,
+  /** card, cash or bank_transfer; absent from a server that does not send it. */
+  method: z.optional(z.string()),
+  reference: z.optional(z.nullable(z.string())),
+  receivedOn: z.optional(z.nullable(z.string())),
+  /** Set once the payment counts: it then has a receipt. */
+  receiptNumber: z.optional(z.nullable(z.number())),
+  undoNote: z.optional(z.nullable(z.string())),
 });
 export type Payment = z.infer<typeof paymentSchema>;
+
+/** How a payment came. */
+export const PAYMENT_METHOD_LABELS: Readonly<Record<string, string | undefined>> = { card: 'Card', cash: 'Cash', bank_transfer: 'Bank transfer' };
+
+/** A payment the owner records by hand. */
+export interface ManualPayment {
+  kind: 'deposit' | 'balance';
+  amountPence: number;
+  method: 'cash' | 'bank_transfer';
+  receivedOn: string;
+  reference: string;
+}
 
 export const paymentsSchema = z.object({
   items: z.array(paymentSchema),

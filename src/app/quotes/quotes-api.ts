@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import { Observable, map } from 'rxjs';
 
 import { REPORT_API_ERRORS } from '../core/api-error';
-import { Payment, Payments, Quote, QuoteDraft, QuoteSuggestion, checkoutSchema, paymentSchema, paymentsSchema, quoteListSchema, quoteSchema, suggestionSchema } from './quote';
+import { ManualPayment, Payment, Payments, Quote, QuoteDraft, QuoteSuggestion, checkoutSchema, paymentSchema, paymentsSchema, quoteListSchema, quoteSchema, suggestionSchema } from './quote';
 
 /** Errors of these calls are shown by the page beside the button or form that made them. */
 const quiet = { context: new HttpContext().set(REPORT_API_ERRORS, false) };
@@ -92,5 +92,28 @@ export class QuotesApi {
     return this.http
       .post<unknown>(`/api/commissions/${commissionId}/payments/${paymentId}/refund`, null, quiet)
       .pipe(map((body) => paymentSchema.parse(body)));
+  }
+
+  /** The owner records money received outside the card checkout. */
+  recordPayment(commissionId: number, payment: ManualPayment): Observable<Payment> {
+    return this.http
+      .post<unknown>(`/api/commissions/${commissionId}/payments/manual`, payment, quiet)
+      .pipe(map((body) => paymentSchema.parse(body)));
+  }
+
+  /** The owner takes back a payment recorded by hand, saying why. */
+  undoPayment(commissionId: number, paymentId: number, note: string): Observable<Payment> {
+    return this.http
+      .post<unknown>(`/api/commissions/${commissionId}/payments/${paymentId}/undo`, { note }, quiet)
+      .pipe(map((body) => paymentSchema.parse(body)));
+  }
+
+  /** A payment's receipt, and the commission's balance invoice, as PDFs opened by link. */
+  receiptUrl(commissionId: number, paymentId: number): string {
+    return `/api/commissions/${commissionId}/payments/${paymentId}/receipt`;
+  }
+
+  invoiceUrl(commissionId: number): string {
+    return `/api/commissions/${commissionId}/invoice`;
   }
 }
