@@ -285,6 +285,8 @@ export const FIELD_POLICY = {
       /** Only the hash of the feed's secret is kept, and it never leaves the server. */
       calendarFeedHash: { see: NOBODY },
       calendarFeedMadeAt: { see: OWNER },
+      /** The order dates are typed in: every signed-in form needs it (GET /api/settings/locale). */
+      locale: { see: ALL },
       updatedAt: { see: OWNER },
     },
   },
