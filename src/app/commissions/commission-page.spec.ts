@@ -80,6 +80,11 @@ const studioSettings = {
   validityDays: 30,
   paymentTerms: '',
   blockMinutes: {},
+  remindQuoteExpiry: true,
+  remindBalanceDue: true,
+  remindGarmentsLate: true,
+  garmentsLateDays: 14,
+  calendarFeedMadeAt: null,
   locale: 'en-GB',
 };
 

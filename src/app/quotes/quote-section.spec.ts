@@ -24,6 +24,11 @@ const settings = {
   validityDays: 30,
   paymentTerms: '',
   blockMinutes: {},
+  remindQuoteExpiry: true,
+  remindBalanceDue: true,
+  remindGarmentsLate: true,
+  garmentsLateDays: 14,
+  calendarFeedMadeAt: null,
   locale: 'en-GB',
   updatedAt: '2026-12-01T10:00:00Z',
 };
