@@ -396,8 +396,8 @@ describe('planCuts: bad input', () => {
 
 describe('planCuts: perfect-packing instances', () => {
   // The sheet is cut into the pieces by guillotine cuts, so 100% fill is
-  // possible by construction (the construction of Hopper's category N sets,
-  // Hopper 2000; generated here, the published files are not used). The
+  // possible by construction (the project's own recursive-cut construction,
+  // perfect-instance.ts; no published set is used). The
   // planner is a heuristic: only the area bound and the checker are asserted,
   // never optimality. The fills are reported below.
   const fills: string[] = [];
