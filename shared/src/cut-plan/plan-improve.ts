@@ -30,9 +30,23 @@ interface Region {
   h: number;
 }
 
+/**
+ * What goes in a region's corner: one piece, or two with a side in common
+ * laid side by side ('v': b beside a) or one above the other ('h': b under a),
+ * a block that leaves no waste between them.
+ */
+interface Item {
+  w: number;
+  h: number;
+  area: number;
+  a: Orientation;
+  b: Orientation | null;
+  dir: 'h' | 'v';
+}
+
 interface Decision {
   region: Region;
-  option: Orientation;
+  option: Item;
   /** 'row': cut under the piece across the region first; 'column': beside it down the region first. */
   split: 'row' | 'column';
   right: Region | null;
@@ -81,6 +95,7 @@ export function packRegion(
   let placed = 0;
   let limit = 0;
   let order: Orientation[] = opts;
+  let items: Item[] = [];
   let aborted = false;
   let root: Region = { x: 0, y: 0, w: W, h: H };
   let bestRoot = root;
@@ -116,14 +131,16 @@ export function packRegion(
       // Candidates: pieces filling the region's width or height exactly first, then larger first.
       let tried = 0;
       for (let pass = 0; pass < 3 && !aborted; pass++) {
-        for (let i = 0; i < order.length && !aborted; i++) {
-          const o = order[i];
-          if (counts[o.type] <= 0 || o.w > region.w || o.h > region.h) continue;
+        for (let i = 0; i < items.length && !aborted; i++) {
+          const o = items[i];
+          if (o.w > region.w || o.h > region.h || counts[o.a.type] <= 0) continue;
+          if (o.b && counts[o.b.type] <= (o.b.type === o.a.type ? 1 : 0)) continue;
           const exact = Number(o.w === region.w) + Number(o.h === region.h);
           if ((pass === 0 && exact < 2) || (pass === 1 && exact !== 1) || (pass === 2 && exact !== 0)) continue;
           if (tried >= BRANCHES) break;
           tried++;
-          counts[o.type]--;
+          counts[o.a.type]--;
+          if (o.b) counts[o.b.type]--;
           left -= o.area;
           placed += o.area;
           const splits: ('row' | 'column')[] = o.w === region.w || o.h === region.h ? ['row'] : ['row', 'column'];
@@ -154,7 +171,8 @@ export function packRegion(
           }
           placed -= o.area;
           left += o.area;
-          counts[o.type]++;
+          counts[o.a.type]++;
+          if (o.b) counts[o.b.type]++;
         }
       }
       // Or leave the region empty.
@@ -174,6 +192,7 @@ export function packRegion(
       const noise = new Map(opts.map((o) => [o, o.area * (0.7 + 0.6 * random())]));
       order = [...opts].sort((a, b) => (noise.get(b) as number) - (noise.get(a) as number));
     } else order = [...opts].sort((a, b) => b.area - a.area || Math.max(b.w, b.h) - Math.max(a.w, a.h));
+    items = blocks(order, W, H);
     stack.length = 0;
     root = { x: 0, y: 0, w: W, h: H };
     stack.push(root);
@@ -185,9 +204,40 @@ export function packRegion(
   if (!bestDecisions) return null;
   const chosen = bestDecisions as Decision[];
   const used = new Int32Array(typeCount);
-  for (const d of chosen) used[d.option.type]++;
+  for (const d of chosen) {
+    used[d.option.a.type]++;
+    if (d.option.b) used[d.option.b.type]++;
+  }
   return { area: best, tree: buildTree(bestRoot, chosen), used, complete, nodes };
 }
+
+/**
+ * The items of a piece order: each piece, and (up to MAX_BLOCKS) each pair
+ * with a side in common that fits the region together, in the order of their
+ * first piece; a pair comes just before its first piece alone.
+ */
+function blocks(order: Orientation[], W: number, H: number): Item[] {
+  const items: Item[] = [];
+  let pairs = 0;
+  for (const a of order) {
+    for (const b of order) {
+      if (pairs >= MAX_BLOCKS) break;
+      if (a.h === b.h && a.w + b.w <= W) {
+        items.push({ w: a.w + b.w, h: a.h, area: a.area + b.area, a, b, dir: 'v' });
+        pairs++;
+      }
+      if (a.w === b.w && a.h + b.h <= H) {
+        items.push({ w: a.w, h: a.h + b.h, area: a.area + b.area, a, b, dir: 'h' });
+        pairs++;
+      }
+    }
+    items.push({ w: a.w, h: a.h, area: a.area, a, b: null, dir: 'h' });
+  }
+  return items;
+}
+
+/** Most two-piece blocks tried. */
+const MAX_BLOCKS = 1_500;
 
 /** Candidate pieces tried in each free region (the search's width). */
 const BRANCHES = 4;
@@ -199,7 +249,18 @@ function buildTree(root: Region, decisions: Decision[]): CutNode {
     const d = byRegion.get(r);
     if (!d) return { kind: 'empty', x: r.x, y: r.y, w: r.w, h: r.h } as EmptyNode;
     const o = d.option;
-    const piece: PieceNode = { kind: 'piece', x: r.x, y: r.y, w: o.w, h: o.h, type: o.type, pinned: -1, rotated: o.rotated };
+    const single = (q: Orientation, x: number, y: number): PieceNode => ({ kind: 'piece', x, y, w: q.w, h: q.h, type: q.type, pinned: -1, rotated: q.rotated });
+    const piece: CutNode = !o.b
+      ? single(o.a, r.x, r.y)
+      : ({
+          kind: 'split',
+          dir: o.dir,
+          x: r.x,
+          y: r.y,
+          w: o.w,
+          h: o.h,
+          children: [single(o.a, r.x, r.y), o.dir === 'v' ? single(o.b, r.x + o.a.w, r.y) : single(o.b, r.x, r.y + o.a.h)],
+        } as SplitNode);
     const sub = (reg: Region | null, x: number, y: number, w: number, h: number): CutNode =>
       reg ? node(reg) : ({ kind: 'empty', x, y, w, h } as EmptyNode);
     if (d.split === 'row') {
