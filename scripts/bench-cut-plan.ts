@@ -18,7 +18,10 @@ import { runInNewContext } from 'node:vm';
 import { performance } from 'node:perf_hooks';
 import potpack from 'potpack';
 import { planCuts, type CutPlanInput, type GarmentPanelInput, type PieceInput } from '../shared/src/cut-plan/index';
+import { INTERACTIVE_BUDGET_MS, THOROUGH_BUDGET_MS } from '../shared/src/cut-plan/cut-plan';
+import { exactGuillotine } from '../shared/src/cut-plan/exact-guillotine';
 import { checkPlan } from '../shared/src/cut-plan/plan-checker';
+import { perfectInstance, seededRandom } from '../shared/src/cut-plan/perfect-instance';
 import { INSTANCES, type Instance } from './bench-cut-plan-instances';
 
 const HEADLINE = 'king, 60 g / 1000 p';
@@ -295,6 +298,71 @@ function main(): void {
     ],
     ['every planner plan passes the independent checker', valid],
   ];
+  for (const r of rows) {
+    const name = r.inst.name;
+    checks.push([
+      `${name}: planner ${pct(r.planner.outcome.area / r.fabric)} >= maxrects-packer ${pct(r.maxrects.outcome.area / r.fabric)} and > potpack ${pct(r.potpack.outcome.area / r.fabric)}`,
+      r.planner.outcome.area >= r.maxrects.outcome.area && r.planner.outcome.area > r.potpack.outcome.area,
+    ]);
+  }
+  // 40 generated guillotine perfect packings, 15 to 100 pieces, at the printing budget.
+  console.log('');
+  console.log(`40 perfect packings (the project's recursive-cut construction), planner at ${THOROUGH_BUDGET_MS} ms budget, maxrects-packer alongside:`);
+  let fillSum = 0;
+  let full = 0;
+  let perfectFaults = 0;
+  for (let i = 0; i < 40; i++) {
+    const seed = 301 + i;
+    const count = 15 + Math.round((i * 85) / 39);
+    const side = 40 + 2 * Math.round(count / 2);
+    const inst = perfectInstance(seed, side, side, count);
+    const input: CutPlanInput = {
+      panels: [{ garmentId: 'sheet', panelId: 'sheet', width: side, height: side }],
+      pieces: inst.pieces.map((p, k) => ({ id: `p${k + 1}`, width: p.width, height: p.height, count: 1 })),
+    };
+    const plan = planCuts(input, { budgetMs: THOROUGH_BUDGET_MS });
+    perfectFaults += checkPlan(input, plan).length;
+    const fill = plan.totals.yield;
+    fillSum += fill;
+    if (fill >= 1 - 1e-12) full++;
+    console.log(`  seed ${seed}, ${side} x ${side}, ${count} pieces: planner ${pct(fill)}, maxrects ${pct(runMaxRects(input).area / (side * side))}`);
+  }
+  checks.push([`40 perfect packings: mean fill ${pct(fillSum / 40)} >= 99.5%`, fillSum / 40 >= 0.995]);
+  checks.push([`40 perfect packings: ${full} filled 100% (>= 20)`, full >= 20]);
+  checks.push([`40 perfect packings: every plan passes the checker`, perfectFaults === 0]);
+
+  // The gap to the optimum on 30 small one-panel instances, by the exact solver.
+  console.log('');
+  console.log(`30 small one-panel instances: planner (${INTERACTIVE_BUDGET_MS} ms budget) against the exact guillotine optimum:`);
+  let worst = 0;
+  let proven = 0;
+  const random = seededRandom(777);
+  for (let k = 0; k < 30; k++) {
+    const W = 10 + Math.floor(random() * 11);
+    const H = 10 + Math.floor(random() * 11);
+    const n = 5 + Math.floor(random() * 4);
+    const sizes = Array.from({ length: n }, () => ({ w: 1 + Math.floor(random() * (W / 2)), h: 1 + Math.floor(random() * (H / 2)) }));
+    const input: CutPlanInput = {
+      panels: [{ garmentId: 'g', panelId: 'g', width: W, height: H }],
+      pieces: sizes.map((p, i) => ({ id: `p${i + 1}`, width: p.w, height: p.h, count: 1 })),
+    };
+    const plan = planCuts(input, { budgetMs: INTERACTIVE_BUDGET_MS });
+    // The exact solver need only beat the planner's area (whole square units here).
+    const planned = Math.round(plan.totals.areaPlaced);
+    const exact = exactGuillotine(W, H, sizes.map((p) => ({ w: p.w, h: p.h, turn: true })), 1_000_000, planned);
+    const optimum = Math.max(exact.area, planned) / (W * H);
+    const gap = (optimum - plan.totals.yield) * 100;
+    if (exact.proven) {
+      proven++;
+      worst = Math.max(worst, gap);
+    }
+    console.log(
+      `  ${W} x ${H}, ${n} pieces: planner ${pct(plan.totals.yield)}, ` +
+        (exact.proven ? `optimum ${pct(optimum)} (proven), gap ${gap.toFixed(2)} points` : `best known ${pct(optimum)}, not proven within the exact solver's node limit`),
+    );
+  }
+  checks.push([`30 small instances: largest gap to a proven optimum ${worst.toFixed(2)} points <= 1 (${proven} of 30 proven)`, worst <= 1 && proven === 30]);
+
   for (const [text, ok] of checks) console.log(`${ok ? 'PASS' : 'FAIL'}  ${text}`);
   if (checks.some(([, ok]) => !ok)) process.exitCode = 1;
 }

@@ -2,8 +2,8 @@ import { perfectInstance, seededRandom } from './perfect-instance';
 
 describe('perfect-packing instances', () => {
   it('cuts the sheet into pieces whose areas sum exactly to the sheet', () => {
-    // derived: guillotine cuts of a sheet conserve its area (the construction of
-    // Hopper's category N sets, Hopper 2000).
+    // derived: straight edge-to-edge cuts of a sheet conserve its area (the
+    // project's own recursive-cut construction).
     for (const seed of [1, 2, 3, 42]) {
       const instance = perfectInstance(seed, 60, 40, 25);
       expect(instance.pieces).toHaveLength(25);

@@ -109,9 +109,15 @@ function shortLines(planned: CutPlan, input: CutPlanInput, pins: readonly Featur
 }
 
 /** Plans a derived design's cuts and reads the plan for the maker. */
-export function planDesign(body: DesignBody, derivation: DesignDerivation, sources: DesignSources): DesignPlanSummary {
+export function planDesign(
+  body: DesignBody,
+  derivation: DesignDerivation,
+  sources: DesignSources,
+  options: { budgetMs?: number } = {},
+): DesignPlanSummary {
   const { input, pins, unheld } = planInput(body, derivation, sources);
-  const planned = planCuts(input);
+  // The page's interactive budget unless the caller (printing, saving) gives more.
+  const planned = planCuts(input, { budgetMs: options.budgetMs });
   const plan = inDesignPieces(planned, pins);
   const pinByFeature = new Map(pins.map((pin) => [pin.feature.featureId, pin]));
   const keptFeatures: KeptFeaturePiece[] = plan.placements.flatMap((pl) => {
