@@ -154,7 +154,8 @@ describe('quotes and payments, end to end', () => {
     await workroom.page.goto(commissionPath);
     await workroom.page.getByRole('heading', { name: 'Garments' }).waitFor();
     expect(await workroom.page.getByRole('heading', { name: 'Quote', exact: true }).count()).toBe(0);
-    expect(requests.filter((p) => /quotes|payments|settings/.test(p))).toEqual([]);
+    // The studio's locale (the order dates are typed in) is every role's; the settings themselves are the owner's.
+    expect(requests.filter((p) => /quotes|payments|settings/.test(p) && p !== '/api/settings/locale')).toEqual([]);
     expect(appProblems([...problems, ...workroom.problems])).toEqual([]);
     await workroom.page.context().close();
   });
