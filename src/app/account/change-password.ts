@@ -14,6 +14,7 @@ import { apiErrorOf, messageFor } from '../core/api-error';
 import { keepUnsavedWork } from '../core/unsaved-work';
 import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { AccountApi } from './account-api';
+import { FieldError } from '../ui/field-error';
 
 /** The repeated password must match the new one. */
 function sameAsNew(control: AbstractControl): ValidationErrors | null {
@@ -26,6 +27,7 @@ function sameAsNew(control: AbstractControl): ValidationErrors | null {
 @Component({
   selector: 'ks-change-password',
   imports: [
+    FieldError,
     ReactiveFormsModule,
     MatButtonModule,
     MatCardModule,

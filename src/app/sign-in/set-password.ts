@@ -16,6 +16,7 @@ import { Auth } from '../core/auth';
 import { homeFor } from '../core/user';
 import { applyServerFieldErrors } from '../ui/server-field-errors';
 import { PasswordLinksApi } from './password-links-api';
+import { FieldError } from '../ui/field-error';
 
 function sameAsPassword(control: AbstractControl): ValidationErrors | null {
   const wanted = (control.parent as FormGroup | null)?.get('password')?.value as string | undefined;
@@ -28,7 +29,7 @@ function sameAsPassword(control: AbstractControl): ValidationErrors | null {
  */
 @Component({
   selector: 'ks-set-password',
-  imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [ReactiveFormsModule, RouterLink, FieldError, MatCardModule, MatCheckboxModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatProgressBarModule],
   templateUrl: './set-password.html',
   styleUrl: './sign-in.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
