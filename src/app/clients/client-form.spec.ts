@@ -213,11 +213,14 @@ describe('ClientForm', () => {
   });
 
   const text = (testId: string) => (fixture.nativeElement.querySelector(`[data-testid=${testId}]`)?.textContent ?? '').replace(/\s+/g, ' ').trim();
+  /** The client's record loads below the form; these cases are about the invitation. */
+  const recordLoaded = () => httpMock.match('/api/clients/7/record').forEach((r) => r.flush({ commissions: [], quotes: [], payments: [] }));
 
   it('invites a stored client to their page, then shows the invitation as sent and offers to send it again', async () => {
     await setUp('7');
     httpMock.expectOne('/api/clients/7').flush({ ...stored, invitationState: 'not_sent', invitationSentAt: null });
     await fixture.whenStable();
+    recordLoaded();
     expect(text('invitation-state')).toMatch(/^Not invited yet/);
 
     await (await button(/Invite to their page$/)).click();
@@ -233,6 +236,7 @@ describe('ClientForm', () => {
     await setUp('7');
     httpMock.expectOne('/api/clients/7').flush({ ...stored, email: null, invitationState: 'not_sent', invitationSentAt: null });
     await fixture.whenStable();
+    recordLoaded();
     expect(await (await button(/Invite to their page$/)).isDisabled()).toBeTrue();
     expect(fixture.nativeElement.textContent).toContain('Add an e-mail address and save before inviting them.');
   });
@@ -241,6 +245,7 @@ describe('ClientForm', () => {
     await setUp('7');
     httpMock.expectOne('/api/clients/7').flush({ ...stored, invitationState: 'sent', invitationSentAt: '2026-12-01T09:00:00Z' });
     await fixture.whenStable();
+    recordLoaded();
     await (await button(/Send the invitation again$/)).click();
     httpMock
       .expectOne('/api/clients/7/invitation')
@@ -252,6 +257,7 @@ describe('ClientForm', () => {
     await setUp('7');
     httpMock.expectOne('/api/clients/7').flush({ ...stored, invitationState: 'accepted', invitationSentAt: '2026-12-01T09:00:00Z' });
     await fixture.whenStable();
+    recordLoaded();
     expect(text('invitation-state')).toBe('Can sign in to their page.');
     expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /invitation|Invite/ }))).toHaveSize(0);
   });
@@ -260,6 +266,7 @@ describe('ClientForm', () => {
     await setUp('7');
     httpMock.expectOne('/api/clients/7').flush(stored);
     await fixture.whenStable();
+    recordLoaded();
     expect(fixture.nativeElement.querySelector('[data-testid=invitation-state]')).toBeNull();
   });
 });
