@@ -22,7 +22,7 @@ describe('ChangePassword', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const field = (label: string) => loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }));
   async function type(label: string, value: string): Promise<void> {

@@ -64,7 +64,7 @@ describe('ClientForm', () => {
     await fixture.whenStable();
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('labels every field and explains what is missing or wrong before sending', async () => {
     await setUp();

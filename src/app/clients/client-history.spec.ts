@@ -29,7 +29,7 @@ describe("ClientHistory: a client's commissions, quotes and payments", () => {
     fixture.componentRef.setInput('clientId', 4);
     fixture.detectChanges();
   });
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('lists each commission with a link, the quotes sent and the payments with their receipts', async () => {
     httpMock.expectOne('/api/clients/4/record').flush(record);

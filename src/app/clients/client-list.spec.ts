@@ -76,7 +76,7 @@ describe('ClientList', () => {
     return element ? (element.textContent ?? '').replace(/\s+/g, ' ').trim() : null;
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('asks for the first page sorted by name, and shows contact columns to the owner', async () => {
     await setUp('owner');

@@ -62,7 +62,7 @@ describe('CommissionBoard', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   function titlesIn(stage: string): string[] {
     const column = (fixture.nativeElement as HTMLElement).querySelector(`[data-testid="board-column-${stage}"]`)!;

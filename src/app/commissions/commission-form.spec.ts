@@ -40,7 +40,7 @@ describe('CommissionForm', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const select = (label: string) =>
     loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label })).then((f) => f.getControl(MatSelectHarness));
@@ -155,7 +155,7 @@ describe('CommissionForm editing', () => {
     await fixture.whenStable();
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const input = async (label: string) =>
     (await (await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }))).getControl(MatInputHarness))!;

@@ -56,7 +56,7 @@ describe('CommissionList', () => {
     await fixture.whenStable();
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   function expectList(): TestRequest {
     return httpMock.expectOne((r) => r.url === '/api/commissions');

@@ -120,7 +120,7 @@ describe('CommissionPage', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   async function field(label: string) {
     return loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }));

@@ -60,7 +60,7 @@ describe('DeliveryChecklist', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const rows = () => Array.from(element.querySelectorAll('[data-testid="delivery-garment"]'));
 

@@ -49,7 +49,7 @@ describe('GarmentDetailsForm', () => {
     await fixture.whenStable();
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const { field, input, select } = labelledFields(() => loader);
   const save = async () => (await loader.getHarness(MatButtonHarness.with({ text: 'Save details' }))).click();

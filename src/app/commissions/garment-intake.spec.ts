@@ -23,7 +23,7 @@ describe('GarmentIntake, kept features', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const { field, input } = labelledFields(() => loader);
   const step = async (label: string) => (await (await loader.getHarness(MatStepperHarness)).getSteps({ label }))[0]!.select();

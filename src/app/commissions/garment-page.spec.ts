@@ -65,7 +65,7 @@ describe('GarmentPage custody', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   async function chooseEvent(label: string): Promise<void> {
     const field = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Event' }));

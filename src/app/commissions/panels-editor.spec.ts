@@ -34,7 +34,7 @@ describe('PanelsEditor', () => {
     await fixture.whenStable();
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const field = (label: string) => loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }));
 

@@ -31,7 +31,7 @@ describe('apiErrorInterceptor', () => {
     navigate = spyOn(TestBed.inject(Router), 'navigate').and.resolveTo(true);
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   function fail(url: string, status: number, body: object, context?: HttpContext): jasmine.Spy {
     const failed = jasmine.createSpy('error');

@@ -15,7 +15,7 @@ describe('Auth', () => {
     httpMock = TestBed.inject(HttpTestingController);
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   async function settle(): Promise<void> {
     await new Promise((resolve) => setTimeout(resolve));

@@ -17,7 +17,7 @@ describe('CurrentLocale', () => {
     return TestBed.inject(CurrentLocale);
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('reads the studio locale at start for whoever is signed in', () => {
     const current = start('workroom');

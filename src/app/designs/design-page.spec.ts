@@ -49,7 +49,7 @@ describe('DesignPage', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('links a print page for the cut list, sewing order, templates and care card', async () => {
     const href = async (text: string) => (await (await loader.getHarness(MatButtonHarness.with({ text }))).host()).getAttribute('href');
@@ -123,7 +123,7 @@ describe('DesignPage, groups of garments (owner)', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const button = (text: string | RegExp) => loader.getHarness(MatButtonHarness.with({ text }));
   /** The previews sent after the page's 400 ms pause, answered with a legend that knows the design's groups. */

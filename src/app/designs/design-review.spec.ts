@@ -43,7 +43,7 @@ describe('DesignReview (the client)', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it("shows a group in the legend in stripes of its garments' colours, not its first garment's", () => {
     const item = [...page.querySelectorAll('[data-testid="review-fabric"]')].find((li) => li.textContent!.includes('The blues'))!;

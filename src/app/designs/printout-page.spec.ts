@@ -64,7 +64,7 @@ describe('PrintoutPage: cut-list', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const text = (e: Element) => e.textContent!.replace(/\s+/g, ' ').trim();
 
@@ -130,7 +130,7 @@ describe('PrintoutPage: sewing-order', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   async function flush(body: object): Promise<void> {
     httpMock.expectOne('/api/commissions/5/design').flush(body);
@@ -209,7 +209,7 @@ describe('PrintoutPage: templates', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   async function flush(body: object): Promise<void> {
     httpMock.expectOne('/api/commissions/5/design').flush(body);
@@ -331,7 +331,7 @@ describe('PrintoutPage: care-card', () => {
     await fixture.whenStable();
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   async function flush(body: object = card): Promise<void> {
     httpMock.expectOne('/api/commissions/5/care-card').flush(body);

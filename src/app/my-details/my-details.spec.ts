@@ -37,7 +37,7 @@ describe('MyDetails', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('shows what the studio holds, saying what is not given', async () => {
     expect(page.querySelector('mat-progress-bar')?.getAttribute('aria-label')).toBe('Loading your details');

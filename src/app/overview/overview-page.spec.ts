@@ -41,7 +41,7 @@ describe('OverviewPage', () => {
     await fixture.whenStable();
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const section = (heading: string) => [...page.querySelectorAll('section.due')].find((s) => s.querySelector('h2')?.textContent?.trim() === heading) as HTMLElement | undefined;
   const links = (heading: string) => [...section(heading)!.querySelectorAll('a')].map((a) => ({ href: a.getAttribute('href'), text: a.textContent!.replace(/\s+/g, ' ').trim() }));

@@ -74,7 +74,7 @@ describe('PortalCommission', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('shows the page whole once the quote part has loaded, so nothing jumps down', () => {
     expect(shownBeforeQuote).toEqual({ hidden: true, bar: 'Loading your commission' });

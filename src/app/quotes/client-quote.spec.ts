@@ -99,7 +99,7 @@ describe('ClientQuote', () => {
     expect(ended).toBe(1);
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const button = (text: string | RegExp) => loader.getHarness(MatButtonHarness.with({ text }));
   const nameField = () => loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Your full name' }));

@@ -67,7 +67,7 @@ describe('QuoteEditor', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const field = (label: string) => loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }));
   const input = async (label: string) => (await (await field(label)).getControl(MatInputHarness))!;

@@ -53,7 +53,7 @@ describe('QuoteSection: a new quote priced from the design', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const newQuote = async () => {
     const loader = TestbedHarnessEnvironment.loader(fixture);
@@ -114,7 +114,7 @@ describe('QuoteSection: payments that need the owner', () => {
     httpMock.expectOne('/api/settings').flush(settings);
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const text = (testId: string) => Array.from(fixture.nativeElement.querySelectorAll(`[data-testid="${testId}"]`) as NodeListOf<HTMLElement>).map((e) => e.textContent!.replace(/\s+/g, ' ').trim());
 

@@ -39,7 +39,7 @@ describe('RecordPaymentForm: the owner records cash or a bank transfer', () => {
     });
     httpMock = TestBed.inject(HttpTestingController);
   });
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('suggests the deposit due, then sends the payment in pence with its method, day and reference', async () => {
     create({ depositPence: 12645, balancePence: 29505, depositPaid: false });

@@ -62,7 +62,7 @@ describe('SettingsPage', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const field = (label: string) => loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }));
   const input = async (label: string) => (await (await field(label)).getControl(MatInputHarness))!;

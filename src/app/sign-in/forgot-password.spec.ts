@@ -22,7 +22,7 @@ describe('ForgotPassword', () => {
     loader = TestbedHarnessEnvironment.loader(fixture);
     await fixture.whenStable();
   });
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const field = () => loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'E-mail' }));
   const submit = async () => {

@@ -29,7 +29,7 @@ describe('SetPassword', () => {
     await fixture.whenStable();
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const field = (label: string) => loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: label }));
   async function type(label: string, value: string): Promise<void> {

@@ -55,7 +55,7 @@ describe('SignIn', () => {
     return element?.textContent?.trim() ?? '';
   }
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('labels both fields and asks for them before sending anything', async () => {
     await setUp();

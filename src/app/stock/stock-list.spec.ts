@@ -52,7 +52,7 @@ describe('StockList', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('says so when the shelves are empty', async () => {
     httpMock.expectOne('/api/stock').flush({ items: [] });
@@ -137,7 +137,7 @@ describe('StockList for the workroom', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   it('lists the fabric to read, without cost, supplier or any way to change it', async () => {
     // The server leaves the cost fields out for the workroom.

@@ -58,7 +58,7 @@ describe('PhotoUpload', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   function fileRows(): HTMLElement[] {
     return Array.from(element.querySelectorAll<HTMLElement>('[data-testid="upload-file"]'));

@@ -35,7 +35,7 @@ describe('ResetPasswordDialog', () => {
     );
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   async function dialog(): Promise<MatDialogHarness> {
     await TestBed.inject(ApplicationRef).whenStable();

@@ -41,7 +41,7 @@ describe('UserForm', () => {
     await fixture.whenStable();
   });
 
-  afterEach(() => httpMock.verify());
+  afterEach(() => httpMock?.verify());
 
   const input = (name: string) =>
     loader.getHarness(MatInputHarness.with({ selector: `[formControlName=${name}]` }));
