@@ -40,7 +40,8 @@ export async function dueReminders(settings: StudioSettingsModel, today: string)
   const out: DueReminder[] = [];
 
   for (const q of expiring) {
-    const title = (q as unknown as { title: string }).title;
+    // The query selects the commission's title beside the quote's columns.
+    const { title } = q as typeof q & { title: string };
     out.push({
       kind: 'quote_expiry',
       subjectId: q.id,

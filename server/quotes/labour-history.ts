@@ -10,7 +10,7 @@ import { QuoteLineModel } from '../models/quote-model';
  * read (30) for the last ten of one block kind to be among them most of the time.
  */
 export async function finishedCommissions(exceptId: number, limit = 30): Promise<FinishedCommission[]> {
-  const finished = (await StageMoveModel.query()
+  const finished = await StageMoveModel.query()
     .join('commissions', 'commissions.id', 'stageMoves.commissionId')
     .where('commissions.stage', 'delivered')
     .where('stageMoves.toStage', 'delivered')
@@ -19,7 +19,8 @@ export async function finishedCommissions(exceptId: number, limit = 30): Promise
     .select('stageMoves.commissionId')
     .max('stageMoves.movedAt as finishedAt')
     .orderBy('finishedAt', 'desc')
-    .limit(limit)) as unknown as { commissionId: number; finishedAt: Date }[];
+    .limit(limit)
+    .castTo<{ commissionId: number; finishedAt: Date }[]>();
   if (finished.length === 0) return [];
   const ids = finished.map((f) => f.commissionId);
   const [quoted, logged, designs] = await Promise.all([
@@ -31,8 +32,9 @@ export async function finishedCommissions(exceptId: number, limit = 30): Promise
       .whereNotNull('quoteLines.stage')
       .groupBy('quotes.commissionId', 'quoteLines.stage')
       .select('quotes.commissionId', 'quoteLines.stage')
-      .sum('quoteLines.quantity as hours') as unknown as Promise<{ commissionId: number; stage: string; hours: string }[]>,
-    HoursModel.query().whereIn('commissionId', ids).groupBy('commissionId', 'stage').select('commissionId', 'stage').sum('hours as hours') as unknown as Promise<{ commissionId: number; stage: string; hours: string }[]>,
+      .sum('quoteLines.quantity as hours')
+      .castTo<{ commissionId: number; stage: string; hours: string }[]>(),
+    HoursModel.query().whereIn('commissionId', ids).groupBy('commissionId', 'stage').select('commissionId', 'stage').sum('hours as hours').castTo<{ commissionId: number; stage: string; hours: string }[]>(),
     DesignVersionModel.query().select('commissionId', 'version', 'body', 'derived').whereIn('commissionId', ids).distinctOn('commissionId').orderBy('commissionId').orderBy('version', 'desc'),
   ]);
   return finished.map((f) => {
