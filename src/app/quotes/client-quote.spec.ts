@@ -131,6 +131,21 @@ describe('ClientQuote', () => {
     expect(await (await button(/Pay deposit/)).getText()).toContain('£55.50');
   });
 
+  it('answered already in another tab: says so and shows the quote as it now stands, ready for the deposit', async () => {
+    await open([sent], { items: [], due: null });
+    await (await (await nameField()).getControl(MatInputHarness))!.setValue('Cass Penrose');
+    await (await button('Accept quote')).click();
+    httpMock
+      .expectOne({ method: 'POST', url: '/api/quotes/12/accept' })
+      .flush({ error: { code: 'already_accepted', message: 'You have already accepted this quote.' } }, { status: 409, statusText: 'Conflict' });
+    httpMock.expectOne('/api/commissions/5/quotes').flush({ items: [accepted] });
+    httpMock.expectOne('/api/commissions/5/payments').flush(owing);
+    await fixture.whenStable();
+    expect(page.textContent).toContain('You have already accepted this quote.');
+    expect(await (await button(/Pay deposit/)).getText()).toContain('£55.50');
+    expect(page.textContent).not.toContain('Accept this quote');
+  });
+
   it('sends a decline with its optional note', async () => {
     await open([sent], { items: [], due: null });
     await (await button('Decline')).click();

@@ -176,10 +176,7 @@ export class ClientQuote {
         this.refreshPayments();
         this.changed.emit();
       },
-      error: (error: unknown) => {
-        this.busy.set(null);
-        this.error.set(messageFor(error));
-      },
+      error: (error: unknown) => this.refused(error),
     });
   }
 
@@ -199,11 +196,19 @@ export class ClientQuote {
         this.notices.info('Your answer is sent to the studio.');
         this.changed.emit();
       },
-      error: (error: unknown) => {
-        this.busy.set(null);
-        this.error.set(messageFor(error));
-      },
+      error: (error: unknown) => this.refused(error),
     });
+  }
+
+  /**
+   * An answer the server refused. A conflict means the quote moved on meanwhile
+   * (answered in another tab, or replaced by a newer version): the part loads
+   * again so it shows where the quote stands, with the server's message.
+   */
+  private refused(error: unknown): void {
+    this.busy.set(null);
+    this.error.set(messageFor(error));
+    if ((error as { status?: number }).status === 409) this.load();
   }
 
   /** Off to the hosted card payment page; the studio's server never sees the card. */
